@@ -1,0 +1,275 @@
+"""Second-order (curved, isoparametric) triangle meshes of a section, from gmsh to scikit-fem.
+
+:func:`mesh_section` builds the section in a fresh gmsh model, sizes the mesh (a global size from
+the fineness, finer along small fillets and at re-entrant corners, or a size field given by the
+caller for adaptive refinement) and returns a :class:`SectionMesh`: the scikit-fem ``MeshTri2``
+with named boundaries ``outer``, ``hole1``, ``hole2``…, which exact curve every boundary facet
+lies on, and the :class:`~fem.geometry.BoundaryInfo` of the exact geometry.
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+from typing import Callable
+
+import numpy as np
+from skfem import MeshTri2
+
+from .errors import InputError
+from .geometry import BoundaryInfo, Section, analyse_boundary
+from .gmshload import load_gmsh
+
+#: Default global fineness: elements across the section's characteristic size.
+DEFAULT_FINENESS = 1.0
+
+#: Points per boundary facet (reference coordinate along the facet) where boundary peaks are read.
+BOUNDARY_POINTS = np.linspace(0.0, 1.0, 9)
+#: Gauss-Legendre points and weights on [0, 1] for integrals along the boundary.
+_gx, _gw = np.polynomial.legendre.leggauss(10)
+BOUNDARY_GAUSS = ((_gx + 1) / 2, _gw / 2)
+
+
+@dataclass(frozen=True)
+class MeshOptions:
+    """Mesh sizing. ``fineness`` scales every size at once (2 = twice as fine everywhere)."""
+
+    fineness: float = DEFAULT_FINENESS
+    across: float = 14.0  # elements across the characteristic size at fineness 1
+    per_circle: float = 40.0  # elements per full turn of a curved boundary (fillets, arcs)
+    corner_ratio: float = 1.0 / 25.0  # size at a sharp re-entrant corner relative to the global size
+    grading: float = 0.25  # growth of the element size per unit distance away from a feature
+    small_arc: float = 0.125  # arcs with radius below small_arc * L get their own refinement
+
+    def __post_init__(self):
+        if not (self.fineness > 0 and math.isfinite(self.fineness)):
+            raise InputError("analysis.fineness", self.fineness, "must be a positive number")
+
+
+@dataclass
+class SectionMesh:
+    mesh: MeshTri2
+    section: Section
+    boundary: BoundaryInfo
+    facet_curve: dict[int, int]  # boundary facet index -> exact curve tag
+    boundary_facets: np.ndarray  # the boundary facets, in the order of the arrays below
+    boundary_offset: np.ndarray  # (nf, ng): outward distance of the mesh boundary from the exact curve [m], at BOUNDARY_GAUSS
+    options: MeshOptions
+    h_global: float
+    seconds: float = 0.0
+    info: dict = field(default_factory=dict)
+
+    @property
+    def hole_names(self) -> list[str]:
+        return [f"hole{k}" for k in range(1, len(self.boundary.hole_areas) + 1)]
+
+    def boundary_basis(self, points: str = "sample"):
+        """FacetBasis (P2) on the boundary facets: at :data:`BOUNDARY_POINTS` (``'sample'``, for
+        peaks) or at :data:`BOUNDARY_GAUSS` (``'gauss'``, whose ``dx`` integrates along the boundary)."""
+        return _boundary_basis(self.mesh, self.boundary_facets, points)
+
+    def curve_of(self, facet: int):
+        return self.boundary.curves.get(self.facet_curve.get(int(facet), -1))
+
+
+SizeField = Callable[[np.ndarray, np.ndarray], np.ndarray]  # (x, y) -> element size [m]
+
+
+def mesh_section(section: Section, options: MeshOptions | None = None,
+                 size_field: tuple[np.ndarray, np.ndarray] | None = None) -> SectionMesh:
+    """Mesh ``section`` with curved second-order triangles.
+
+    ``size_field``, if given, is ``(triangles_xy, sizes)``: a background size on the triangles of an
+    earlier mesh (``triangles_xy`` of shape (n, 3, 2), ``sizes`` of shape (n,) or (n, 3)), as used
+    by adaptive refinement; it is combined (minimum) with the feature sizes.
+    """
+    import time
+
+    options = options or MeshOptions()
+    gmsh = load_gmsh()
+    t0 = time.perf_counter()
+    if not gmsh.isInitialized():
+        gmsh.initialize(readConfigFiles=False)
+    gmsh.option.setNumber("General.Terminal", 0)
+    gmsh.option.setNumber("General.NumThreads", 1)
+    gmsh.clear()
+    try:
+        gmsh.model.add("section")
+        surfaces = section.build(gmsh)
+        L = section.length_scale
+        info = analyse_boundary(gmsh, surfaces, L)
+        h = L / (options.across * options.fineness)
+        _set_sizes(gmsh, info, options, h, size_field)
+        gmsh.model.addPhysicalGroup(2, surfaces, name="section")
+        gmsh.option.setNumber("Mesh.ElementOrder", 2)
+        gmsh.option.setNumber("Mesh.SecondOrderLinear", 0)
+        gmsh.option.setNumber("Mesh.HighOrderOptimize", 0)
+        gmsh.option.setNumber("Mesh.Algorithm", 6)
+        gmsh.model.mesh.generate(2)
+        mesh, facet_curve = _to_skfem(gmsh, info)
+        bfacets, offset = _boundary_offsets(gmsh, mesh, facet_curve)
+    except InputError:
+        raise
+    except Exception as exc:  # gmsh raises plain Exceptions with its own message
+        raise InputError("section", section.kind, f"the geometry could not be built or meshed ({str(exc).splitlines()[0]})") from None
+    finally:
+        gmsh.clear()
+    sm = SectionMesh(mesh, section, info, facet_curve, bfacets, offset, options, h, time.perf_counter() - t0)
+    sm.info["elements"] = int(mesh.t.shape[1])
+    return sm
+
+
+def _set_sizes(gmsh, info: BoundaryInfo, o: MeshOptions, h: float, size_field) -> None:
+    f = gmsh.model.mesh.field
+    gmsh.option.setNumber("Mesh.MeshSizeMax", h)
+    gmsh.option.setNumber("Mesh.MeshSizeMin", 0.0)
+    gmsh.option.setNumber("Mesh.MeshSizeFromCurvature", o.per_circle * o.fineness)
+    gmsh.option.setNumber("Mesh.MeshSizeFromPoints", 0)
+    gmsh.option.setNumber("Mesh.MeshSizeExtendFromBoundary", 0)
+    L = h * o.across * o.fineness
+    fields = []
+    small = [c.tag for c in info.curves.values() if c.kind == "arc" and c.radius and c.radius < o.small_arc * L]
+    radii = {}
+    for tag in small:
+        r = info.curves[tag].radius
+        radii.setdefault(round(r / L, 9), []).append(tag)
+    for _, tags in radii.items():
+        r = info.curves[tags[0]].radius
+        smin = min(h, 2 * math.pi * r / (o.per_circle * o.fineness))
+        d = f.add("Distance")
+        f.setNumbers(d, "CurvesList", tags)
+        f.setNumber(d, "Sampling", 40)
+        t = f.add("Threshold")
+        f.setNumber(t, "InField", d)
+        f.setNumber(t, "SizeMin", smin)
+        f.setNumber(t, "SizeMax", h)
+        f.setNumber(t, "DistMin", 0.5 * r)
+        f.setNumber(t, "DistMax", 0.5 * r + (h - smin) / o.grading)
+        fields.append(t)
+    corner_pts = []
+    for c in info.reentrant_sharp_corners:
+        corner_pts.append(c.point)
+    if corner_pts:
+        smin = h * o.corner_ratio
+        pts = [gmsh.model.occ.addPoint(x, y, 0.0) for x, y in corner_pts]
+        gmsh.model.occ.synchronize()
+        d = f.add("Distance")
+        f.setNumbers(d, "PointsList", pts)
+        t = f.add("Threshold")
+        f.setNumber(t, "InField", d)
+        f.setNumber(t, "SizeMin", smin)
+        f.setNumber(t, "SizeMax", h)
+        f.setNumber(t, "DistMin", 0.0)
+        f.setNumber(t, "DistMax", (h - smin) / o.grading)
+        fields.append(t)
+    if size_field is not None:
+        tri, sizes = size_field
+        tri = np.asarray(tri, float)
+        sizes = np.asarray(sizes, float)
+        if sizes.ndim == 1:
+            sizes = np.repeat(sizes[:, None], 3, axis=1)
+        view = gmsh.view.add("size")
+        data = np.concatenate([tri[:, :, 0], tri[:, :, 1], np.zeros((len(tri), 3)), sizes], axis=1)
+        gmsh.view.addListData(view, "ST", len(tri), data.ravel().tolist())
+        pv = f.add("PostView")
+        f.setNumber(pv, "ViewTag", view)
+        fields.append(pv)
+    if fields:
+        m = f.add("Min")
+        f.setNumbers(m, "FieldsList", fields)
+        f.setAsBackgroundMesh(m)
+
+
+def _to_skfem(gmsh, info: BoundaryInfo):
+    tags, coords, _ = gmsh.model.mesh.getNodes()
+    xy = np.reshape(coords, (-1, 3))[:, :2]
+    index = np.full(int(tags.max()) + 1, -1, dtype=np.int64)
+    index[tags.astype(np.int64)] = np.arange(len(tags))
+    etags, enodes = gmsh.model.mesh.getElementsByType(9)  # 6-node triangles
+    if len(etags) == 0:
+        raise InputError("section", None, "gmsh produced no second-order triangles")
+    t = index[np.asarray(enodes, dtype=np.int64)].reshape(-1, 6).T
+    used = np.unique(t)
+    remap = np.full(len(xy), -1, dtype=np.int64)
+    remap[used] = np.arange(len(used))
+    t = remap[t]
+    p = xy[used].T
+    # counter-clockwise vertices (the exact geometry is in the z = 0 plane, normal +z)
+    a, b, c = p[:, t[0]], p[:, t[1]], p[:, t[2]]
+    cw = ((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])) < 0
+    if np.any(cw):
+        t[:, cw] = t[[0, 2, 1, 5, 4, 3]][:, cw]
+    corner_nodes = np.unique(t[:3])
+    vertex_of = np.full(p.shape[1], -1, dtype=np.int64)
+    vertex_of[corner_nodes] = np.arange(len(corner_nodes))  # MeshTri2 numbers vertices this way
+    mesh = MeshTri2(p, t)
+    # named boundaries: which loop and which exact curve each boundary facet lies on
+    bf = mesh.boundary_facets()
+    fkey = {tuple(sorted(mesh.facets[:, f])): f for f in bf}
+    facet_curve: dict[int, int] = {}
+    for ctag, curve in info.curves.items():
+        _, lnodes = gmsh.model.mesh.getElementsByType(8, ctag)  # 3-node lines on that curve
+        ln = remap[index[np.asarray(lnodes, dtype=np.int64)]].reshape(-1, 3)
+        for a_, b_, _m in ln:
+            f_ = fkey.get(tuple(sorted((int(vertex_of[a_]), int(vertex_of[b_])))))
+            if f_ is not None:
+                facet_curve[int(f_)] = ctag
+    names = {}
+    loop_of = {ct: cv.loop for ct, cv in info.curves.items()}
+    for li in range(len(info.loops)):
+        sel = np.array([f for f, ct in facet_curve.items() if loop_of[ct] == li], dtype=np.int64)
+        names["outer" if li == 0 else f"hole{li}"] = np.sort(sel)
+    if sum(len(v) for v in names.values()) != len(bf):
+        raise InputError("section", None, "could not match every boundary facet to a boundary curve")
+    mesh = mesh.with_boundaries(names)
+    return mesh, facet_curve
+
+
+
+def _boundary_basis(mesh, facets, points):
+    from skfem import ElementTriP2, FacetBasis
+
+    if points == "gauss":
+        q = (BOUNDARY_GAUSS[0][None, :], BOUNDARY_GAUSS[1])
+    else:
+        q = (BOUNDARY_POINTS[None, :], np.full(len(BOUNDARY_POINTS), 1.0 / len(BOUNDARY_POINTS)))
+    return FacetBasis(mesh, ElementTriP2(), facets=facets, quadrature=q)
+
+
+def _boundary_offsets(gmsh, mesh, facet_curve):
+    """Signed distance (outward positive) of the curved mesh boundary from the exact curves."""
+
+    facets = mesh.boundary_facets()
+    fb = _boundary_basis(mesh, facets, "gauss")
+    X = fb.global_coordinates().value  # (2, nf, np)
+    n = fb.normals.value
+    offset = np.zeros(X.shape[1:])
+    curve_of = np.array([facet_curve[int(f)] for f in facets])
+    for ctag in np.unique(curve_of):
+        sel = np.flatnonzero(curve_of == ctag)
+        pts = X[:, sel, :].reshape(2, -1)
+        c = _closest_on_curve(gmsh, int(ctag), pts)
+        d = pts - c
+        nn = n[:, sel, :].reshape(2, -1)
+        offset[sel, :] = (d[0] * nn[0] + d[1] * nn[1]).reshape(len(sel), -1)
+    return facets, offset
+
+
+def _closest_on_curve(gmsh, tag: int, pts: np.ndarray, samples: int = 2048) -> np.ndarray:
+    """Closest points on an exact curve: nearest of dense samples, then Newton on the parameter
+    (gmsh's own projection can land on a far branch of a trimmed ellipse or circle)."""
+    from scipy.spatial import cKDTree
+
+    lo, hi = (float(v[0]) for v in gmsh.model.getParametrizationBounds(1, tag))
+    ts = np.linspace(lo, hi, samples)
+    cs = np.reshape(gmsh.model.getValue(1, tag, ts.tolist()), (-1, 3))[:, :2]
+    _, idx = cKDTree(cs).query(pts.T)
+    t = ts[idx]
+    for _ in range(4):
+        c = np.reshape(gmsh.model.getValue(1, tag, t.tolist()), (-1, 3))[:, :2].T
+        d1 = np.reshape(gmsh.model.getDerivative(1, tag, t.tolist()), (-1, 3))[:, :2].T
+        d2 = np.reshape(gmsh.model.getSecondDerivative(1, tag, t.tolist()), (-1, 3))[:, :2].T
+        r = c - pts
+        f = np.sum(r * d1, axis=0)
+        fp = np.sum(d1 * d1, axis=0) + np.sum(r * d2, axis=0)
+        t = np.clip(t - f / np.where(fp > 0, fp, 1.0), lo, hi)
+    return np.reshape(gmsh.model.getValue(1, tag, t.tolist()), (-1, 3))[:, :2].T

@@ -1,0 +1,179 @@
+"""Saint-Venant torsion of a meshed section, two independent ways.
+
+Stress function (Prandtl), per unit Gθ: ∇²φ = −2 in the section, φ = 0 on the outer boundary and
+φ = cₖ on hole k, each cₖ an unknown fixed by that hole's circulation (Bredt) condition. In the
+complementary-energy form ∫(½|∇φ|² − 2φ) dA − 2Σcₖ Aₖ the constant of a hole is one unknown shared
+by all the hole's nodes (a 0/1 prolongation P, reduced system PᵀKP) loaded by 2Aₖ.
+J = 2∫φ dA + 2Σ cₖAₖ; τzx = Gθ ∂φ/∂y, τzy = −Gθ ∂φ/∂x, Gθ = T/J. A conforming solution gives J
+from below. (Saint-Venant/Prandtl; e.g. Timoshenko & Goodier, Theory of Elasticity, 3rd ed., ch. 10.)
+
+Warping function, per unit θ: ∇²ω = 0, ∂ω/∂n = y·nx − x·ny (pure Neumann, one DOF fixed).
+J = ∫(x² + y² + x ∂ω/∂y − y ∂ω/∂x) dA, τzx = Gθ(∂ω/∂x − y), τzy = Gθ(∂ω/∂y + x). A conforming
+solution gives J from above, so the two bracket the exact value.
+
+Peak stresses are read on the boundary (facet points of the owning elements, through the
+isoparametric map), where they live, not at interior quadrature points.
+"""
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+import numpy as np
+import scipy.sparse as sp
+from skfem import Basis, ElementTriP2, FacetBasis, Functional, condense
+
+from . import forms
+from .linalg import solve_spd
+from .mesh import SectionMesh
+
+
+@dataclass
+class BoundaryPeak:
+    value: float  # |τ| per unit of the load (see the solver)
+    at: tuple[float, float]
+    facet: int
+    curve: int | None
+    loop: int | None
+
+
+@dataclass
+class TorsionResult:
+    J: float  # stress-function torsion constant [m⁴], lower bound (boundary-corrected)
+    J_warping: float  # warping-function torsion constant [m⁴], upper bound (boundary-corrected)
+    J_mesh: float  # stress-function J on the meshed domain, before the boundary correction
+    J_warping_mesh: float
+    hole_constants: list[float]  # cₖ per unit Gθ [m²]
+    hole_areas: list[float]  # Aₖ [m²] (of the meshed hole)
+    peak_per_torque: float  # τmax / T [1/m³], stress function
+    peak_at: tuple[float, float]
+    peak: BoundaryPeak
+    peak_warping_per_torque: float  # τmax / T from the warping solution
+    peak_warping_at: tuple[float, float]
+    dofs: int
+    phi: np.ndarray = field(repr=False)
+    omega: np.ndarray = field(repr=False)
+    basis: Basis = field(repr=False)
+    seconds: dict = field(default_factory=dict)
+
+    def stress(self, T: float, x: np.ndarray | None = None):
+        """(τzx, τzy) at the basis quadrature points for torque T [Pa] (``x`` unused: reserved)."""
+        g = self.basis.interpolate(self.phi).grad
+        k = T / self.J
+        return k * g[1], -k * g[0]
+
+
+def _hole_prolongation(basis: Basis, hole_names: list[str]):
+    """P: reduced unknowns (interior DOFs, then one per hole) -> all DOFs; outer DOFs are zero."""
+    n = basis.N
+    outer = basis.get_dofs("outer").all()
+    holes = [basis.get_dofs(h).all() for h in hole_names]
+    fixed = np.zeros(n, dtype=bool)
+    fixed[outer] = True
+    for h in holes:
+        fixed[h] = True
+    free = np.flatnonzero(~fixed)
+    rows = [free]
+    cols = [np.arange(len(free))]
+    for k, h in enumerate(holes):
+        rows.append(h)
+        cols.append(np.full(len(h), len(free) + k))
+    rows, cols = np.concatenate(rows), np.concatenate(cols)
+    P = sp.csr_matrix((np.ones(len(rows)), (rows, cols)), shape=(n, len(free) + len(holes)))
+    return P, len(free)
+
+
+@Functional
+def _x_normal(w):
+    return w.x[0] * w.n[0]
+
+
+def hole_areas(sm: SectionMesh) -> list[float]:
+    """Area each meshed hole encloses: −∮ x nₓ ds over its boundary (n points out of the section)."""
+    out = []
+    for name in sm.hole_names:
+        fb = FacetBasis(sm.mesh, ElementTriP2(), facets=sm.mesh.boundaries[name], intorder=6)
+        out.append(-float(_x_normal.assemble(fb)))
+    return out
+
+
+def boundary_gradients(sm: SectionMesh, u: np.ndarray, points: str = "sample"):
+    """∇u, positions and integration weights on every boundary facet, from the owning element,
+    at the peak-sampling or the Gauss points (see :meth:`SectionMesh.boundary_basis`).
+    Arrays of shape (2, nf, np), (2, nf, np) and (nf, np)."""
+    fb = sm.boundary_basis(points)
+    return fb.global_coordinates().value, fb.interpolate(u).grad, fb.dx
+
+
+def boundary_correction(sm: SectionMesh, tau_sq: np.ndarray, ds: np.ndarray) -> float:
+    """First-order change of J from the mesh boundary to the exact one (Hadamard's shape derivative
+    of the torsional rigidity, δJ = ∮ |τ/Gθ|² δn ds): the curved P2 boundary lies a distance δn
+    off the exact curve, and this is what that costs J. Returned as J_exact − J_mesh."""
+    return -float(np.sum(tau_sq * sm.boundary_offset * ds))
+
+
+def boundary_peak(sm: SectionMesh, x: np.ndarray, mag: np.ndarray, facets: np.ndarray) -> BoundaryPeak:
+    i, j = np.unravel_index(int(np.argmax(mag)), mag.shape)
+    f = int(facets[i])
+    curve = sm.facet_curve.get(f)
+    loop = sm.boundary.curves[curve].loop if curve in sm.boundary.curves else None
+    return BoundaryPeak(float(mag[i, j]), (float(x[0, i, j]), float(x[1, i, j])), f, curve, loop)
+
+
+def solve_torsion(sm: SectionMesh, centroid: tuple[float, float]) -> TorsionResult:
+    """Both torsion solutions on ``sm``; ``centroid`` is used as origin for the warping function."""
+    import time
+
+    t0 = time.perf_counter()
+    basis = Basis(sm.mesh, ElementTriP2(), intorder=4)
+    K = forms.laplace.assemble(basis)
+    f = forms.prandtl_load.assemble(basis)
+    t1 = time.perf_counter()
+
+    # --- stress function with one unknown constant per hole
+    P, nfree = _hole_prolongation(basis, sm.hole_names)
+    areas = hole_areas(sm)
+    Kr = (P.T @ K @ P).tocsr()
+    fr = P.T @ f
+    fr[nfree:] += 2.0 * np.asarray(areas)
+    ur = solve_spd(Kr, fr)
+    phi = P @ ur
+    consts = [float(c) for c in ur[nfree:]]
+    J = 2.0 * float(forms.integral_of.assemble(basis, u=basis.interpolate(phi))) + 2.0 * float(np.dot(consts, areas))
+    t2 = time.perf_counter()
+
+    # --- warping function about the centroid
+    cmesh = sm.mesh.translated((-centroid[0], -centroid[1]))
+    cbasis = Basis(cmesh, ElementTriP2(), intorder=4)
+    g = forms.warping_load.assemble(cbasis)
+    D = np.array([0])
+    omega = np.zeros(basis.N)
+    Kc, gc, _, I = condense(K, g, D=D)
+    omega[I] = solve_spd(Kc, gc)
+    J_w = float(forms.warping_torsion_constant.assemble(cbasis, omega=cbasis.interpolate(omega)))
+    t3 = time.perf_counter()
+
+    # --- boundary peaks, per unit torque
+    facets = sm.boundary_facets
+    def warping_stress(x, gw):  # τ/Gθ from the warping function
+        return gw[0] - (x[1] - centroid[1]), gw[1] + (x[0] - centroid[0])
+
+    xg, gphi, ds = boundary_gradients(sm, phi, "gauss")
+    _, gw, _ = boundary_gradients(sm, omega, "gauss")
+    tw = warping_stress(xg, gw)
+    dJ = boundary_correction(sm, gphi[0] ** 2 + gphi[1] ** 2, ds)
+    dJw = boundary_correction(sm, tw[0] ** 2 + tw[1] ** 2, ds)
+    x, gphi, _ = boundary_gradients(sm, phi)
+    _, gw, _ = boundary_gradients(sm, omega)
+    tw = warping_stress(x, gw)
+    J_mesh, J_w_mesh = J, J_w
+    J, J_w = J_mesh + dJ, J_w_mesh + dJw
+    peak = boundary_peak(sm, x, np.hypot(gphi[0], gphi[1]) / J, facets)
+    peak_w = boundary_peak(sm, x, np.hypot(*tw) / J_w, facets)
+    t4 = time.perf_counter()
+    return TorsionResult(
+        J=J, J_warping=J_w, J_mesh=J_mesh, J_warping_mesh=J_w_mesh, hole_constants=consts, hole_areas=areas,
+        peak_per_torque=peak.value, peak_at=peak.at, peak=peak,
+        peak_warping_per_torque=peak_w.value, peak_warping_at=peak_w.at,
+        dofs=int(basis.N), phi=phi, omega=omega, basis=basis,
+        seconds=dict(assemble=t1 - t0, solve_stress_function=t2 - t1, solve_warping=t3 - t2, boundary=t4 - t3),
+    )
