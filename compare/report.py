@@ -1,0 +1,96 @@
+"""The terminal summary, in the case's own units (results.json stays SI)."""
+from __future__ import annotations
+
+from .analysis import CAUTION
+from .units import SYSTEMS, UnitSystem, from_si
+
+_DIMS = {"second_moment": "second_moment", "area": "area", "stress": "stress", "length": "length"}
+
+
+def num(v: float, digits: int = 5) -> str:
+    """Significant digits, positional notation across the usual engineering range."""
+    import numpy as np  # noqa: PLC0415
+
+    if v == 0 or 1e-3 <= abs(v) < 1e7:
+        return np.format_float_positional(v, precision=digits, unique=False, fractional=False, trim="-")
+    return f"{v:.{digits - 1}e}"
+
+
+class Fmt:
+    def __init__(self, system: UnitSystem | None):
+        self.s = system or SYSTEMS["mm-N-MPa"]
+
+    def q(self, value, dimension: str, digits: int = 5) -> str:
+        if value is None:
+            return "—"
+        if dimension == "per_cubic":  # stress per unit torque: show as stress for a unit torque
+            v = from_si(value, "stress", self.s) * from_si(1.0, "moment", self.s) ** -1 * 1.0
+            return f"{num(v, digits)} {self.s.label('stress')} per {self.s.label('moment')}"
+        v = from_si(value, dimension, self.s)
+        unit = self.s.label(dimension)
+        return f"{num(v, digits)} {unit}".rstrip()
+
+    def point(self, xy) -> str:
+        x, y = (from_si(c, "length", self.s) for c in xy)
+        return f"({num(x)}, {num(y)}) {self.s.label('length')}"
+
+    def where(self, loc: dict) -> str:
+        parts = []
+        if loc.get("boundary"):
+            feat = loc.get("feature") or ""
+            if loc.get("radius") is not None and feat in ("fillet", "arc"):
+                feat += f" r = {self.q(loc['radius'], 'length', 4)}"
+            parts.append(f"{loc['boundary']} boundary, {feat}")
+        else:
+            parts.append("inside the section")
+        if loc.get("keyway"):
+            parts.append(f"keyway {loc['keyway']}")
+        parts.append(f"{loc['angle_deg']:.1f}° around, {self.q(loc['distance_from_axis'], 'length', 4)} from the axis")
+        return "; ".join(parts)
+
+
+def summary(res: dict, system: UnitSystem | None) -> str:
+    f = Fmt(system)
+    s, t = res["section"], res["torsion"]
+    lines = [f"shaftcheck {res['tool']['version']} — {res['case']['title']}",
+             f"units: {f.s.name}   mesh: {res['mesh']['elements']} curved P2 triangles, {res['mesh']['dofs']} DOFs",
+             ""]
+    gov = res.get("governing")
+    if gov:
+        lines += [f"GOVERNING: {gov['text']}", ""]
+    lines += [
+        "Section",
+        f"  area A            {f.q(s['area'], 'area')}",
+        f"  centroid          {f.point(s['centroid'])}",
+        f"  Ixx, Iyy, Ixy     {f.q(s['Ixx'], 'second_moment')}, {f.q(s['Iyy'], 'second_moment')}, {f.q(s['Ixy'], 'second_moment')}",
+        f"  I1, I2 at {s['principal_angle_deg']:.2f}°   {f.q(s['I1'], 'second_moment')}, {f.q(s['I2'], 'second_moment')}",
+        f"  FE vs exact boundary integral: largest relative difference {max(s['fe_vs_boundary_integral'].values()):.1e}",
+        "",
+        "Torsion (Saint-Venant)",
+        f"  J (stress function, lower bound)   {f.q(t['J'], 'second_moment', 7)}",
+        f"  J (warping function, upper bound)  {f.q(t['J_warping'], 'second_moment', 7)}   gap {t['J_relative_gap']:.1e}",
+        f"  torque T          {f.q(t['torque'], 'moment')}",
+        f"  τmax              {f.q(t['tau_max'], 'stress')}   (warping solution: {f.q(t['tau_max_warping'], 'stress')}, "
+        f"difference {t['peak_relative_difference']:.1e})",
+        f"  τmax at           {f.point(t['tau_max_at'])}: {f.where(t['tau_max_where'])}",
+        f"  twist θ = T/(GJ)  {f.q(t['twist_per_length'], 'twist')}",
+    ]
+    if "kts" in t:
+        lines.append(f"  Kts               {t['kts']:.4f}   (nominal {t['kts_nominal']['formula']})")
+    lines += ["", "FE against the hand formulas"]
+    for p in res["compare"]:
+        if p["kind"] == "not applicable":
+            lines.append(f"  {p['quantity']}: no hand formula — {p['note']}")
+            continue
+        ratio = f"{p['ratio']:.5f}" if p["ratio"] is not None else "—"
+        flag = ""
+        if p["within_tolerance"] is not None:
+            flag = "  ok" if p["within_tolerance"] else "  OUTSIDE TOLERANCE"
+        dim = p["dimension"]
+        lines.append(f"  {p['quantity']}: FE {f.q(p['fe'], dim)}, hand {f.q(p['classic'], dim)}, ratio {ratio}{flag}")
+        lines.append(f"      source: {p['source']}" + (f"; {p['note']}" if p["note"] else ""))
+    for key in ("shear", "combined", "static", "fatigue", "accuracy"):
+        if key in res and isinstance(res[key], dict) and res[key].get("summary"):
+            lines += ["", *res[key]["summary"]]
+    lines += ["", "Caution: " + CAUTION]
+    return "\n".join(lines)

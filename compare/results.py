@@ -1,0 +1,92 @@
+"""The results dictionary written to ``results.json``: SI base units (m, m², m⁴, N, N·m, Pa, rad/m),
+coordinates those of the case's geometry. README ('results.json') documents every key."""
+from __future__ import annotations
+
+import math
+
+from . import __version__
+from .analysis import CAUTION, Analysis
+
+SCHEMA_VERSION = 1
+
+
+def build_results(a: Analysis) -> dict:
+    pr, tr, sm, case = a.props, a.torsion, a.mesh, a.case
+    T = a.torque
+    G = case.material.shear_modulus
+    nom = a.nominal_shear()
+    tau = a.tau_max
+    J_lo, J_hi = tr.J, tr.J_warping
+    torsion = {
+        "J": tr.J,
+        "J_warping": tr.J_warping,
+        "J_bracket": [min(J_lo, J_hi), max(J_lo, J_hi)],
+        "J_relative_gap": abs(J_hi - J_lo) / abs(J_lo),
+        "J_mesh": tr.J_mesh,
+        "J_warping_mesh": tr.J_warping_mesh,
+        "boundary_correction": tr.J - tr.J_mesh,
+        "torque": T,
+        "tau_max": tau,
+        "tau_max_at": list(tr.peak_at),
+        "tau_max_where": a.where(tr.peak_at),
+        "tau_max_warping": abs(T) * tr.peak_warping_per_torque,
+        "tau_max_warping_at": list(tr.peak_warping_at),
+        "peak_relative_difference": abs(tr.peak_warping_per_torque - tr.peak_per_torque) / tr.peak_per_torque,
+        "tau_max_per_torque": tr.peak_per_torque,
+        "twist_per_length": T / (G * tr.J),
+        "torsional_stiffness_GJ": G * tr.J,
+        "section_modulus": tr.J / (tr.J * tr.peak_per_torque) if tr.peak_per_torque else None,
+        "hole_constants": tr.hole_constants,
+        "hole_areas": tr.hole_areas,
+        "dofs": tr.dofs,
+    }
+    if nom is not None:
+        torsion["kts"] = a.kts
+        torsion["kts_nominal"] = {"tau_nominal": nom[0] if T else None,
+                                  "tau_nominal_per_torque": nom[0] / (abs(T) or 1.0),
+                                  "formula": nom[1], "source": nom[2]}
+    out = {
+        "schema_version": SCHEMA_VERSION,
+        "tool": {"name": "shaftcheck", "version": __version__},
+        "case": {"title": case.title, "units": case.units.name if case.units else None,
+                 "file": str(case.path) if case.path else None},
+        "caution": CAUTION,
+        "section": {
+            "kind": case.section.kind,
+            "area": pr.area,
+            "centroid": list(pr.centroid),
+            "Ixx": pr.Ixx, "Iyy": pr.Iyy, "Ixy": pr.Ixy,
+            "I1": pr.I1, "I2": pr.I2, "principal_angle_deg": pr.principal_angle_deg,
+            "polar": pr.polar,
+            "c_max": pr.c_max,
+            "exact_boundary_integral": pr.exact,
+            "fe_vs_boundary_integral": pr.rel_diff,
+        },
+        "torsion": torsion,
+        "compare": [p.to_dict() for p in a.pairs],
+        "mesh": {
+            "fineness": sm.options.fineness,
+            "element_size": sm.h_global,
+            "elements": sm.info["elements"],
+            "dofs": tr.dofs,
+            "element": "6-node curved (isoparametric) triangle, quadratic",
+            "sharp_reentrant_corners": [list(c.point) for c in sm.boundary.reentrant_sharp_corners],
+        },
+        "seconds": {**a.seconds, **{f"torsion_{k}": v for k, v in tr.seconds.items()}},
+    }
+    for key, value in a.extra.items():
+        out[key] = value
+    return _clean(out)
+
+
+def _clean(v):
+    """JSON-safe: floats stay floats, NaN/inf become None, tuples lists."""
+    if isinstance(v, dict):
+        return {k: _clean(x) for k, x in v.items()}
+    if isinstance(v, (list, tuple)):
+        return [_clean(x) for x in v]
+    if isinstance(v, float):
+        return v if math.isfinite(v) else None
+    if hasattr(v, "item"):
+        return _clean(v.item())
+    return v

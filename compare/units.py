@@ -1,0 +1,144 @@
+"""Units at the edges: case-file values in, report values out. SI inside, always.
+
+A case declares one unit system (``units = "mm-N-MPa"`` or ``"in-lbf-psi"``); a plain number in the
+case takes that system's unit for its field's dimension, and a string carries its own unit
+(``"25 mm"``, ``"150 N*m"``, ``"900 lbf*in"``). Conversion goes through pint.
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from functools import lru_cache
+
+from fem.errors import InputError
+
+
+@lru_cache(maxsize=1)
+def ureg():
+    import pint  # noqa: PLC0415
+
+    return pint.UnitRegistry()
+
+
+#: Dimensions a case-file field can have, with their SI unit.
+SI = {
+    "length": "m",
+    "area": "m**2",
+    "second_moment": "m**4",
+    "force": "N",
+    "moment": "N*m",
+    "stress": "Pa",
+    "angle": "rad",
+    "twist": "rad/m",
+    "temperature": "degC",
+    "dimensionless": "",
+}
+
+
+@dataclass(frozen=True)
+class UnitSystem:
+    name: str
+    length: str
+    force: str
+    stress: str
+
+    def unit(self, dimension: str) -> str:
+        return {
+            "length": self.length,
+            "area": f"{self.length}**2",
+            "second_moment": f"{self.length}**4",
+            "force": self.force,
+            "moment": f"{self.force}*{self.length}",
+            "stress": self.stress,
+            "angle": "deg",
+            "twist": f"deg/{self.length}",
+            "temperature": "degC",
+            "dimensionless": "",
+        }[dimension]
+
+    def label(self, dimension: str) -> str:
+        return {
+            "length": self.length,
+            "area": f"{self.length}²",
+            "second_moment": f"{self.length}⁴",
+            "force": self.force,
+            "moment": f"{self.force}·{self.length}",
+            "stress": self.stress,
+            "angle": "°",
+            "twist": f"°/{self.length}",
+            "temperature": "°C",
+            "dimensionless": "",
+        }[dimension]
+
+
+SYSTEMS = {
+    "mm-N-MPa": UnitSystem("mm-N-MPa", "mm", "N", "MPa"),
+    "m-N-Pa": UnitSystem("m-N-Pa", "m", "N", "Pa"),
+    "in-lbf-psi": UnitSystem("in-lbf-psi", "inch", "lbf", "psi"),
+    "in-lbf-ksi": UnitSystem("in-lbf-ksi", "inch", "lbf", "ksi"),
+}
+
+
+def unit_system(name, field="case.units") -> UnitSystem | None:
+    if name is None:
+        return None
+    if name not in SYSTEMS:
+        raise InputError(field, name, f"unknown unit system; use one of {', '.join(SYSTEMS)}")
+    return SYSTEMS[name]
+
+
+def to_si(value, dimension: str, field: str, system: UnitSystem | None) -> float:
+    """A case-file value (number or 'number unit' string) as a float in SI for ``dimension``."""
+    if isinstance(value, bool) or value is None:
+        raise InputError(field, value, f"expected a {dimension.replace('_', ' ')}")
+    if isinstance(value, (int, float)):
+        if not math.isfinite(value):
+            raise InputError(field, value, "is not a finite number")
+        if dimension == "dimensionless":
+            return float(value)
+        if system is None:
+            raise InputError(field, value, "has no unit and the case declares no unit system (set case.units or write e.g. \"25 mm\")")
+        value = f"{value!r} {system.unit(dimension)}"
+        return _convert(value, dimension, field)
+    if isinstance(value, str):
+        text = value.strip()
+        if text.endswith("%") and dimension == "dimensionless":
+            try:
+                return float(text[:-1]) / 100.0
+            except ValueError:
+                raise InputError(field, value, "is not a percentage") from None
+        try:
+            float(text)
+        except ValueError:
+            return _convert(text, dimension, field)
+        if dimension == "dimensionless":
+            return float(text)
+        raise InputError(field, value, f"is missing its unit (write e.g. \"{text} {system.unit(dimension) if system else SI[dimension]}\")")
+    raise InputError(field, value, f"expected a number or a string with a unit, not {type(value).__name__}")
+
+
+def _convert(text: str, dimension: str, field: str) -> float:
+    u = ureg()
+    try:
+        q = u.Quantity(text)
+    except Exception:
+        raise InputError(field, text, "cannot be read as a quantity with a unit") from None
+    target = SI[dimension]
+    try:
+        if dimension == "temperature":
+            return float(q.to("degC").magnitude)
+        if dimension == "dimensionless":
+            return float(q.to("dimensionless").magnitude)
+        return float(q.to(target).magnitude)
+    except Exception:
+        raise InputError(field, text, f"is not a {dimension.replace('_', ' ')} (expected units like {target})") from None
+
+
+def from_si(value: float, dimension: str, system: UnitSystem) -> float:
+    """An SI float in the system's unit for ``dimension`` (for reports)."""
+    if dimension == "dimensionless":
+        return value
+    u = ureg()
+    if dimension == "temperature":
+        return value
+    return float(u.Quantity(value, SI[dimension]).to(system.unit(dimension)).magnitude)
