@@ -95,8 +95,11 @@ def mesh_section(section: Section, options: MeshOptions | None = None,
     try:
         gmsh.model.add("section")
         surfaces = section.build(gmsh)
-        L = section.length_scale
-        info = analyse_boundary(gmsh, surfaces, L)
+        info = analyse_boundary(gmsh, surfaces, section.length_scale)
+        # size from the hydraulic diameter 4A/P: the diameter for a round bar, about twice the
+        # wall for thin-walled sections, so thin walls get enough elements across
+        perimeter = sum(c.length for c in info.curves.values())
+        L = 4.0 * info.integrals["A"] / perimeter
         h = L / (options.across * options.fineness)
         _set_sizes(gmsh, info, options, h, size_field)
         gmsh.model.addPhysicalGroup(2, surfaces, name="section")

@@ -37,7 +37,7 @@ def centroidal(area, sx, sy, ixx0, iyy0, ixy0):
 def principal(Ixx, Iyy, Ixy):
     avg, rad = (Ixx + Iyy) / 2, math.hypot((Ixx - Iyy) / 2, Ixy)
     angle = 0.5 * math.degrees(math.atan2(-2 * Ixy, Ixx - Iyy))
-    if angle <= -90.0 + 1e-9:  # report the axis in (-90°, 90°]
+    if angle <= -90.0 + 1e-4:  # report the axis in (-90°, 90°]
         angle += 180.0
     return avg + rad, avg - rad, angle
 
