@@ -175,11 +175,11 @@ def _primitive(p, where: str, units):
     rot = _angle(q.get("rotation", 0.0), f"{name}.rotation")
     if kind == "disk":
         _known(q, {"center", "radius"}, name)
-        return Disk(point(q.get("center", [0, 0]), "center"), L("radius", _req(q, "radius", name)))
+        return Disk(point(q.get("center", [0, 0]), "center"), L("radius", _req(q, "radius", name)), label=name)
     if kind == "ellipse":
         _known(q, {"center", "semi_axes", "rotation"}, name)
         a = point(_req(q, "semi_axes", name), "semi_axes")
-        return Ellipse(point(q.get("center", [0, 0]), "center"), a, rot)
+        return Ellipse(point(q.get("center", [0, 0]), "center"), a, rot, label=name)
     if kind == "rectangle":
         _known(q, {"center", "size", "rotation", "fillet"}, name)
         size = point(_req(q, "size", name), "size")

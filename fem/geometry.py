@@ -34,6 +34,7 @@ def _rot(deg: float) -> np.ndarray:
 class Disk:
     center: tuple[float, float]
     radius: float
+    label: str = field(default="", compare=False)  # where it came from, for error messages
 
     def validate(self, name: str) -> None:
         _positive(f"{name}.radius", self.radius)
@@ -51,6 +52,7 @@ class Ellipse:
     center: tuple[float, float]
     semi_axes: tuple[float, float]
     rotation: float = 0.0  # degrees, counter-clockwise about the centre
+    label: str = field(default="", compare=False)
 
     def validate(self, name: str) -> None:
         _positive(f"{name}.semi_axes[0]", self.semi_axes[0])
@@ -77,6 +79,7 @@ class Polygon:
 
     points: tuple[tuple[float, float], ...]
     fillets: tuple[float, ...] = ()
+    label: str = field(default="", compare=False)
 
     def validate(self, name: str) -> None:
         pts = np.asarray(self.points, dtype=float)
@@ -110,8 +113,10 @@ class Polygon:
         return _build_filleted_polygon(occ, pts, radii)
 
 
-def rectangle(center, size, rotation=0.0, fillet=0.0, name="rectangle") -> Polygon:
-    """A rectangle as a :class:`Polygon`, corners optionally rounded with one radius."""
+def rectangle(center, size, rotation=0.0, fillet=0.0, name="") -> Polygon:
+    """A rectangle as a :class:`Polygon`, corners optionally rounded with one radius.
+    ``name`` is the field path used in error messages."""
+    label, name = name, name or "rectangle"
     w, h = size
     _positive(f"{name}.size[0]", w)
     _positive(f"{name}.size[1]", h)
@@ -121,20 +126,20 @@ def rectangle(center, size, rotation=0.0, fillet=0.0, name="rectangle") -> Polyg
         raise InputError(f"{name}.fillet", fillet, f"is larger than half the rectangle's smaller side ({min(w, h) / 2:g})")
     loc = np.array([[-w / 2, -h / 2], [w / 2, -h / 2], [w / 2, h / 2], [-w / 2, h / 2]])
     pts = (_rot(rotation) @ loc.T).T + np.asarray(center, float)
-    return Polygon(tuple(map(tuple, pts.tolist())), (fillet,) * 4 if fillet else ())
+    return Polygon(tuple(map(tuple, pts.tolist())), (fillet,) * 4 if fillet else (), label=label)
 
 
-def polygon(points, rotation=0.0, fillets=(), name="polygon") -> Polygon:
+def polygon(points, rotation=0.0, fillets=(), name="") -> Polygon:
     """A polygon, rotated ``rotation`` degrees about the mean of its points."""
     pts = np.asarray(points, dtype=float)
     if pts.ndim != 2 or pts.shape[1] != 2 or len(pts) < 3:
-        raise InputError(f"{name}.points", _short(points), "needs at least three [x, y] points")
+        raise InputError(f"{name or 'polygon'}.points", _short(points), "needs at least three [x, y] points")
     if rotation:
         c = pts.mean(axis=0)
         pts = (_rot(rotation) @ (pts - c).T).T + c
     if np.isscalar(fillets):
         fillets = (float(fillets),) * len(pts)
-    return Polygon(tuple(map(tuple, pts.tolist())), tuple(float(f) for f in fillets))
+    return Polygon(tuple(map(tuple, pts.tolist())), tuple(float(f) for f in fillets), label=name)
 
 
 # ----------------------------------------------------------------------------- section
@@ -263,7 +268,7 @@ def custom_section(add: Sequence[object], cut: Sequence[object] = ()) -> Section
     steps = [("add", p) for p in add] + [("cut", p) for p in cut]
     for n, (op, p) in enumerate(steps):
         idx = n if op == "add" else n - len(add)
-        p.validate(f"section.{op}[{idx}]")
+        p.validate(p.label or f"section.{op}[{idx}]")
     return Section(tuple(steps), kind="custom")
 
 
