@@ -71,7 +71,9 @@ def test_size_factor_values():
     # Example 6-4 (from memory): d = 32 mm -> 0.858 with the (d/7.62)^-0.107 form; the rounded
     # coefficient 1.24 of eq. 6-20 gives 0.856: abs 0.003 covers the two forms.
     assert fatigue.size_factor(32.0, "mm") == pytest.approx(0.858, abs=3e-3)
-    assert fatigue.size_factor(0.032, "m") == pytest.approx(fatigue.size_factor(32.0, "mm"))
+    # rel=1e-12: exact formula, round-off only
+    kb_mm = fatigue.size_factor(32.0, "mm")
+    assert fatigue.size_factor(0.032, "m") == pytest.approx(kb_mm, rel=1e-12)
 
 
 def test_size_factor_normalised_to_specimen():
@@ -106,9 +108,11 @@ def test_size_factor_axial_and_refusals():
     # Shigley 9th ed., eq. 6-21: axial loading kb = 1 (no size effect).
     assert fatigue.size_factor(3.0, "in", "axial") == 1.0
     # Outside 0.11-10 in / 2.79-254 mm eq. 6-20 gives nothing: refused, not extrapolated.
-    with pytest.raises(OutOfRangeError, match=r"^d = 12\.0: outside the valid range \[0\.11, 10\] in"):
+    with pytest.raises(OutOfRangeError,
+                       match=r"^d = 12\.0: outside the valid range \[0\.11, 10\] in"):
         fatigue.size_factor(12.0, "in")
-    with pytest.raises(OutOfRangeError, match=r"^d = 2\.0: outside the valid range \[2\.79, 254\] mm"):
+    with pytest.raises(OutOfRangeError,
+                       match=r"^d = 2\.0: outside the valid range \[2\.79, 254\] mm"):
         fatigue.size_factor(2.0, "mm")
     with pytest.raises(OutOfRangeError, match=r"^loading = 'shear': unknown"):
         fatigue.size_factor(1.0, "in", "shear")
@@ -170,7 +174,8 @@ def test_rotating_beam_endurance_eq_6_8():
     assert fatigue.rotating_beam_endurance(260.0, "kpsi") == 100.0
     assert fatigue.rotating_beam_endurance(1400.0) == 700.0
     assert fatigue.rotating_beam_endurance(1800.0) == 700.0
-    assert fatigue.rotating_beam_endurance(600e6, "Pa") == pytest.approx(300e6)
+    # rel=1e-12: exact formula, round-off only
+    assert fatigue.rotating_beam_endurance(600e6, "Pa") == pytest.approx(300e6, rel=1e-12)
     with pytest.raises(OutOfRangeError, match=r"^Sut = 0\.0: "):
         fatigue.rotating_beam_endurance(0.0)
 
@@ -217,7 +222,7 @@ def test_notch_sensitivity_limits():
     # q = 1/(1 + sqrt(a)/sqrt(r)) (Shigley 9th ed., Sec. 6-10): q -> 1 as r grows, q = 1 for
     # sqrt(a) = 0, and Kf = Kt at q = 1, Kf = 1 at q = 0 (eq. 6-32).
     assert fatigue.notch_sensitivity(0.1, 0.0) == 1.0
-    assert fatigue.fatigue_kf(2.14, 1.0) == pytest.approx(2.14)
+    assert fatigue.fatigue_kf(2.14, 1.0) == pytest.approx(2.14, rel=1e-12)  # exact; round-off
     assert fatigue.fatigue_kf(2.14, 0.0) == 1.0
     r = np.array([0.01, 0.04, 0.16])
     q = fatigue.notch_sensitivity(r, fatigue.neuber_sqrt_a_bending(100.0))
@@ -347,7 +352,8 @@ def test_stress_based_criteria_vectorised_for_fe_stresses():
     sm = np.array([[100e6, 0.0], [200e6, 60e6]])
     n = fatigue.goodman_factor(sa, sm, 200e6, 600e6)
     assert n.shape == (2, 2)
-    assert n[0, 1] == pytest.approx(2.5) and n[1, 0] == pytest.approx(3.0)
+    # rel=1e-12: exact formula, round-off only
+    assert n[0, 1] == pytest.approx(2.5, rel=1e-12) and n[1, 0] == pytest.approx(3.0, rel=1e-12)
 
 
 def test_criteria_refusals():

@@ -66,8 +66,9 @@ def test_exact_power_law_equal_ratio(p_true, C):
     s = gci.convergence_study([f1, f2, f3], r)
     assert s.extrapolated == pytest.approx(f0, rel=1e-12)
     # The exact error of f1 is |f1 - f0|; with Fs = 1 the GCI equals it (relative to f1).
-    assert gci.gci(f1, f2, r, p, Fs=1.0) * abs(f1) == pytest.approx(abs(f1 - f0), rel=1e-10) \
-        if False else True  # placeholder removed below
+    with pytest.warns(OutOfRangeWarning, match="Fs"):    # Fs < 1.25 warns, by design
+        g = gci.gci(f1, f2, r, p, Fs=1.0)
+    assert g * abs(f1) == pytest.approx(abs(f1 - f0), rel=1e-10)
     # asymptotic ratio of an exact sequence is f1/f2 (derived)
     assert s.asymptotic_ratio == pytest.approx(f1 / f2, rel=1e-10)
 

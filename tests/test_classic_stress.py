@@ -135,7 +135,9 @@ def test_principal_stresses_exact_cases():
     t = 37.0
     assert stress.principal_stresses(0, 0, 0, t, 0, 0) == pytest.approx((t, 0.0, -t), abs=1e-12)
     assert stress.principal_stresses(0, 0, 0, t, t, t) == pytest.approx((2 * t, -t, -t), rel=1e-12)
-    assert stress.principal_stresses(-5.0, 12.0, 3.0, 0, 0, 0) == pytest.approx((12.0, 3.0, -5.0))
+    # rel=1e-12: exact formula, round-off only
+    assert stress.principal_stresses(-5.0, 12.0, 3.0, 0, 0, 0) == \
+        pytest.approx((12.0, 3.0, -5.0), rel=1e-12)
 
 
 def test_principal_stresses_keep_the_invariants():
@@ -165,8 +167,8 @@ def test_shaft_mohr_matches_3d_principal_stresses_and_direction():
     m = stress.shaft_mohr(sig, tzx, tzy)
     s1, s2, s3 = stress.principal_stresses(0.0, 0.0, sig, 0.0, tzy, tzx)
     assert (m.s1, m.s2, m.s3) == pytest.approx((s1, s2, s3), abs=1e-10)
-    assert m.centre == pytest.approx(sig / 2)
-    assert m.radius == pytest.approx((m.s1 - m.s3) / 2)
+    assert m.centre == pytest.approx(sig / 2, rel=1e-12)  # exact; round-off
+    assert m.radius == pytest.approx((m.s1 - m.s3) / 2, rel=1e-12)  # exact; round-off
     tau = math.hypot(tzx, tzy)
     e = np.array([tzx / tau, tzy / tau, 0.0])          # shear direction in the section plane
     n = math.sin(m.angle) * e + math.cos(m.angle) * np.array([0.0, 0.0, 1.0])
@@ -180,8 +182,9 @@ def test_shaft_mohr_vectorised_and_compressive():
     assert m.s2.shape == (3,) and np.all(m.s2 == 0.0)
     assert np.all(m.s1 >= 0.0) and np.all(m.s3 <= 0.0)
     # pure shear (sigma = 0): s1 = tau, s3 = -tau, at 45 degrees (Shigley 9th ed., Sec. 3-6)
-    assert m.s1[1] == pytest.approx(20.0) and m.s3[1] == pytest.approx(-20.0)
-    assert m.angle[1] == pytest.approx(math.pi / 4)
+    # rel=1e-12: exact formula, round-off only
+    assert m.s1[1] == pytest.approx(20.0, rel=1e-12) and m.s3[1] == pytest.approx(-20.0, rel=1e-12)
+    assert m.angle[1] == pytest.approx(math.pi / 4, rel=1e-12)  # exact; round-off
 
 
 # --- equivalent stresses and factors of safety --------------------------------------------------
@@ -195,8 +198,9 @@ def test_von_mises_three_forms_agree_and_exact_cases():
     b = stress.von_mises_tensor(0.0, 0.0, sig, 0.0, 0.0, tau)
     c = stress.von_mises_sigma_tau(sig, tau)
     assert a == pytest.approx(c, rel=1e-12) and b == pytest.approx(c, rel=1e-12)
-    assert stress.von_mises(250.0, 0.0, 0.0) == pytest.approx(250.0)
-    assert stress.von_mises_sigma_tau(0.0, 10.0) == pytest.approx(10.0 * math.sqrt(3))
+    assert stress.von_mises(250.0, 0.0, 0.0) == pytest.approx(250.0, rel=1e-12)  # exact; round-off
+    # rel=1e-12: exact formula, round-off only
+    assert stress.von_mises_sigma_tau(0.0, 10.0) == pytest.approx(10.0 * math.sqrt(3), rel=1e-12)
 
 
 def test_yield_factors_example_5_1():
@@ -211,7 +215,7 @@ def test_yield_factors_example_5_1():
     s1, s2, s3 = stress.principal_stresses(30.0, 70.0, 0.0, -30.0, 0.0, 0.0)
     assert round(stress.yield_factor_von_mises(100.0, vm), 2) == 1.25
     assert round(stress.yield_factor_tresca(100.0, s1, s3), 2) == 1.16
-    assert stress.tresca(s1, s2, s3) == pytest.approx(s1 - s3)
+    assert stress.tresca(s1, s2, s3) == pytest.approx(s1 - s3, rel=1e-12)  # exact; round-off
 
 
 def test_tresca_pure_shear_ratio_to_von_mises():
@@ -225,8 +229,11 @@ def test_coulomb_mohr_limits():
     # Shigley 9th ed., eqs. 5-31a..c (numbering from memory): uniaxial tension -> Sut/s,
     # uniaxial compression -> Suc/|s|, pure shear -> torsional strength Sut*Suc/(Sut+Suc).
     Sut, Suc = 31.0, 109.0   # ASTM grade 30 cast iron, Shigley 9th ed. Table A-24 (from memory)
-    assert stress.coulomb_mohr_factor(10.0, 0.0, Sut, Suc) == pytest.approx(3.1)
-    assert stress.coulomb_mohr_factor(0.0, -50.0, Sut, Suc) == pytest.approx(109.0 / 50.0)
+    # rel=1e-12: exact formula, round-off only
+    assert stress.coulomb_mohr_factor(10.0, 0.0, Sut, Suc) == pytest.approx(3.1, rel=1e-12)
+    # rel=1e-12: exact formula, round-off only
+    assert stress.coulomb_mohr_factor(0.0, -50.0, Sut, Suc) == \
+        pytest.approx(109.0 / 50.0, rel=1e-12)
     tau = 12.0
     assert stress.coulomb_mohr_factor(tau, -tau, Sut, Suc) == \
         pytest.approx(Sut * Suc / (Sut + Suc) / tau, rel=1e-12)
@@ -238,7 +245,9 @@ def test_modified_mohr_limits_and_continuity():
     # torsional strength is Sut; the branches meet at s3 = -s1; it is never more conservative than
     # brittle Coulomb-Mohr (Shigley 9th ed., Fig. 5-23, from memory).
     Sut, Suc = 31.0, 109.0
-    assert stress.modified_mohr_factor(12.0, -12.0, Sut, Suc) == pytest.approx(Sut / 12.0)
+    # rel=1e-12: exact formula, round-off only
+    assert stress.modified_mohr_factor(12.0, -12.0, Sut, Suc) == \
+        pytest.approx(Sut / 12.0, rel=1e-12)
     below = stress.modified_mohr_factor(12.0, -12.0 * (1 + 1e-9), Sut, Suc)
     assert below == pytest.approx(Sut / 12.0, rel=1e-8)
     s1 = np.linspace(0.0, 30.0, 31)
@@ -247,7 +256,9 @@ def test_modified_mohr_limits_and_continuity():
     cm = stress.coulomb_mohr_factor(s1, s3, Sut, Suc)
     assert mm.shape == (31,)
     assert np.all(mm[1:] >= cm[1:] * (1 - 1e-12))
-    assert stress.modified_mohr_factor(0.0, -50.0, Sut, Suc) == pytest.approx(109.0 / 50.0)
+    # rel=1e-12: exact formula, round-off only
+    assert stress.modified_mohr_factor(0.0, -50.0, Sut, Suc) == \
+        pytest.approx(109.0 / 50.0, rel=1e-12)
 
 
 def test_factor_refusals():
@@ -270,4 +281,4 @@ def test_vectorised_equals_scalar():
     with warnings.catch_warnings():
         warnings.simplefilter("error")
         n = stress.yield_factor_von_mises(100.0, np.array([0.0, 50.0]))
-    assert n[0] == math.inf and n[1] == pytest.approx(2.0)
+    assert n[0] == math.inf and n[1] == pytest.approx(2.0, rel=1e-12)  # exact; round-off
