@@ -228,6 +228,24 @@ def _to_skfem(gmsh, info: BoundaryInfo):
 
 
 
+def boundary_mapping(mesh):
+    """The mesh's isoparametric mapping, with an inverse that tolerates round-off.
+
+    scikit-fem places facet points in their element by a Newton iteration on the reference
+    coordinates with an absolute tolerance of 1e-12 summed over the points; on the small elements
+    of a fine fillet far from the origin, round-off alone exceeds that. 1e-10 in reference
+    coordinates is still far below anything that shows in a result."""
+    from skfem.mapping import MappingIsoparametric
+
+    class _Tolerant(MappingIsoparametric):
+        def invF(self, x, tind=None, newton_max_iters=50, newton_tol=1e-10):
+            return super().invF(x, tind=tind, newton_max_iters=newton_max_iters, newton_tol=newton_tol)
+
+    if not hasattr(mesh, "_tolerant_mapping"):
+        object.__setattr__(mesh, "_tolerant_mapping", _Tolerant(mesh, mesh.elem(), mesh.bndelem))
+    return mesh._tolerant_mapping
+
+
 def _boundary_basis(mesh, facets, points):
     from skfem import ElementTriP2, FacetBasis
 
@@ -235,7 +253,7 @@ def _boundary_basis(mesh, facets, points):
         q = (BOUNDARY_GAUSS[0][None, :], BOUNDARY_GAUSS[1])
     else:
         q = (BOUNDARY_POINTS[None, :], np.full(len(BOUNDARY_POINTS), 1.0 / len(BOUNDARY_POINTS)))
-    return FacetBasis(mesh, ElementTriP2(), facets=facets, quadrature=q)
+    return FacetBasis(mesh, ElementTriP2(), facets=facets, quadrature=q, mapping=boundary_mapping(mesh))
 
 
 def _boundary_offsets(gmsh, mesh, facet_curve):

@@ -24,7 +24,7 @@ from skfem import Basis, ElementTriP2, FacetBasis, Functional, condense
 
 from . import forms
 from .linalg import solve_spd
-from .mesh import SectionMesh
+from .mesh import SectionMesh, boundary_mapping
 
 
 @dataclass
@@ -91,7 +91,8 @@ def hole_areas(sm: SectionMesh) -> list[float]:
     """Area each meshed hole encloses: −∮ x nₓ ds over its boundary (n points out of the section)."""
     out = []
     for name in sm.hole_names:
-        fb = FacetBasis(sm.mesh, ElementTriP2(), facets=sm.mesh.boundaries[name], intorder=6)
+        fb = FacetBasis(sm.mesh, ElementTriP2(), facets=sm.mesh.boundaries[name], intorder=6,
+                        mapping=boundary_mapping(sm.mesh))
         out.append(-float(_x_normal.assemble(fb)))
     return out
 
