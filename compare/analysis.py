@@ -63,7 +63,7 @@ class Analysis:
     @property
     def kts(self) -> float | None:
         nom = self.nominal_shear()
-        if nom is None:
+        if nom is None or self.torsion.singular_corners:
             return None
         T = abs(self.torque) or 1.0
         return T * self.torsion.peak_per_torque / nom[0]
@@ -127,7 +127,11 @@ def torsion_pairs(a: Analysis) -> list[Pair]:
         out.append(not_applicable("torsion constant J", tr.J, "no published closed form for this section", "second_moment"))
     nom = a.nominal_shear()
     T = abs(a.torque) or 1.0
-    if nom is not None:
+    if nom is not None and tr.singular_corners:
+        out.append(not_applicable("Kts = τmax,FE / τnominal", None,
+                                  "the section has sharp re-entrant corners, where the stress is unbounded: no Kts exists "
+                                  "until the real fillet radius is modelled", "stress"))
+    elif nom is not None:
         kind = "check" if s.kind == "round" else "factor"
         tol = TOL_PEAK if kind == "check" else (None, "")
         out.append(Pair("Kts = τmax,FE / τnominal", T * tr.peak_per_torque, nom[0], f"nominal {nom[1]}: {nom[2]}",
@@ -150,7 +154,7 @@ def locate(sm: SectionMesh, at) -> dict:
     ox, oy = s.origin
     loc = dict(at=[float(x), float(y)], angle_deg=math.degrees(math.atan2(y - oy, x - ox)) % 360.0,
                distance_from_axis=math.hypot(x - ox, y - oy), boundary=None, feature=None, radius=None, keyway=None)
-    X = sm.boundary_basis().global_coordinates().value
+    X = np.asarray(sm.boundary_basis().global_coordinates())
     d = np.hypot(X[0] - x, X[1] - y)
     i = int(np.argmin(np.min(d, axis=1)))
     curve = sm.curve_of(int(sm.boundary_facets[i]))

@@ -75,7 +75,12 @@ def summary(res: dict, system: UnitSystem | None) -> str:
         f"  τmax at           {f.point(t['tau_max_at'])}: {f.where(t['tau_max_where'])}",
         f"  twist θ = T/(GJ)  {f.q(t['twist_per_length'], 'twist')}",
     ]
-    if "kts" in t:
+    if t.get("singular_corners"):
+        pts = ", ".join(f.point(p) for p in t["singular_corners"])
+        lines.append(f"  WARNING: {len(t['singular_corners'])} sharp re-entrant corner(s) at {pts}: the stress there is "
+                     "unbounded in theory and any number is the mesh's, so none is given; τmax above is the peak "
+                     "elsewhere. Model the real fillet radius.")
+    if t.get("kts") is not None:
         lines.append(f"  Kts               {t['kts']:.4f}   (nominal {t['kts_nominal']['formula']})")
     lines += ["", "FE against the hand formulas"]
     for p in res["compare"]:

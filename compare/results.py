@@ -36,12 +36,14 @@ def build_results(a: Analysis) -> dict:
         "twist_per_length": T / (G * tr.J),
         "torsional_stiffness_GJ": G * tr.J,
         "section_modulus": tr.J / (tr.J * tr.peak_per_torque) if tr.peak_per_torque else None,
+        "singular_corners": [list(p) for p in tr.singular_corners],
+        "tau_max_excludes_singular_corners": bool(tr.singular_corners),
         "hole_constants": tr.hole_constants,
         "hole_areas": tr.hole_areas,
         "dofs": tr.dofs,
     }
     if nom is not None:
-        torsion["kts"] = a.kts
+        torsion["kts"] = a.kts  # None where sharp re-entrant corners make the peak unbounded
         torsion["kts_nominal"] = {"tau_nominal": nom[0] if T else None,
                                   "tau_nominal_per_torque": nom[0] / (abs(T) or 1.0),
                                   "formula": nom[1], "source": nom[2]}

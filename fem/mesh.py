@@ -261,8 +261,8 @@ def _boundary_offsets(gmsh, mesh, facet_curve):
 
     facets = mesh.boundary_facets()
     fb = _boundary_basis(mesh, facets, "gauss")
-    X = fb.global_coordinates().value  # (2, nf, np)
-    n = fb.normals.value
+    X = np.asarray(fb.global_coordinates())  # (2, nf, np)
+    n = np.asarray(fb.normals)
     offset = np.zeros(X.shape[1:])
     curve_of = np.array([facet_curve[int(f)] for f in facets])
     for ctag in np.unique(curve_of):

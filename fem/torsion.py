@@ -54,6 +54,8 @@ class TorsionResult:
     omega: np.ndarray = field(repr=False)
     basis: Basis = field(repr=False)
     seconds: dict = field(default_factory=dict)
+    singular_corners: list = field(default_factory=list)  # sharp re-entrant corners: unbounded stress there
+    peak_at_corner_per_torque: float | None = None  # the mesh-dependent value at those corners (not a result)
 
     def stress(self, T: float, x: np.ndarray | None = None):
         """(τzx, τzy) at the basis quadrature points for torque T [Pa] (``x`` unused: reserved)."""
@@ -102,7 +104,7 @@ def boundary_gradients(sm: SectionMesh, u: np.ndarray, points: str = "sample"):
     at the peak-sampling or the Gauss points (see :meth:`SectionMesh.boundary_basis`).
     Arrays of shape (2, nf, np), (2, nf, np) and (nf, np)."""
     fb = sm.boundary_basis(points)
-    return fb.global_coordinates().value, fb.interpolate(u).grad, fb.dx
+    return np.asarray(fb.global_coordinates()), fb.interpolate(u).grad, fb.dx
 
 
 def boundary_correction(sm: SectionMesh, tau_sq: np.ndarray, ds: np.ndarray) -> float:
@@ -112,7 +114,25 @@ def boundary_correction(sm: SectionMesh, tau_sq: np.ndarray, ds: np.ndarray) -> 
     return -float(np.sum(tau_sq * sm.boundary_offset * ds))
 
 
-def boundary_peak(sm: SectionMesh, x: np.ndarray, mag: np.ndarray, facets: np.ndarray) -> BoundaryPeak:
+#: Radius, as a fraction of the section's size, around a sharp re-entrant corner inside which boundary
+#: stresses are not used for the peak: there the exact stress is unbounded and the FE value depends
+#: only on the mesh.
+SINGULAR_RADIUS = 0.02
+
+
+def singular_mask(sm: SectionMesh, x: np.ndarray) -> np.ndarray:
+    """True at boundary points within :data:`SINGULAR_RADIUS` of a sharp re-entrant corner."""
+    mask = np.zeros(x.shape[1:], dtype=bool)
+    rho = SINGULAR_RADIUS * sm.section.length_scale
+    for c in sm.boundary.reentrant_sharp_corners:
+        mask |= np.hypot(x[0] - c.point[0], x[1] - c.point[1]) < rho
+    return mask
+
+
+def boundary_peak(sm: SectionMesh, x: np.ndarray, mag: np.ndarray, facets: np.ndarray,
+                  exclude: np.ndarray | None = None) -> BoundaryPeak:
+    if exclude is not None and exclude.any() and not exclude.all():
+        mag = np.where(exclude, -np.inf, mag)
     i, j = np.unravel_index(int(np.argmax(mag)), mag.shape)
     f = int(facets[i])
     curve = sm.facet_curve.get(f)
@@ -168,13 +188,18 @@ def solve_torsion(sm: SectionMesh, centroid: tuple[float, float]) -> TorsionResu
     tw = warping_stress(x, gw)
     J_mesh, J_w_mesh = J, J_w
     J, J_w = J_mesh + dJ, J_w_mesh + dJw
-    peak = boundary_peak(sm, x, np.hypot(gphi[0], gphi[1]) / J, facets)
-    peak_w = boundary_peak(sm, x, np.hypot(*tw) / J_w, facets)
+    near = singular_mask(sm, x)
+    mag = np.hypot(gphi[0], gphi[1]) / J
+    peak = boundary_peak(sm, x, mag, facets, exclude=near)
+    peak_w = boundary_peak(sm, x, np.hypot(*tw) / J_w, facets, exclude=near)
+    corner_value = float(np.max(mag[near])) if near.any() else None
     t4 = time.perf_counter()
     return TorsionResult(
         J=J, J_warping=J_w, J_mesh=J_mesh, J_warping_mesh=J_w_mesh, hole_constants=consts, hole_areas=areas,
         peak_per_torque=peak.value, peak_at=peak.at, peak=peak,
         peak_warping_per_torque=peak_w.value, peak_warping_at=peak_w.at,
         dofs=int(basis.N), phi=phi, omega=omega, basis=basis,
+        singular_corners=[c.point for c in sm.boundary.reentrant_sharp_corners],
+        peak_at_corner_per_torque=corner_value,
         seconds=dict(assemble=t1 - t0, solve_stress_function=t2 - t1, solve_warping=t3 - t2, boundary=t4 - t3),
     )

@@ -147,8 +147,23 @@ def test_missing_case_file_and_usage_errors(tmp_path, run_cli):
     assert code == 2 and err.count("\n") == 1
 
 
-@pytest.mark.parametrize("name", ["conveyor_gear_seat.toml", "pump_coupling_inch.toml"])
+@pytest.mark.parametrize("name", ["conveyor_gear_seat.toml", "pump_coupling_inch.toml", "custom_slotted_shaft.toml"])
 def test_demo_cases_run(tmp_path, run_cli, name):
     code, out, err = run_cli("run", str(ROOT / "cases" / name), "--out", str(tmp_path / "o"), "--no-vtu")
     assert code == 0, err
-    assert "Kts" in out
+    assert "τmax" in out
+
+
+def test_sharp_keyway_corners_are_reported_as_singular(tmp_path, run_cli):
+    # A sharp re-entrant corner (interior angle 270°) has an unbounded stress (Williams' corner
+    # solution; Timoshenko & Goodier discuss the re-entrant corner in torsion): no Kts is given.
+    text = MM.replace("fillet = 0.396875\n", "")
+    case = write(tmp_path, "sharp.toml", text)
+    code, out, err = run_cli("run", str(case), "--out", str(tmp_path / "o"), "--no-vtu")
+    assert code == 0, err
+    res = json.loads((tmp_path / "o" / "results.json").read_text())
+    assert len(res["torsion"]["singular_corners"]) == 2
+    assert res["torsion"]["kts"] is None
+    assert "sharp re-entrant corner" in out
+    kts = [p for p in res["compare"] if p["quantity"].startswith("Kts")]
+    assert kts[0]["kind"] == "not applicable" and kts[0]["ratio"] is None
