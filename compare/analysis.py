@@ -38,6 +38,8 @@ class Analysis:
     pairs: list[Pair]
     seconds: dict
     extra: dict = field(default_factory=dict)  # results of later steps, by key
+    shear: object = None  # fem.shear.ShearResult when Poisson's ratio is known
+    shear_peak: object = None  # fem.shear.ShearPeak when shear forces are given
 
     # ------------------------------------------------------------------ derived torsion values
     @property
@@ -92,6 +94,11 @@ def analyse(case: Case, fineness: float | None = None) -> Analysis:
     t3 = time.perf_counter()
     a = Analysis(case, sm, props, tors, [], dict(mesh=t1 - t0, properties=t2 - t1, torsion=t3 - t2))
     a.pairs = torsion_pairs(a)
+    from .shear_step import shear_step  # noqa: PLC0415
+
+    t4 = time.perf_counter()
+    shear_step(a)
+    a.seconds["shear"] = time.perf_counter() - t4
     return a
 
 

@@ -35,9 +35,12 @@ class Pair:
 
     @property
     def within(self) -> bool | None:
-        if self.kind != "check" or self.tolerance is None or self.ratio is None:
+        """Inside the accepted tolerance: relative to the classic value, or absolute where that is 0."""
+        if self.kind != "check" or self.tolerance is None or self.fe is None or self.classic is None:
             return None
-        return abs(self.ratio - 1.0) <= self.tolerance
+        if self.classic == 0:
+            return abs(self.fe) <= self.tolerance
+        return abs(self.fe / self.classic - 1.0) <= self.tolerance
 
     def to_dict(self) -> dict:
         d = asdict(self)

@@ -94,8 +94,30 @@ def summary(res: dict, system: UnitSystem | None) -> str:
         dim = p["dimension"]
         lines.append(f"  {p['quantity']}: FE {f.q(p['fe'], dim)}, hand {f.q(p['classic'], dim)}, ratio {ratio}{flag}")
         lines.append(f"      source: {p['source']}" + (f"; {p['note']}" if p["note"] else ""))
-    for key in ("shear", "combined", "static", "fatigue", "accuracy"):
+    if "shear" in res:
+        lines += ["", *shear_lines(res["shear"], f)]
+    for key in ("combined", "static", "fatigue", "accuracy"):
         if key in res and isinstance(res[key], dict) and res[key].get("summary"):
             lines += ["", *res[key]["summary"]]
     lines += ["", "Caution: " + CAUTION]
     return "\n".join(lines)
+
+
+def shear_lines(sh: dict, f: Fmt) -> list[str]:
+    if "skipped" in sh:
+        return ["Transverse shear", f"  not computed: {sh['skipped']}"]
+    out = ["Transverse shear (Saint-Venant flexure, ν = %g)" % sh["poisson"],
+           f"  shear centre      {f.point(sh['centre'])}  (offset from the centroid {f.point(sh['centre_offset_from_centroid'])})",
+           f"  κx, κy, κxy       {sh['kappa_x']:.5f}, {sh['kappa_y']:.5f}, {sh['kappa_xy']:.3g}   (energy definition)",
+           f"  shear areas       κx·A {f.q(sh['shear_area_x'], 'area')}, κy·A {f.q(sh['shear_area_y'], 'area')}"]
+    if "tau_max" in sh:
+        where = f.where(sh["tau_max_where"]) if sh["tau_max_on_boundary"] else "inside the section"
+        out += [f"  shear force V     ({f.q(sh['force'][0], 'force')}, {f.q(sh['force'][1], 'force')}) through the shear centre",
+                f"  τmax              {f.q(sh['tau_max'], 'stress')} at {f.point(sh['tau_max_at'])}: {where}",
+                f"  through the shaft axis instead, V also applies a torque of {f.q(sh['torque_from_axis_offset'], 'moment')}"]
+    r = sh["residuals"]
+    res_txt = f"resultant {max(abs(v) for v in r['resultant_Vx'] + r['resultant_Vy']):.1e}"
+    if "normal_traction" in r:
+        res_txt += f", moment about the centre {abs(r['moment_about_centre']):.1e}, |τ·n| on the boundary {r['normal_traction']:.1e} of τmax"
+    out.append(f"  residuals         {res_txt}")
+    return out

@@ -101,7 +101,7 @@ def shear_load_x(v, w):
     nu, Ixx, Ixy = w.nu, w.Ixx, w.Ixy
     d0 = nu * (Ixx * (x**2 - y**2) / 2 - Ixy * x * y)
     d1 = nu * (Ixx * x * y + Ixy * (x**2 - y**2) / 2)
-    div_d = nu * (Ixx * x - Ixy * y + Ixx * x - Ixy * y)
+    div_d = nu * (2 * Ixx * x - 2 * Ixy * y)
     src = 2.0 * (Ixy * y - Ixx * x)
     gv = grad(v)
     return -src * v + d0 * gv[0] + d1 * gv[1] + div_d * v
@@ -115,7 +115,7 @@ def shear_load_y(v, w):
     nu, Iyy, Ixy = w.nu, w.Iyy, w.Ixy
     h0 = nu * (Iyy * x * y - Ixy * (x**2 - y**2) / 2)
     h1 = nu * (-Ixy * x * y - Iyy * (x**2 - y**2) / 2)
-    div_h = nu * (Iyy * y - Ixy * x - Ixy * x - Iyy * y)
+    div_h = nu * (2 * Iyy * y - 2 * Ixy * x)
     src = 2.0 * (Ixy * x - Iyy * y)
     gv = grad(v)
     return -src * v + h0 * gv[0] + h1 * gv[1] + div_h * v
