@@ -79,8 +79,8 @@ class Case:
     path: Path | None = None
 
 
-_TOP = {"case", "section", "loads", "material", "analysis"}
-_CASE = {"title", "units", "description"}
+_TOP = {"case", "section", "loads", "material", "analysis", "expected"}
+_CASE = {"title", "units", "description", "source"}
 _LOAD_SCALARS = {"torque": "moment", "axial": "force"}
 _LOAD_VECTORS = {"bending": "moment", "shear": "force"}
 _MATERIAL = {
