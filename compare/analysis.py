@@ -12,9 +12,9 @@ from dataclasses import dataclass, field
 from classic import properties as cp
 from classic import torsion as ct
 from fem.errors import InputError
-from fem.mesh import MeshOptions, SectionMesh, mesh_section
-from fem.properties import SectionProperties, section_properties
-from fem.torsion import TorsionResult, solve_torsion
+from fem.mesh import SectionMesh
+from fem.properties import SectionProperties
+from fem.torsion import TorsionResult
 
 from .case import Case
 from .counterparts import recognise
@@ -40,6 +40,7 @@ class Analysis:
     extra: dict = field(default_factory=dict)  # results of later steps, by key
     shear: object = None  # fem.shear.ShearResult when Poisson's ratio is known
     shear_peak: object = None  # fem.shear.ShearPeak when shear forces are given
+    study: object = None  # compare.accuracy.Study: the meshes of the convergence study
 
     # ------------------------------------------------------------------ derived torsion values
     @property
@@ -79,26 +80,37 @@ class Analysis:
         return build_results(self)
 
 
-def analyse(case: Case, fineness: float | None = None) -> Analysis:
+def analyse(case: Case, fineness: float | None = None, study: bool = True) -> Analysis:
+    """Solve the case. With ``study`` (the default, and what the command line does), refine to the
+    case's accuracy target and run the convergence study; the results come from the finest mesh."""
     m = case.material
     if m.shear_modulus is None:
         raise InputError("material.shear_modulus", None,
                          "is required (or give elastic_modulus and poisson)")
+    if case.loads.shear is not None and m.poisson is None:
+        raise InputError("material.poisson", None, "is required for transverse shear (loads.shear is given)")
+    from .accuracy import refine_to_accuracy, solve_on  # noqa: PLC0415
+
     t0 = time.perf_counter()
-    opts = MeshOptions(fineness=fineness if fineness is not None else case.analysis.fineness)
-    sm = mesh_section(case.section, opts)
+    if study:
+        st = refine_to_accuracy(case, case.analysis.accuracy, case.analysis.max_dofs, fineness)
+        sol = st.solutions[-1]
+    else:
+        st = None
+        sol = solve_on(case, fineness if fineness is not None else case.analysis.fineness, warping=True)
     t1 = time.perf_counter()
-    props = section_properties(sm)
-    t2 = time.perf_counter()
-    tors = solve_torsion(sm, props.centroid)
-    t3 = time.perf_counter()
-    a = Analysis(case, sm, props, tors, [], dict(mesh=t1 - t0, properties=t2 - t1, torsion=t3 - t2))
+    a = Analysis(case, sol.mesh, sol.props, sol.torsion, [], dict(solve=t1 - t0, final_mesh=sol.seconds))
+    a.shear, a.shear_peak = sol.shear, sol.shear_peak
+    a.study = st
     a.pairs = torsion_pairs(a)
     from .shear_step import shear_step  # noqa: PLC0415
 
-    t4 = time.perf_counter()
     shear_step(a)
-    a.seconds["shear"] = time.perf_counter() - t4
+    if st is not None:
+        from .accuracy_step import accuracy_step  # noqa: PLC0415
+
+        accuracy_step(a)
+    a.seconds["total"] = time.perf_counter() - t0
     return a
 
 

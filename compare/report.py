@@ -96,9 +96,8 @@ def summary(res: dict, system: UnitSystem | None) -> str:
         lines.append(f"      source: {p['source']}" + (f"; {p['note']}" if p["note"] else ""))
     if "shear" in res:
         lines += ["", *shear_lines(res["shear"], f)]
-    for key in ("combined", "static", "fatigue", "accuracy"):
-        if key in res and isinstance(res[key], dict) and res[key].get("summary"):
-            lines += ["", *res[key]["summary"]]
+    if "accuracy" in res:
+        lines += ["", *accuracy_lines(res)]
     lines += ["", "Caution: " + CAUTION]
     return "\n".join(lines)
 
@@ -120,4 +119,29 @@ def shear_lines(sh: dict, f: Fmt) -> list[str]:
     if "normal_traction" in r:
         res_txt += f", moment about the centre {abs(r['moment_about_centre']):.1e}, |τ·n| on the boundary {r['normal_traction']:.1e} of τmax"
     out.append(f"  residuals         {res_txt}")
+    return out
+
+
+LABELS = {"J": "J", "tau_max": "torsion τmax", "shear_tau_max": "shear τmax", "shear_centre_x": "shear centre x",
+          "shear_centre_y": "shear centre y", "kappa_x": "κx", "kappa_y": "κy", "tau_max_corner": "τ at sharp corners"}
+
+
+def accuracy_lines(res: dict) -> list[str]:
+    acc, conv = res["accuracy"], res.get("convergence", {})
+    head = "MET" if acc["met"] else "NOT MET"
+    ach = f"{100 * acc['achieved']:.3g} %" if acc["achieved"] is not None else "unknown"
+    out = [f"Accuracy: target {100 * acc['target']:.3g} % — {head} (largest GCI {ach}, {acc['governing_quantity']})",
+           f"  meshes of the study: {', '.join(str(d) for d in acc['meshes'])} DOFs (ratio {acc['refinement_ratio']}), "
+           f"{acc['adaptive_steps']} adaptive step(s) before it"]
+    if acc.get("limited_by"):
+        out.append(f"  refinement stopped: {acc['limited_by']}; the results above carry the error shown, not the target")
+    for key, v in conv.items():
+        gci = f"{100 * v['gci']:.2g} %" if v["gci"] is not None else "—"
+        p = f"{v['observed_order']:.2f}" if v["observed_order"] is not None else "—"
+        rel = " of √A" if v.get("relative_to", "").startswith("section") else ""
+        asym = "" if v.get("asymptotic") else ", not in the asymptotic range"
+        if key == "tau_max_corner":
+            out.append(f"  {LABELS[key]:<16} {v['status']}: no value is given")
+            continue
+        out.append(f"  {LABELS.get(key, key):<16} GCI {gci}{rel}, observed order {p} ({v['status']}{asym})")
     return out

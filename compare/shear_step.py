@@ -34,7 +34,7 @@ def shear_step(a) -> None:
             raise InputError("material.poisson", None, "is required for transverse shear (loads.shear is given)")
         a.extra["shear"] = {"skipped": "material.poisson is not given: transverse shear needs Poisson's ratio"}
         return
-    sr = solve_shear(a.mesh, a.props, nu)
+    sr = a.shear if a.shear is not None else solve_shear(a.mesh, a.props, nu)
     a.shear = sr
     L = math.sqrt(a.props.area)
     out = {
@@ -54,7 +54,7 @@ def shear_step(a) -> None:
     out["axis"] = [ox, oy]
     if V is not None:
         Vx, Vy = V
-        pk = shear_peak(a.mesh, sr, Vx, Vy)
+        pk = a.shear_peak if a.shear_peak is not None else shear_peak(a.mesh, sr, Vx, Vy)
         out.update({
             "force": [Vx, Vy],
             "tau_max": pk.value,

@@ -34,7 +34,7 @@ class MeshOptions:
     """Mesh sizing. ``fineness`` scales every size at once (2 = twice as fine everywhere)."""
 
     fineness: float = DEFAULT_FINENESS
-    across: float = 14.0  # elements across the characteristic size at fineness 1
+    across: float = 20.0  # elements across the characteristic size at fineness 1
     per_circle: float = 40.0  # elements per full turn of a curved boundary (fillets, arcs)
     corner_ratio: float = 1.0 / 25.0  # size at a sharp re-entrant corner relative to the global size
     grading: float = 0.25  # growth of the element size per unit distance away from a feature

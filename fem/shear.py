@@ -26,7 +26,7 @@ from .linalg import solve_spd
 from .mesh import SectionMesh
 from .properties import SectionProperties
 
-# Reference P2 nodes and the centroid of the triangle: where the field is read inside the section.
+# Reference P2 nodes and the centroid of the triangle: where a field is read inside the section.
 _NODES = np.array([[0.0, 1.0, 0.0, 0.5, 0.5, 0.0, 1 / 3], [0.0, 0.0, 1.0, 0.0, 0.5, 0.5, 1 / 3]])
 
 
@@ -151,15 +151,38 @@ class ShearPeak:
     moment_residual: float  # moment about the shear centre / (|V| · size)
 
 
+def _lattice(n: int = 8) -> np.ndarray:
+    """Reference-triangle points of an n-division lattice, vertices and edges included."""
+    pts = [(i / n, j / n) for i in range(n + 1) for j in range(n + 1 - i)]
+    return np.array(pts).T
+
+
 def shear_peak(sm: SectionMesh, sr: ShearResult, Vx: float, Vy: float) -> ShearPeak:
-    """Largest |τ| for (Vx, Vy): at every element's nodes and centroid, and along the boundary."""
+    """Largest |τ| for (Vx, Vy), inside or on the boundary.
+
+    Inside, the stress is the recovered (nodally averaged, continuous) field: its largest nodal value
+    is found first, then the maximum is sought on a fine lattice over the elements around that node
+    (the maximum of a smooth field lies between nodes). On the boundary, the owning element's stress
+    is read densely along every facet."""
+    from .estimate import recovered_gradient  # noqa: PLC0415
+    from .mesh import _boundary_basis  # noqa: PLC0415
+
     xc, yc = sr.centroid
     cm = sr.basis.mesh
-    inner = CellBasis(cm, ElementTriP2(), quadrature=(_NODES, np.full(_NODES.shape[1], 1.0 / _NODES.shape[1])))
-    (ax, ay), (bx, by) = sr.unit_stresses_at(inner)
+    Gp, Gf = recovered_gradient(sr.basis, sr.psi), recovered_gradient(sr.basis, sr.phi)
+    xn = sr.basis.doflocs
+    (ax, ay), (bx, by) = sr._unit_fields(Gp, Gf, xn)
+    tn = np.hypot(Vx * ax + Vy * bx, Vx * ay + Vy * by)
+    k = int(np.argmax(tn))
+    elems = np.flatnonzero((sr.basis.element_dofs == k).any(axis=0))
+    lat = _lattice()
+    local = CellBasis(cm, ElementTriP2(), elements=elems, quadrature=(lat, np.full(lat.shape[1], 1.0 / lat.shape[1])))
+    gp = np.array([np.asarray(local.interpolate(Gp[i])) for i in range(2)])
+    gf = np.array([np.asarray(local.interpolate(Gf[i])) for i in range(2)])
+    xl = np.asarray(local.global_coordinates())
+    (ax, ay), (bx, by) = sr._unit_fields(gp, gf, xl)
     ti = np.hypot(Vx * ax + Vy * bx, Vx * ay + Vy * by)
-    xi = np.asarray(inner.global_coordinates())
-    from .mesh import _boundary_basis  # noqa: PLC0415
+    xi = xl
 
     fb = _boundary_basis(cm, sm.boundary_facets, "sample")
     (cx, cy), (dx, dy) = sr.unit_stresses_at(fb)

@@ -16,6 +16,7 @@ isoparametric map), where they live, not at interior quadrature points.
 """
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, field
 
 import numpy as np
@@ -140,8 +141,9 @@ def boundary_peak(sm: SectionMesh, x: np.ndarray, mag: np.ndarray, facets: np.nd
     return BoundaryPeak(float(mag[i, j]), (float(x[0, i, j]), float(x[1, i, j])), f, curve, loop)
 
 
-def solve_torsion(sm: SectionMesh, centroid: tuple[float, float]) -> TorsionResult:
-    """Both torsion solutions on ``sm``; ``centroid`` is used as origin for the warping function."""
+def solve_torsion(sm: SectionMesh, centroid: tuple[float, float], warping: bool = True) -> TorsionResult:
+    """Torsion on ``sm``: the stress function and (with ``warping``) the warping function, whose
+    origin is ``centroid``. Without it, :func:`add_warping` can complete the result later."""
     import time
 
     t0 = time.perf_counter()
@@ -159,47 +161,59 @@ def solve_torsion(sm: SectionMesh, centroid: tuple[float, float]) -> TorsionResu
     ur = solve_spd(Kr, fr)
     phi = P @ ur
     consts = [float(c) for c in ur[nfree:]]
-    J = 2.0 * float(forms.integral_of.assemble(basis, u=basis.interpolate(phi))) + 2.0 * float(np.dot(consts, areas))
+    J_mesh = 2.0 * float(forms.integral_of.assemble(basis, u=basis.interpolate(phi))) + 2.0 * float(np.dot(consts, areas))
     t2 = time.perf_counter()
 
-    # --- warping function about the centroid
+    # --- boundary correction and boundary peak, per unit torque
+    _, gphi, ds = boundary_gradients(sm, phi, "gauss")
+    J = J_mesh + boundary_correction(sm, gphi[0] ** 2 + gphi[1] ** 2, ds)
+    x, gphi, _ = boundary_gradients(sm, phi)
+    near = singular_mask(sm, x)
+    mag = np.hypot(gphi[0], gphi[1]) / J
+    peak = boundary_peak(sm, x, mag, sm.boundary_facets, exclude=near)
+    corner_value = float(np.max(mag[near])) if near.any() else None
+    t3 = time.perf_counter()
+    tr = TorsionResult(
+        J=J, J_warping=math.nan, J_mesh=J_mesh, J_warping_mesh=math.nan, hole_constants=consts, hole_areas=areas,
+        peak_per_torque=peak.value, peak_at=peak.at, peak=peak,
+        peak_warping_per_torque=math.nan, peak_warping_at=(math.nan, math.nan),
+        dofs=int(basis.N), phi=phi, omega=np.zeros(0), basis=basis,
+        seconds=dict(assemble=t1 - t0, solve_stress_function=t2 - t1, boundary=t3 - t2),
+        singular_corners=[c.point for c in sm.boundary.reentrant_sharp_corners],
+        peak_at_corner_per_torque=corner_value,
+    )
+    tr._K = K
+    if warping:
+        add_warping(sm, tr, centroid)
+    return tr
+
+
+def add_warping(sm: SectionMesh, tr: TorsionResult, centroid: tuple[float, float]) -> TorsionResult:
+    """Solve the warping function (about ``centroid``) and fill the warping values of ``tr``."""
+    import time
+
+    t0 = time.perf_counter()
+    K = getattr(tr, "_K", None)
+    if K is None:
+        K = forms.laplace.assemble(tr.basis)
     cmesh = sm.mesh.translated((-centroid[0], -centroid[1]))
     cbasis = Basis(cmesh, ElementTriP2(), intorder=4)
     g = forms.warping_load.assemble(cbasis)
-    D = np.array([0])
-    omega = np.zeros(basis.N)
-    Kc, gc, _, I = condense(K, g, D=D)
+    omega = np.zeros(tr.basis.N)
+    Kc, gc, _, I = condense(K, g, D=np.array([0]))
     omega[I] = solve_spd(Kc, gc)
-    J_w = float(forms.warping_torsion_constant.assemble(cbasis, omega=cbasis.interpolate(omega)))
-    t3 = time.perf_counter()
+    J_w_mesh = float(forms.warping_torsion_constant.assemble(cbasis, omega=cbasis.interpolate(omega)))
 
-    # --- boundary peaks, per unit torque
-    facets = sm.boundary_facets
     def warping_stress(x, gw):  # τ/Gθ from the warping function
         return gw[0] - (x[1] - centroid[1]), gw[1] + (x[0] - centroid[0])
 
-    xg, gphi, ds = boundary_gradients(sm, phi, "gauss")
-    _, gw, _ = boundary_gradients(sm, omega, "gauss")
+    xg, gw, ds = boundary_gradients(sm, omega, "gauss")
     tw = warping_stress(xg, gw)
-    dJ = boundary_correction(sm, gphi[0] ** 2 + gphi[1] ** 2, ds)
-    dJw = boundary_correction(sm, tw[0] ** 2 + tw[1] ** 2, ds)
-    x, gphi, _ = boundary_gradients(sm, phi)
-    _, gw, _ = boundary_gradients(sm, omega)
+    J_w = J_w_mesh + boundary_correction(sm, tw[0] ** 2 + tw[1] ** 2, ds)
+    x, gw, _ = boundary_gradients(sm, omega)
     tw = warping_stress(x, gw)
-    J_mesh, J_w_mesh = J, J_w
-    J, J_w = J_mesh + dJ, J_w_mesh + dJw
-    near = singular_mask(sm, x)
-    mag = np.hypot(gphi[0], gphi[1]) / J
-    peak = boundary_peak(sm, x, mag, facets, exclude=near)
-    peak_w = boundary_peak(sm, x, np.hypot(*tw) / J_w, facets, exclude=near)
-    corner_value = float(np.max(mag[near])) if near.any() else None
-    t4 = time.perf_counter()
-    return TorsionResult(
-        J=J, J_warping=J_w, J_mesh=J_mesh, J_warping_mesh=J_w_mesh, hole_constants=consts, hole_areas=areas,
-        peak_per_torque=peak.value, peak_at=peak.at, peak=peak,
-        peak_warping_per_torque=peak_w.value, peak_warping_at=peak_w.at,
-        dofs=int(basis.N), phi=phi, omega=omega, basis=basis,
-        singular_corners=[c.point for c in sm.boundary.reentrant_sharp_corners],
-        peak_at_corner_per_torque=corner_value,
-        seconds=dict(assemble=t1 - t0, solve_stress_function=t2 - t1, solve_warping=t3 - t2, boundary=t4 - t3),
-    )
+    peak_w = boundary_peak(sm, x, np.hypot(*tw) / J_w, sm.boundary_facets, exclude=singular_mask(sm, x))
+    tr.J_warping, tr.J_warping_mesh, tr.omega = J_w, J_w_mesh, omega
+    tr.peak_warping_per_torque, tr.peak_warping_at = peak_w.value, peak_w.at
+    tr.seconds["solve_warping"] = time.perf_counter() - t0
+    return tr
