@@ -35,7 +35,7 @@ class MeshOptions:
 
     fineness: float = DEFAULT_FINENESS
     across: float = 20.0  # elements across the characteristic size at fineness 1
-    per_circle: float = 40.0  # elements per full turn of a curved boundary (fillets, arcs)
+    per_circle: float = 64.0  # elements per full turn of a curved boundary (fillets, arcs)
     corner_ratio: float = 1.0 / 25.0  # size at a sharp re-entrant corner relative to the global size
     grading: float = 0.25  # growth of the element size per unit distance away from a feature
     small_arc: float = 0.125  # arcs with radius below small_arc * L get their own refinement
