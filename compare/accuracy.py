@@ -26,7 +26,7 @@ import numpy as np
 from classic.gci import convergence_study
 from fem.estimate import adapted_sizes, near_points, recovery_indicator, triangles_xy
 from fem.mesh import MeshOptions, mesh_section
-from fem.properties import section_properties
+from fem.properties import area_moments
 from fem.shear import shear_peak, solve_shear
 from fem.torsion import SINGULAR_RADIUS, add_warping, solve_torsion
 
@@ -60,7 +60,7 @@ def solve_on(case, fineness: float, size_field=None, warping: bool = False) -> S
     """Mesh and solve; the warping check is left out unless asked (the final mesh adds it)."""
     t0 = time.perf_counter()
     sm = mesh_section(case.section, MeshOptions(fineness=fineness), size_field)
-    pr = section_properties(sm)
+    pr = area_moments(sm)
     tr = solve_torsion(sm, pr.centroid, warping=warping)
     sr = pk = None
     if case.material.poisson is not None:

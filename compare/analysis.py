@@ -13,7 +13,7 @@ from classic import properties as cp
 from classic import torsion as ct
 from fem.errors import InputError
 from fem.mesh import SectionMesh
-from fem.properties import SectionProperties
+from fem.properties import AreaMoments
 from fem.torsion import TorsionResult
 
 from .case import Case
@@ -33,7 +33,7 @@ TOL_PROP = (1e-5, "curved second-order elements reproduce areas and moments of a
 class Analysis:
     case: Case
     mesh: SectionMesh
-    props: SectionProperties
+    props: AreaMoments
     torsion: TorsionResult
     pairs: list[Pair]
     seconds: dict

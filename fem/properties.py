@@ -12,7 +12,7 @@ from .mesh import SectionMesh
 
 
 @dataclass
-class SectionProperties:
+class AreaMoments:
     """Area, centroid and centroidal second moments [m, m², m⁴]; angles in degrees."""
 
     area: float
@@ -42,7 +42,7 @@ def principal(Ixx, Iyy, Ixy):
     return avg + rad, avg - rad, angle
 
 
-def section_properties(sm: SectionMesh, basis: Basis | None = None) -> SectionProperties:
+def area_moments(sm: SectionMesh, basis: Basis | None = None) -> AreaMoments:
     basis = basis or Basis(sm.mesh, ElementTriP2(), intorder=6)
     A = forms.area.assemble(basis)
     sx = forms.first_moment_x.assemble(basis)
@@ -60,4 +60,4 @@ def section_properties(sm: SectionMesh, basis: Basis | None = None) -> SectionPr
     Iscale = max(eIxx, eIyy)
     scale = dict(area=e["A"], centroid_x=L, centroid_y=L, Ixx=Iscale, Iyy=Iscale, Ixy=Iscale)
     rel = {k: abs(fe[k] - exact[k]) / scale[k] for k in fe}
-    return SectionProperties(A, (xc, yc), Ixx, Iyy, Ixy, I1, I2, ang, Ixx + Iyy, c_max, exact, rel)
+    return AreaMoments(A, (xc, yc), Ixx, Iyy, Ixy, I1, I2, ang, Ixx + Iyy, c_max, exact, rel)

@@ -24,7 +24,7 @@ from skfem import Basis, CellBasis, ElementTriP2, Functional
 from . import forms
 from .linalg import solve_spd
 from .mesh import SectionMesh
-from .properties import SectionProperties
+from .properties import AreaMoments
 
 # Reference P2 nodes and the centroid of the triangle: where a field is read inside the section.
 _NODES = np.array([[0.0, 1.0, 0.0, 0.5, 0.5, 0.0, 1 / 3], [0.0, 0.0, 1.0, 0.0, 0.5, 0.5, 1 / 3]])
@@ -105,7 +105,7 @@ class ShearResult:
         return self._unit_fields(gp, gf, np.asarray(basis.global_coordinates()))
 
 
-def solve_shear(sm: SectionMesh, props: SectionProperties, nu: float) -> ShearResult:
+def solve_shear(sm: SectionMesh, props: AreaMoments, nu: float) -> ShearResult:
     """Both shear functions on ``sm`` for Poisson's ratio ``nu``."""
     xc, yc = props.centroid
     cm = sm.mesh.translated((-xc, -yc))

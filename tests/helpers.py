@@ -2,13 +2,13 @@
 import math
 
 from fem.mesh import MeshOptions, mesh_section
-from fem.properties import section_properties
+from fem.properties import area_moments
 from fem.torsion import solve_torsion
 
 
 def torsion_of(section, fineness=1.0):
     sm = mesh_section(section, MeshOptions(fineness=fineness))
-    props = section_properties(sm)
+    props = area_moments(sm)
     return sm, props, solve_torsion(sm, props.centroid)
 
 

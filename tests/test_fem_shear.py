@@ -7,14 +7,14 @@ import pytest
 from classic import shear as cs
 from fem.geometry import Keyway, custom_section, keyed_section, polygon, rectangle, round_section
 from fem.mesh import MeshOptions, mesh_section
-from fem.properties import section_properties
+from fem.properties import area_moments
 from fem.shear import shear_peak, solve_shear
 from tests.helpers import observed_order
 
 
 def shear_of(section, nu, fineness=1.0):
     sm = mesh_section(section, MeshOptions(fineness=fineness))
-    pr = section_properties(sm)
+    pr = area_moments(sm)
     return sm, pr, solve_shear(sm, pr, nu)
 
 

@@ -15,7 +15,7 @@ from compare.case import load_case
 from compare.cmd_verify import verify_case
 from fem.geometry import Keyway, keyed_section
 from fem.mesh import MeshOptions, mesh_section
-from fem.properties import section_properties
+from fem.properties import area_moments
 from fem.torsion import solve_torsion
 
 ROOT = Path(__file__).resolve().parents[2]
@@ -39,7 +39,7 @@ def keyed():
     d = 0.03
     sec = keyed_section(d, [Keyway(0.008, 0.004, 0.02 * d)])
     sm = mesh_section(sec, MeshOptions(fineness=8.0))
-    ref = solve_torsion(sm, section_properties(sm).centroid, warping=False)
+    ref = solve_torsion(sm, area_moments(sm).centroid, warping=False)
     print(f"\nKeyed 30 mm shaft, 8 x 4 keyway, fillet 0.02 d: reference at fineness 8 ({ref.dofs} DOFs), "
           f"J {ref.J:.9e}, peak/T {ref.peak_per_torque:.7e}")
 
@@ -47,7 +47,7 @@ def keyed():
         for f in (0.5, 0.7, 1.0, 1.4, 2.0, 2.8, 4.0, 5.6, 8.0, 11.0, 16.0):
             t0 = time.perf_counter()
             m = mesh_section(sec, opts_for(f))
-            tr = solve_torsion(m, section_properties(m).centroid, warping=False)
+            tr = solve_torsion(m, area_moments(m).centroid, warping=False)
             dt = time.perf_counter() - t0
             eJ, ep = abs(tr.J / ref.J - 1), abs(tr.peak_per_torque / ref.peak_per_torque - 1)
             if ep < 1e-3 and eJ < 1e-4:

@@ -10,7 +10,7 @@ import time
 
 from fem.geometry import Keyway, keyed_section, round_section
 from fem.mesh import MeshOptions, mesh_section
-from fem.properties import section_properties
+from fem.properties import area_moments
 from fem.torsion import solve_torsion
 
 
@@ -18,7 +18,7 @@ def run(section, fineness):
     t0 = time.perf_counter()
     sm = mesh_section(section, MeshOptions(fineness=fineness))
     t1 = time.perf_counter()
-    pr = section_properties(sm)
+    pr = area_moments(sm)
     tr = solve_torsion(sm, pr.centroid)
     t2 = time.perf_counter()
     return sm, tr, dict(mesh=t1 - t0, total=t2 - t0, **tr.seconds)
