@@ -73,3 +73,12 @@ class Validity:
             warnings.warn(f"{self.name} = {value!r}: {reason}", OutOfRangeWarning, stacklevel=3)
             return value
         raise OutOfRangeError(self.name, value, reason)
+
+
+def checked(validity: Validity, value) -> float:
+    """``value`` as a float, inside ``validity``; a one-line error naming the field otherwise."""
+    try:
+        x = float(value)
+    except (TypeError, ValueError):
+        raise OutOfRangeError(validity.name, value, "is not a real number") from None
+    return float(validity.check(x))

@@ -11,7 +11,7 @@ from __future__ import annotations
 
 import math
 
-from classic._validity import OutOfRangeError, Validity
+from classic._validity import OutOfRangeError, Validity, checked
 
 __all__ = [
     "round_area", "round_second_moment", "round_polar_moment", "round_extreme_fibre",
@@ -41,13 +41,7 @@ FLAT_RATIO = Validity("s/d", 0.0, 1.0, "", "refuse",
                       strict_high=True)
 
 
-def _checked(validity: Validity, value) -> float:
-    """``value`` as a float, inside ``validity``; a one-line error naming the field otherwise."""
-    try:
-        x = float(value)
-    except (TypeError, ValueError):
-        raise OutOfRangeError(validity.name, value, "is not a real number") from None
-    return float(validity.check(x))
+_checked = checked  # one definition, in classic._validity
 
 
 def _tube_dims(D, d) -> tuple[float, float]:

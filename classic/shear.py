@@ -13,7 +13,7 @@ from __future__ import annotations
 
 import math
 
-from classic._validity import OutOfRangeError, Validity
+from classic._validity import OutOfRangeError, Validity, checked
 from classic.properties import round_area
 
 __all__ = [
@@ -57,13 +57,7 @@ NU_ENERGY_RECT = Validity("nu", 0.0, 0.0, "", "refuse",
                           "coefficient of a rectangle depends on b/h")
 
 
-def _checked(validity: Validity, value) -> float:
-    """``value`` as a float, inside ``validity``; a one-line error naming the field otherwise."""
-    try:
-        x = float(value)
-    except (TypeError, ValueError):
-        raise OutOfRangeError(validity.name, value, "is not a real number") from None
-    return float(validity.check(x))
+_checked = checked  # one definition, in classic._validity
 
 
 # --------------------------------------------------------------------------- elementary

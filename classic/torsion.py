@@ -15,7 +15,8 @@ from numbers import Real
 
 import numpy as np
 
-from classic._validity import OutOfRangeError, Validity
+from classic._validity import OutOfRangeError, Validity, checked
+from classic.properties import _tube_dims  # the same tube checks for torsion and properties
 
 __all__ = [
     "round_torsion_constant", "round_peak_shear", "keyed_nominal_shear",
@@ -79,13 +80,7 @@ THIN_CLOSED = Validity("t/r_m", 0.0, 0.1, "", "warn", _THIN)
 THIN_OPEN = Validity("t/b", 0.0, 0.1, "", "warn", _THIN)
 
 
-def _checked(validity: Validity, value) -> float:
-    """``value`` as a float, inside ``validity``; a one-line error naming the field otherwise."""
-    try:
-        x = float(value)
-    except (TypeError, ValueError):
-        raise OutOfRangeError(validity.name, value, "is not a real number") from None
-    return float(validity.check(x))
+_checked = checked  # one definition, in classic._validity
 
 
 # --------------------------------------------------------------------------- solid round
@@ -205,11 +200,6 @@ def keyed_nominal_shear(T: float, d: float) -> float:
 
 # --------------------------------------------------------------------------- tube
 
-def _tube_dims(D, d) -> tuple[float, float]:
-    D = _checked(D_OUTER, D)
-    d = _checked(D_BORE, d)
-    BORE_RATIO.check(d / D)
-    return D, d
 
 
 def tube_torsion_constant(D: float, d: float) -> float:

@@ -70,7 +70,7 @@ def shear_step(a) -> None:
 
 
 def shear_pairs(a, sr: ShearResult, out: dict, L: float) -> list[Pair]:
-    s, nu, A = a.case.section, sr.nu, sr.area
+    s, nu = a.case.section, sr.nu
     pairs: list[Pair] = []
     cp_ = recognise(s)
     name = cp_.name if cp_ else None
