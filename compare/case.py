@@ -7,7 +7,8 @@ Schema (README, 'Case files', is the reference)::
     [loads]     torque, bending = [Mx, My], shear = [Vx, Vy], axial, the *_mean / *_alternating
                 parts of each, rotating
     [material]  shear_modulus | elastic_modulus, poisson, yield, ultimate, ...
-    [analysis]  fineness, accuracy, max_dofs
+    [analysis]  fineness, accuracy, max_dofs, design_factor, materials
+    [fatigue]   kt_bending (+ kt_bending_source), kts_torsion (+ kts_torsion_source), notch_radius
 
 Unknown keys are refused (a misspelt key silently ignored is a wrong answer). Every error is an
 :class:`~fem.errors.InputError` naming the field and the value.
@@ -32,7 +33,11 @@ else:  # pragma: no cover
 
 @dataclass
 class Loads:
-    """Section loads [N, N·m], SI. Static values; ``mean``/``alternating`` hold the fatigue split."""
+    """Section loads [N, N·m], SI. Steady values; ``mean``/``alternating`` hold the fatigue split
+    where the case gives one (a missing mean is the steady value, a missing alternating part is 0;
+    with ``rotating`` a bending load and a shear force fixed in space are fully reversed and may
+    not be split). Alternating parts are amplitudes: a scalar is >= 0; a vector amplitude's
+    components may have either sign (its direction matters, its overall sign does not)."""
 
     torque: float = 0.0
     bending: tuple[float, float] = (0.0, 0.0)  # (Mx, My)
@@ -69,6 +74,18 @@ class Analysis:
 
 
 @dataclass
+class Fatigue:
+    """Optional inputs of the fatigue check. Chart factors are for 3-D effects a 2-D section model
+    cannot show (keyseat ends, shoulders); each needs the source it was read from."""
+
+    kt_bending: float | None = None
+    kt_bending_source: str | None = None
+    kts_torsion: float | None = None
+    kts_torsion_source: str | None = None
+    notch_radius: float | None = None  # [m], for the notch sensitivity; default: the keyway fillet
+
+
+@dataclass
 class Case:
     title: str
     units: UnitSystem | None
@@ -77,9 +94,10 @@ class Case:
     material: Material
     analysis: Analysis
     path: Path | None = None
+    fatigue: Fatigue = field(default_factory=Fatigue)
 
 
-_TOP = {"case", "section", "loads", "material", "analysis", "expected"}
+_TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue"}
 _CASE = {"title", "units", "description", "source"}
 _LOAD_SCALARS = {"torque": "moment", "axial": "force"}
 _LOAD_VECTORS = {"bending": "moment", "shear": "force"}
@@ -90,6 +108,7 @@ _MATERIAL = {
     "temperature": "temperature", "kind": None,
 }
 _ANALYSIS = {"fineness", "accuracy", "max_dofs", "design_factor", "materials"}
+_FATIGUE = {"kt_bending", "kt_bending_source", "kts_torsion", "kts_torsion_source", "notch_radius"}
 
 
 def load_case(path: str | Path) -> Case:
@@ -118,7 +137,8 @@ def parse_case(data: dict) -> Case:
     loads = parse_loads(data.get("loads", {}), units)
     material = parse_material(data.get("material", {}), units)
     analysis = parse_analysis(data.get("analysis", {}))
-    return Case(str(c.get("title", "untitled case")), units, section, loads, material, analysis)
+    fatigue = parse_fatigue(data.get("fatigue", {}), units)
+    return Case(str(c.get("title", "untitled case")), units, section, loads, material, analysis, fatigue=fatigue)
 
 
 # ----------------------------------------------------------------------------- section
@@ -233,15 +253,17 @@ def parse_loads(d: dict, units) -> Loads:
             if k in d:
                 store[key] = value(k, dim, vector)
         alt = out.alternating.get(key)
-        if alt is not None:
-            for i, a in enumerate(alt if vector else (alt,)):
-                if a < 0:
-                    fld = f"loads.{key}_alternating" + (f"[{i}]" if vector else "")
-                    raise InputError(fld, d[f"{key}_alternating"], "is an amplitude and must not be negative")
+        if alt is not None and not vector and alt < 0:  # a vector amplitude's direction may point anywhere
+            raise InputError(f"loads.{key}_alternating", d[f"{key}_alternating"], "is an amplitude and must not be negative")
     rot = d.get("rotating", False)
     if not isinstance(rot, bool):
         raise InputError("loads.rotating", rot, "must be true or false")
     out.rotating = rot
+    if rot:
+        for key in ("bending_mean", "bending_alternating", "shear_mean", "shear_alternating"):
+            if key in d:
+                raise InputError(f"loads.{key}", d[key], "cannot be given with rotating = true: a load fixed in space "
+                                 f"on a rotating shaft is fully reversed; give its size as loads.{key.split('_')[0]}")
     return out
 
 
@@ -303,6 +325,30 @@ def parse_analysis(d: dict) -> Analysis:
             raise InputError("analysis.materials", d["materials"], "must be the path of a material table")
         a.materials = d["materials"]
     return a
+
+
+def parse_fatigue(d: dict, units) -> Fatigue:
+    _known(d, _FATIGUE, "fatigue")
+    f = Fatigue()
+    for key in ("kt_bending", "kts_torsion"):
+        if key not in d:
+            if f"{key}_source" in d:
+                raise InputError(f"fatigue.{key}_source", d[f"{key}_source"], f"is given without fatigue.{key}")
+            continue
+        v = to_si(d[key], "dimensionless", f"fatigue.{key}", None)
+        if not v >= 1:
+            raise InputError(f"fatigue.{key}", d[key], "a stress-concentration factor is at least 1")
+        src = d.get(f"{key}_source")
+        if not isinstance(src, str) or not src.strip():
+            raise InputError(f"fatigue.{key}_source", src, f"is required with fatigue.{key}: name the chart it was "
+                             "read from (book, edition, figure)")
+        setattr(f, key, v)
+        setattr(f, f"{key}_source", src.strip())
+    if "notch_radius" in d:
+        f.notch_radius = to_si(d["notch_radius"], "length", "fatigue.notch_radius", units)
+        if not f.notch_radius > 0:
+            raise InputError("fatigue.notch_radius", d["notch_radius"], "must be positive")
+    return f
 
 
 # ----------------------------------------------------------------------------- helpers
