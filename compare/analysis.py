@@ -110,6 +110,11 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         from .accuracy_step import accuracy_step  # noqa: PLC0415
 
         accuracy_step(a)
+    from .combined import combined_step  # noqa: PLC0415
+
+    t5 = time.perf_counter()
+    combined_step(a)
+    a.seconds["combined"] = time.perf_counter() - t5
     a.seconds["total"] = time.perf_counter() - t0
     return a
 

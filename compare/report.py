@@ -96,6 +96,10 @@ def summary(res: dict, system: UnitSystem | None) -> str:
         lines.append(f"      source: {p['source']}" + (f"; {p['note']}" if p["note"] else ""))
     if "shear" in res:
         lines += ["", *shear_lines(res["shear"], f)]
+    if "combined" in res:
+        from .report_combined import combined_lines  # noqa: PLC0415
+
+        lines += ["", *combined_lines(res, f)]
     if "accuracy" in res:
         lines += ["", *accuracy_lines(res)]
     lines += ["", "Caution: " + CAUTION]

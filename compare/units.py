@@ -118,9 +118,13 @@ def to_si(value, dimension: str, field: str, system: UnitSystem | None) -> float
 
 
 def _convert(text: str, dimension: str, field: str) -> float:
+    import re  # noqa: PLC0415
+
     u = ureg()
     try:
-        q = u.Quantity(text)
+        # number and unit apart: pint refuses offset units (°C) inside an expression like "80 degC"
+        m = re.fullmatch(r"\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*?)\s*", text)
+        q = u.Quantity(float(m.group(1)), m.group(2) or "") if m else u.Quantity(text)
     except Exception:
         raise InputError(field, text, "cannot be read as a quantity with a unit") from None
     target = SI[dimension]

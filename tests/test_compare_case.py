@@ -70,3 +70,14 @@ def test_percent_accuracy_and_angles():
     c = parse_case(case_with(analysis__accuracy="0.05 %", section__keyways__0__angle="0.5 rad"))
     assert c.analysis.accuracy == pytest.approx(5e-4)
     assert c.section.keyways[0].angle == pytest.approx(math.degrees(0.5))
+
+
+def test_temperatures_with_offset_units():
+    # °C and °F are offset units; 176 °F = 80 °C exactly ((176 − 32)·5/9)
+    c = parse_case(case_with(material__temperature="176 degF"))
+    assert c.material.temperature == pytest.approx(80.0, rel=1e-12)
+    c = parse_case(case_with(material__temperature=80))
+    assert c.material.temperature == pytest.approx(80.0)
+    with pytest.raises(InputError) as e:
+        parse_case(case_with(material__temperature="80 kg"))
+    assert e.value.field == "material.temperature"
