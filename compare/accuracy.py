@@ -216,7 +216,7 @@ def one_study(key, vals, dofs, ratios, size) -> dict:
     d = dict(dofs=list(reversed(dofs)), values=list(reversed(vals)), observed_order=None, extrapolated=None,
              gci=None, asymptotic=False, status="", relative_to="section size √A" if key in LENGTHS else "value")
     spread = max(abs(v - vals[0]) for v in vals)
-    if key in LENGTHS and spread <= 1e-9 * size:
+    if key in LENGTHS and spread <= 1e-7 * size:
         d.update(status="unchanged to round-off (fixed by symmetry)", gci=spread / size, extrapolated=vals[0], asymptotic=True)
         return d
     if key == "tau_max_corner":
