@@ -70,7 +70,7 @@ def shear_step(a) -> None:
 
 
 def shear_pairs(a, sr: ShearResult, out: dict, L: float) -> list[Pair]:
-    s, nu = a.case.section, sr.nu
+    s, nu, A_sec = a.case.section, sr.nu, sr.area
     pairs: list[Pair] = []
     cp_ = recognise(s)
     name = cp_.name if cp_ else None
@@ -80,6 +80,11 @@ def shear_pairs(a, sr: ShearResult, out: dict, L: float) -> list[Pair]:
     if V is not None and Vmag > 0:
         tau = out["tau_max"]
         one_dir = abs(V[0]) < 1e-12 * Vmag or abs(V[1]) < 1e-12 * Vmag
+        if name == "tube" and one_dir:
+            m = s.bore / s.diameter
+            pairs.append(Pair("peak transverse shear over 2V/A (thin tube)", tau, cs.thin_tube_shear_elementary(Vmag, A_sec),
+                              "elementary thin-walled tube 2V/A, any strength-of-materials text", "factor", "stress",
+                              note=f"the thin-wall value describes a tube only as its wall thins (here d/D = {m:.3g})"))
         if name == "solid round":
             d = s.diameter
             exact = max(cs.round_flexure_centre(Vmag, d, nu), cs.round_flexure_surface(Vmag, d, nu))

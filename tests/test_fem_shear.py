@@ -136,3 +136,17 @@ def test_convergence_rate_of_the_round_bar_coefficient():
     p = observed_order(errs, hs)
     print(f"\nround-bar shear coefficient: observed order {p:.2f}, errors {[f'{e:.1e}' for e in errs]}")
     assert p > 3.0
+
+
+def test_slit_thin_tube_shear_centre_is_near_twice_the_radius():
+    # Thin-walled open tube slit along one generator: shear centre at 2R from the tube's centre, on
+    # the far side from the slit (thin-wall theory; shared REFERENCE-VALUES, DESIGN-NOTES). The FE value
+    # of a finite wall approaches it.
+    from fem.geometry import Disk
+
+    R, t, gap = 0.02, 0.001, 0.0005
+    sec = custom_section([Disk((0.0, 0.0), R + t / 2)], [Disk((0.0, 0.0), R - t / 2), rectangle((R, 0.0), (4 * t, gap))])
+    _, _, sr = shear_of(sec, 0.3, fineness=0.5)
+    e = {"fem": -sr.centre[0], "exact": cs.slit_thin_tube_shear_centre(R)}
+    assert abs(sr.centre[1]) < 1e-6 * R  # on the symmetry axis
+    assert e["fem"] == pytest.approx(e["exact"], rel=0.01)  # t/R = 0.05: thin-wall theory holds to about 1 %
