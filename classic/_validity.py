@@ -58,6 +58,15 @@ class Validity:
         hi_ok = value < self.high if self.strict_high else value <= self.high
         return bool(lo_ok and hi_ok)
 
+    def mask(self, values):
+        """Element-wise :meth:`contains` for an array (NaN is outside)."""
+        import numpy as np  # noqa: PLC0415
+
+        a = np.asarray(values, dtype=float)
+        lo = a > self.low if self.strict_low else a >= self.low
+        hi = a < self.high if self.strict_high else a <= self.high
+        return lo & hi
+
     def check(self, value: float) -> float:
         """Return ``value`` unchanged if inside the range; warn or raise otherwise."""
         if isinstance(value, float) and math.isnan(value):

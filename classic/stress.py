@@ -78,7 +78,7 @@ def _check(v: Validity, a: np.ndarray) -> None:
         v.check(float(a))
         return
     flat = a.ravel()
-    bad = ~np.array([v.contains(e) for e in flat], dtype=bool) | np.isnan(flat)
+    bad = ~v.mask(flat)
     if bad.any():
         v.check(float(flat[np.argmax(bad)]))
 
