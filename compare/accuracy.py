@@ -130,7 +130,10 @@ class Study:
     seconds: float = 0.0
 
 
-def refine_to_accuracy(case, target: float, max_dofs: int, fineness: float | None = None) -> Study:
+def refine_to_accuracy(case, target: float, max_dofs: int, fineness: float | None = None,
+                       max_seconds: float = math.inf) -> Study:
+    """Adaptive start, then the study, refined until every targeted GCI is within ``target`` or a
+    limit (DOFs, seconds, steps) stops it; ``Study.limited`` then says which."""
     t0 = time.perf_counter()
     f0 = fineness if fineness is not None else case.analysis.fineness
     h_max = None
@@ -139,6 +142,8 @@ def refine_to_accuracy(case, target: float, max_dofs: int, fineness: float | Non
     study = Study([], target, max_dofs)
     # --- adaptive start
     for step in range(MAX_ADAPT):
+        if time.perf_counter() - t0 > max_seconds:
+            break
         rel, keep = indicator(sol)
         rel_max = float(np.max(np.where(keep, 0.0, rel)))
         study.indicator_max.append(rel_max)
@@ -171,6 +176,9 @@ def refine_to_accuracy(case, target: float, max_dofs: int, fineness: float | Non
             break
         if seq[-1].dofs * RATIO**2 > max_dofs:
             study.limited = f"the next mesh would exceed analysis.max_dofs = {max_dofs}"
+            break
+        if time.perf_counter() - t0 > max_seconds:
+            study.limited = f"analysis.max_seconds = {max_seconds:g} s was used up"
             break
         if extra > MAX_EXTRA:
             study.limited = f"stopped after {MAX_EXTRA} refinement steps past the first study"

@@ -93,7 +93,8 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
 
     t0 = time.perf_counter()
     if study:
-        st = refine_to_accuracy(case, case.analysis.accuracy, case.analysis.max_dofs, fineness)
+        st = refine_to_accuracy(case, case.analysis.accuracy, case.analysis.max_dofs, fineness,
+                                case.analysis.max_seconds)
         sol = st.solutions[-1]
     else:
         st = None

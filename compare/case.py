@@ -7,7 +7,7 @@ Schema (README, 'Case files', is the reference)::
     [loads]     torque, bending = [Mx, My], shear = [Vx, Vy], axial, the *_mean / *_alternating
                 parts of each, rotating
     [material]  shear_modulus | elastic_modulus, poisson, yield, ultimate, ...
-    [analysis]  fineness, accuracy, max_dofs, design_factor, materials
+    [analysis]  fineness, accuracy, max_dofs, max_seconds, design_factor, materials
     [fatigue]   kt_bending (+ kt_bending_source), kts_torsion (+ kts_torsion_source), notch_radius
 
 Unknown keys are refused (a misspelt key silently ignored is a wrong answer). Every error is an
@@ -69,6 +69,7 @@ class Analysis:
     fineness: float = 1.0
     accuracy: float = 1e-3
     max_dofs: int = 400_000
+    max_seconds: float = 300.0  # refinement stops when the next step would start after this
     design_factor: float | None = None
     materials: str | None = None  # path of a material table
 
@@ -107,7 +108,7 @@ _MATERIAL = {
     "endurance_limit": "stress", "surface": None, "reliability": "dimensionless",
     "temperature": "temperature", "kind": None,
 }
-_ANALYSIS = {"fineness", "accuracy", "max_dofs", "design_factor", "materials"}
+_ANALYSIS = {"fineness", "accuracy", "max_dofs", "max_seconds", "design_factor", "materials"}
 _FATIGUE = {"kt_bending", "kt_bending_source", "kts_torsion", "kts_torsion_source", "notch_radius"}
 
 
@@ -315,6 +316,11 @@ def parse_analysis(d: dict) -> Analysis:
         if not isinstance(v, int) or isinstance(v, bool) or v < 1000:
             raise InputError("analysis.max_dofs", v, "must be a whole number of at least 1000")
         a.max_dofs = v
+    if "max_seconds" in d:
+        v = d["max_seconds"]
+        if isinstance(v, bool) or not isinstance(v, (int, float)) or not v > 0:
+            raise InputError("analysis.max_seconds", v, "must be a positive number of seconds")
+        a.max_seconds = float(v)
     if "design_factor" in d:
         v = to_si(d["design_factor"], "dimensionless", "analysis.design_factor", None)
         if not v >= 1:

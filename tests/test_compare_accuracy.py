@@ -102,3 +102,10 @@ def test_oscillating_values_get_the_spread_based_estimate():
     d = one_study("tau_max", [1.0, 1.001, 0.9995], [4000, 2000, 1000], (1.4, 1.4), 1.0)
     assert d["status"] == "oscillatory" and d["observed_order"] is None
     assert d["gci"] == pytest.approx(3.0 * 0.001, rel=1e-9)
+
+
+def test_time_limit_stops_refinement_with_exit_3(tmp_path, run_cli):
+    text = KEYED + '[analysis]\naccuracy = "0.001 %"\nmax_seconds = 0.01\n'
+    code, out, err, res = run(tmp_path, run_cli, text)
+    assert code == 3
+    assert "max_seconds" in res["accuracy"]["limited_by"]
