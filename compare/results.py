@@ -35,7 +35,7 @@ def build_results(a: Analysis) -> dict:
         "tau_max_per_torque": tr.peak_per_torque,
         "twist_per_length": T / (G * tr.J),
         "torsional_stiffness_GJ": G * tr.J,
-        "section_modulus": tr.J / (tr.J * tr.peak_per_torque) if tr.peak_per_torque else None,
+        "section_modulus": 1.0 / tr.peak_per_torque if tr.peak_per_torque else None,  # T/τmax
         "singular_corners": [list(p) for p in tr.singular_corners],
         "tau_max_excludes_singular_corners": bool(tr.singular_corners),
         "hole_constants": tr.hole_constants,
