@@ -1,3 +1,5 @@
 """FE against the hand formulas: pairs and ratios, case files, reports and the command line."""
 
-__version__ = "0.1.0"
+from ._version import __version__
+
+__all__ = ["__version__"]
