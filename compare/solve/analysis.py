@@ -1,7 +1,9 @@
-"""One case, end to end: mesh, section properties, torsion, and the pairs against the hand formulas.
+"""One case solved: mesh, section properties, torsion (and the shear solution with the study).
 
-:func:`analyse` returns an :class:`Analysis` holding the FE objects (for plots, VTU export and
-later steps) and :meth:`Analysis.results`, the JSON-ready dictionary in SI base units.
+:func:`solve` returns an :class:`Analysis` holding the FE objects (for plots, VTU export and
+later steps). The pairs against the hand formulas (:mod:`compare.pairs`), the checks
+(:mod:`compare.checks`) and the results dictionary (:mod:`compare.output.results`) are added by
+the rooms above; :func:`compare.pipeline.analyse` runs them all.
 """
 from __future__ import annotations
 
@@ -9,24 +11,16 @@ import math
 import time
 from dataclasses import dataclass, field
 
-from classic import properties as cp
+import numpy as np
+
 from classic import torsion as ct
 from fem.errors import InputError
 from fem.mesh import SectionMesh
 from fem.properties import AreaMoments
 from fem.torsion import TorsionResult
 
-from .case import Case
-from .counterparts import recognise
-from .pairs import Pair, not_applicable
-
-CAUTION = ("shaftcheck is a cross-check aid for the designer. It does not replace the governing codes and "
-           "standards, the full design calculation, or the judgement of a licensed engineer, who decide.")
-
-#: Accepted FE-vs-exact tolerances in 'check' pairs, each with its reason.
-TOL_J = (2e-4, "default mesh targets 0.02 % on J (issue 2); measured errors are far below")
-TOL_PEAK = (1e-2, "default mesh targets 1 % on the boundary peak stress")
-TOL_PROP = (1e-5, "curved second-order elements reproduce areas and moments of arcs to better than 1e-5")
+from ..case.case import Case
+from .accuracy import refine_to_accuracy, solve_on
 
 
 @dataclass
@@ -35,12 +29,12 @@ class Analysis:
     mesh: SectionMesh
     props: AreaMoments
     torsion: TorsionResult
-    pairs: list[Pair]
+    pairs: list  # compare.pairs.pairs.Pair, added by the pairs room
     seconds: dict
     extra: dict = field(default_factory=dict)  # results of later steps, by key
     shear: object = None  # fem.shear.ShearResult when Poisson's ratio is known
     shear_peak: object = None  # fem.shear.ShearPeak when shear forces are given
-    study: object = None  # compare.accuracy.Study: the meshes of the convergence study
+    study: object = None  # compare.solve.accuracy.Study: the meshes of the convergence study
 
     # ------------------------------------------------------------------ derived torsion values
     @property
@@ -74,13 +68,8 @@ class Analysis:
     def where(self, at) -> dict:
         return locate(self.mesh, at)
 
-    def results(self) -> dict:
-        from .results import build_results  # noqa: PLC0415
 
-        return build_results(self)
-
-
-def analyse(case: Case, fineness: float | None = None, study: bool = True) -> Analysis:
+def solve(case: Case, fineness: float | None = None, study: bool = True) -> Analysis:
     """Solve the case. With ``study`` (the default, and what the command line does), refine to the
     case's accuracy target and run the convergence study; the results come from the finest mesh."""
     m = case.material
@@ -89,8 +78,6 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
                          "is required (or give elastic_modulus and poisson)")
     if case.loads.shear is not None and m.poisson is None:
         raise InputError("material.poisson", None, "is required for transverse shear (loads.shear is given)")
-    from .accuracy import refine_to_accuracy, solve_on  # noqa: PLC0415
-
     t0 = time.perf_counter()
     if study:
         st = refine_to_accuracy(case, case.analysis.accuracy, case.analysis.max_dofs, fineness,
@@ -103,77 +90,12 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     a = Analysis(case, sol.mesh, sol.props, sol.torsion, [], dict(solve=t1 - t0, final_mesh=sol.seconds))
     a.shear, a.shear_peak = sol.shear, sol.shear_peak
     a.study = st
-    a.pairs = torsion_pairs(a)
-    from .shear_step import shear_step  # noqa: PLC0415
-
-    shear_step(a)
-    if st is not None:
-        from .accuracy_step import accuracy_step  # noqa: PLC0415
-
-        accuracy_step(a)
-    from .combined import combined_step  # noqa: PLC0415
-
-    t5 = time.perf_counter()
-    combined_step(a)
-    a.seconds["combined"] = time.perf_counter() - t5
-    a.seconds["total"] = time.perf_counter() - t0
     return a
-
-
-def torsion_pairs(a: Analysis) -> list[Pair]:
-    """The FE results beside their hand formulas (or the reason there is none)."""
-    s, tr, pr = a.case.section, a.torsion, a.props
-    out: list[Pair] = []
-    cp_ = recognise(s)
-    if cp_ is not None:
-        out.append(Pair("torsion constant J", tr.J, cp_.J, f"{cp_.name}: {cp_.source}", "check", "second_moment", *TOL_J))
-        out.append(Pair("peak torsional shear τmax per unit torque", tr.peak_per_torque, cp_.peak_per_torque,
-                        f"{cp_.name}: {cp_.source}", "check", "per_cubic", *TOL_PEAK))
-        if cp_.area is not None:
-            out.append(Pair("area", pr.area, cp_.area, f"{cp_.name}: exact geometry", "check", "area", *TOL_PROP))
-        if cp_.Ixx is not None:
-            out.append(Pair("second moment Ixx", pr.Ixx, cp_.Ixx, f"{cp_.name}: exact geometry", "check", "second_moment", *TOL_PROP))
-            out.append(Pair("second moment Iyy", pr.Iyy, cp_.Iyy, f"{cp_.name}: exact geometry", "check", "second_moment", *TOL_PROP))
-    elif s.kind == "keyed":
-        d = s.diameter
-        Jr = ct.tube_torsion_constant(d, s.bore) if s.bore else ct.round_torsion_constant(d)
-        out.append(Pair("J relative to the plain shaft (πd⁴/32" + (" minus the bore)" if s.bore else ")"), tr.J, Jr,
-                        ROUND_NOTE, "factor", "second_moment",
-                        note="no exact formula for a keyed section: the ratio is the torsional stiffness kept, not an error"))
-        Ir = cp.tube_second_moment(d, s.bore) if s.bore else cp.round_second_moment(d)
-        out.append(Pair("Ixx relative to the plain shaft", pr.Ixx, Ir, ROUND_NOTE, "factor", "second_moment",
-                        note="bending stiffness kept about x"))
-        out.append(Pair("Iyy relative to the plain shaft", pr.Iyy, Ir, ROUND_NOTE, "factor", "second_moment",
-                        note="bending stiffness kept about y"))
-        out.append(not_applicable("Tc/J with the round-bar J", tr.peak_per_torque,
-                                  "the round-bar Tc/J does not describe a keyed section; the Kts below uses the handbook nominal instead",
-                                  "per_cubic"))
-    else:
-        out.append(not_applicable("torsion constant J", tr.J, "no published closed form for this section", "second_moment"))
-    nom = a.nominal_shear()
-    T = abs(a.torque) or 1.0
-    if nom is not None and tr.singular_corners:
-        out.append(not_applicable("Kts = τmax,FE / τnominal", None,
-                                  "the section has sharp re-entrant corners, where the stress is unbounded: no Kts exists "
-                                  "until the real fillet radius is modelled", "stress"))
-    elif nom is not None:
-        kind = "check" if s.kind == "round" else "factor"
-        tol = TOL_PEAK if kind == "check" else (None, "")
-        out.append(Pair("Kts = τmax,FE / τnominal", T * tr.peak_per_torque, nom[0], f"nominal {nom[1]}: {nom[2]}",
-                        kind, "stress", *tol,
-                        note="ratio is the effective torsional stress-concentration factor" if kind == "factor" else
-                        "plain round: Kts should be 1"))
-    return out
-
-
-ROUND_NOTE = "plain round bar of the same diameter (elementary formula)"
 
 
 def locate(sm: SectionMesh, at) -> dict:
     """Where a point is, in words a designer uses: which boundary, on what kind of curve, at which
     keyway, and its angle and distance about the shaft axis (SI; the report formats it)."""
-    import numpy as np  # noqa: PLC0415
-
     x, y = at
     s = sm.section
     ox, oy = s.origin

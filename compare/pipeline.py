@@ -1,0 +1,32 @@
+"""One case, end to end, in the order the data flows: solve (mesh, properties, torsion, shear, the
+accuracy study), set beside the hand formulas (pairs), check (combined stress, static, fatigue,
+materials). :func:`analyse` returns the :class:`~compare.solve.analysis.Analysis` with every step's
+records; :func:`compare.output.results.build_results` turns it into the ``results.json`` dictionary.
+"""
+from __future__ import annotations
+
+import time
+
+from .case.case import Case
+from .checks.step import combined_step
+from .pairs.shear_step import shear_step
+from .pairs.torsion import torsion_pairs
+from .solve.accuracy_step import accuracy_step
+from .solve.analysis import Analysis, solve
+
+
+def analyse(case: Case, fineness: float | None = None, study: bool = True) -> Analysis:
+    """Solve the case and run every later step. With ``study`` (the default, and what the command
+    line does), refine to the case's accuracy target and run the convergence study; the results come
+    from the finest mesh."""
+    t0 = time.perf_counter()
+    a = solve(case, fineness, study)
+    a.pairs = torsion_pairs(a)
+    shear_step(a)
+    if a.study is not None:
+        accuracy_step(a)
+    t5 = time.perf_counter()
+    combined_step(a)
+    a.seconds["combined"] = time.perf_counter() - t5
+    a.seconds["total"] = time.perf_counter() - t0
+    return a
