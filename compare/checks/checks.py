@@ -11,22 +11,18 @@ import math
 import warnings
 
 import numpy as np
+from scipy.special import ndtri
 
 from classic import fatigue as cf
+from classic import properties as cp
 from classic import stress as cs
+from classic import torsion as ct
 from classic._validity import OutOfRangeError
 
-from .combined import AXIAL_KC_SOURCE, Cycle, Field, FatigueStresses, worst_over_cycle
+from .combined import AXIAL_KC_SOURCE, Cycle, Field, FatigueStresses, _point_entry, where_of, worst_over_cycle
 
 SHIGLEY = cf.EDITION
 FATIGUE_CRITERIA = ("goodman", "gerber", "asme_elliptic", "soderberg", "yield_langer")
-CRITERION_LABEL = {
-    "von_mises": "static yield, von Mises", "tresca": "static yield, Tresca",
-    "coulomb_mohr": "static fracture, Coulomb–Mohr", "modified_mohr": "static fracture, modified Mohr",
-    "goodman": "fatigue, DE-Goodman", "gerber": "fatigue, DE-Gerber", "asme_elliptic": "fatigue, DE-ASME elliptic",
-    "soderberg": "fatigue, DE-Soderberg", "yield_langer": "first-cycle yield, Langer",
-    "first_cycle_yield": "first-cycle yield, von Mises at the peak",
-}
 KEYSEAT_CONTEXT = (f"{SHIGLEY}, p. 373 / Table 7-1 first-iteration estimates for an end-milled keyseat "
                    "(r/d = 0.02, 3-D, key in place): Kt = 2.14 in bending, Kts = 3.0 in torsion — context only")
 
@@ -56,7 +52,6 @@ def static_check(a, fld: Field, cyc: Cycle, worst: dict, skipped: dict, material
     usable = ~fld.excluded
     out: dict = {"criteria": [], "at": {}, "where": {}, "strengths": {}, "path": "FE local stresses, worst instant of the load cycle"}
     sk: dict = {}
-    from .combined import _point_entry  # noqa: PLC0415
 
     def point(name, w):
         i = w.best(usable)
@@ -168,7 +163,6 @@ def endurance(a, fld: Field, cyc: Cycle, material=None, steel: bool = True) -> d
             elif any(abs(R - k) < 1e-12 for k in cf.RELIABILITY_TABLE):
                 f["ke"] = {"value": cf.reliability_factor(R), "source": f"{SHIGLEY}, Table 6-5, reliability {R:g}"}
             else:
-                from scipy.special import ndtri  # noqa: PLC0415
 
                 z = float(ndtri(R))
                 f["ke"] = {"value": cf.reliability_factor_za(z),
@@ -309,9 +303,6 @@ def _hand_factors(s, Kf, Kfs, Ma, Mm, Ta, Tm, Se, Sut, Sy) -> dict:
             out["yield_langer"] = cf.de_langer(d, Kf, Kfs, Ma, Mm, Ta, Tm, Sy)
             out["first_cycle_yield"] = cf.de_first_cycle_yield(d, Kf, Kfs, Ma, Mm, Ta, Tm, Sy)
     else:
-        from classic import properties as cp  # noqa: PLC0415
-        from classic import torsion as ct  # noqa: PLC0415
-
         kb = cp.tube_extreme_fibre(d, s.bore) / cp.tube_second_moment(d, s.bore)
         kt = ct.tube_peak_shear(1.0, d, s.bore)
         sa = cs.von_mises_sigma_tau(Kf * Ma * kb, Kfs * Ta * kt)
@@ -388,8 +379,6 @@ def fatigue_check(a, fld: Field, cyc: Cycle, fs: FatigueStresses, skipped: dict,
 
 
 def _where(a, fld: Field, i: int) -> dict:
-    from .combined import where_of  # noqa: PLC0415
-
     return where_of(a, fld, i)
 
 
@@ -419,9 +408,8 @@ def required_endurance(fe: dict, fs: FatigueStresses, nd, Sut, Sy) -> dict:
 
 # ====================================================================================== governing
 def governing(a, static: dict, fatigue: dict) -> dict | None:
-    """The smallest factor of safety over every computed criterion and both paths, and where."""
-    from .report import Fmt  # noqa: PLC0415
-
+    """The smallest factor of safety over every computed criterion and both paths, and where (a
+    record; :func:`compare.output.report_combined.governing_text` writes its sentence)."""
     cands = []
     for c in static.get("criteria", []):
         cands.append((static[c], c, "FE", static["at"][c], static["where"][c]))
@@ -438,15 +426,6 @@ def governing(a, static: dict, fatigue: dict) -> dict | None:
     if not cands:
         return None
     n, crit, path, at, where = min(cands, key=lambda x: x[0])
-    f = Fmt(a.case.units)
-    label = CRITERION_LABEL.get(crit, crit)
     nd = a.case.analysis.design_factor
-    verdict = "" if nd is None else ("  (meets the design factor %g)" % nd if n >= nd else "  (BELOW the design factor %g)" % nd)
-    if path == "FE":
-        text = f"n = {n:.3g}, {label} (FE local stresses) at {f.point(at)}: {f.where(where)}{verdict}"
-    else:
-        text = (f"n = {n:.3g}, {label} (hand path: nominal × Kf = {hand['Kf']:.3g}, Kfs = {hand['Kfs']:.3g})"
-                + (f"; the FE critical point of that criterion is at {f.point(at)}: {f.where(where)}" if at else "")
-                + verdict)
-    return {"factor": n, "criterion": crit, "path": path, "at": at, "where": where, "text": text,
+    return {"factor": n, "criterion": crit, "path": path, "at": at, "where": where,
             "design_factor": nd, "meets_design_factor": None if nd is None else bool(n >= nd)}

@@ -34,8 +34,9 @@ import numpy as np
 
 from fem.errors import InputError
 
-from .case import Material, _known
-from .units import to_si, unit_system
+from ..case.case import Material, _known
+from ..case.units import to_si, unit_system
+from .checks import FATIGUE_CRITERIA, endurance, fe_fatigue, hand_path, static_check
 
 if sys.version_info >= (3, 11):
     import tomllib
@@ -123,8 +124,6 @@ def table_path(case) -> Path:
 
 def rank_materials(a, fld, cyc, worst, fs, kt2d, skipped: dict) -> list | None:
     """Every row of the table with its factors of safety, ranked by margin n/nd (largest first)."""
-    from .checks import FATIGUE_CRITERIA, endurance, fe_fatigue, hand_path, static_check  # noqa: PLC0415
-
     nd = a.case.analysis.design_factor
     head, rows = read_table(table_path(a.case))
     if nd is None:

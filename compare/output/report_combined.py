@@ -1,5 +1,5 @@
 """The terminal summary of the combined-stress, static, fatigue and material results, in the case's
-units (``f`` is :class:`compare.report.Fmt`). results.json stays SI."""
+units (``f`` is :class:`compare.output.report.Fmt`). results.json stays SI."""
 from __future__ import annotations
 
 LABELS = {
@@ -13,6 +13,29 @@ LABELS = {
 def governing_line(res: dict) -> str | None:
     g = res.get("governing")
     return g["text"] if g else None
+
+
+CRITERION_LABEL = {
+    "von_mises": "static yield, von Mises", "tresca": "static yield, Tresca",
+    "coulomb_mohr": "static fracture, Coulomb–Mohr", "modified_mohr": "static fracture, modified Mohr",
+    "goodman": "fatigue, DE-Goodman", "gerber": "fatigue, DE-Gerber", "asme_elliptic": "fatigue, DE-ASME elliptic",
+    "soderberg": "fatigue, DE-Soderberg", "yield_langer": "first-cycle yield, Langer",
+    "first_cycle_yield": "first-cycle yield, von Mises at the peak",
+}
+
+
+def governing_text(gov: dict, fatigue: dict, f) -> str:
+    """The sentence for the governing factor of safety (:func:`compare.checks.checks.governing`)."""
+    n, crit, path, at, where = gov["factor"], gov["criterion"], gov["path"], gov["at"], gov["where"]
+    label = CRITERION_LABEL.get(crit, crit)
+    nd = gov["design_factor"]
+    verdict = "" if nd is None else ("  (meets the design factor %g)" % nd if n >= nd else "  (BELOW the design factor %g)" % nd)
+    if path == "FE":
+        return f"n = {n:.3g}, {label} (FE local stresses) at {f.point(at)}: {f.where(where)}{verdict}"
+    hand = fatigue.get("hand", {})
+    return (f"n = {n:.3g}, {label} (hand path: nominal × Kf = {hand['Kf']:.3g}, Kfs = {hand['Kfs']:.3g})"
+            + (f"; the FE critical point of that criterion is at {f.point(at)}: {f.where(where)}" if at else "")
+            + verdict)
 
 
 def _n(v) -> str:

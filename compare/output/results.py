@@ -4,8 +4,10 @@ from __future__ import annotations
 
 import math
 
-from . import __version__
-from .analysis import CAUTION, Analysis
+from .._version import __version__
+from ..solve.analysis import Analysis
+from .report import CAUTION, Fmt
+from .report_combined import governing_text
 
 SCHEMA_VERSION = 1
 
@@ -78,7 +80,21 @@ def build_results(a: Analysis) -> dict:
     }
     for key, value in a.extra.items():
         out[key] = value
+    if "governing" in out:
+        out["governing"] = _with_text(out["governing"], governing_text(out["governing"], out.get("fatigue", {}),
+                                                                       Fmt(case.units)))
     return _clean(out)
+
+
+def _with_text(record: dict, text: str) -> dict:
+    """A copy of the record with its sentence after ``where`` (the analysis keeps the bare record)."""
+    out = {}
+    for k, v in record.items():
+        out[k] = v
+        if k == "where":
+            out["text"] = text
+    out.setdefault("text", text)
+    return out
 
 
 def _clean(v):
