@@ -7,6 +7,7 @@ case takes that system's unit for its field's dimension, and a string carries it
 from __future__ import annotations
 
 import math
+import re
 from dataclasses import dataclass
 from functools import lru_cache
 
@@ -15,7 +16,7 @@ from fem.errors import InputError
 
 @lru_cache(maxsize=1)
 def ureg():
-    import pint  # noqa: PLC0415
+    import pint  # noqa: PLC0415  lazy import of a slow dependency: pint takes ~0.3 s to load; plain numbers never need it
 
     return pint.UnitRegistry()
 
@@ -118,8 +119,6 @@ def to_si(value, dimension: str, field: str, system: UnitSystem | None) -> float
 
 
 def _convert(text: str, dimension: str, field: str) -> float:
-    import re  # noqa: PLC0415
-
     u = ureg()
     try:
         # number and unit apart: pint refuses offset units (°C) inside an expression like "80 degC"

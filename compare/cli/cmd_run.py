@@ -7,7 +7,13 @@ import shutil
 import tempfile
 from pathlib import Path
 
-from .case import load_case
+from fem.errors import InputError
+
+from ..case.case import load_case
+from ..output.report import summary
+from ..output.results import build_results
+from ..output.vtu import write_fields_vtu
+from ..pipeline import analyse
 
 
 def register(sub) -> None:
@@ -21,16 +27,11 @@ def register(sub) -> None:
 
 
 def run(args) -> int:
-    from fem.errors import InputError  # noqa: PLC0415
-
-    from .analysis import analyse  # noqa: PLC0415
-    from .report import summary  # noqa: PLC0415
-
     case = load_case(args.case)
     if args.fineness is not None and not args.fineness > 0:
         raise InputError("--fineness", args.fineness, "must be positive")
     a = analyse(case, fineness=args.fineness)
-    res = a.results()
+    res = build_results(a)
     out = Path(args.out) if args.out else Path("out") / Path(args.case).stem
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
     write_outputs(out, files, None if args.no_vtu else a)
@@ -43,8 +44,6 @@ def run(args) -> int:
 def write_outputs(out: Path, files: dict[str, str], analysis=None) -> None:
     """Write everything into a temporary folder first, then move it in place: a failure leaves
     nothing half-written."""
-    from fem.errors import InputError  # noqa: PLC0415
-
     out = Path(out)
     if out.exists() and not out.is_dir():
         raise InputError("--out", str(out), "exists and is not a folder")
@@ -65,17 +64,3 @@ def write_outputs(out: Path, files: dict[str, str], analysis=None) -> None:
     finally:
         shutil.rmtree(tmp, ignore_errors=True)
 
-
-def write_fields_vtu(path: Path, a) -> None:
-    import numpy as np  # noqa: PLC0415
-
-    from fem.export import nodal_gradient, write_vtu  # noqa: PLC0415
-
-    tr = a.torsion
-    g = nodal_gradient(tr.basis, tr.phi)
-    k = (abs(a.torque) or 1.0) / tr.J
-    data = {"prandtl_phi": tr.phi, "warping_omega": tr.omega,
-            "torsion_tau_zx": k * g[1], "torsion_tau_zy": -k * g[0], "torsion_tau": k * np.hypot(g[0], g[1])}
-    for name, field in a.extra.get("_vtu", {}).items():
-        data[name] = field
-    write_vtu(path, a.mesh, data)

@@ -13,6 +13,14 @@ import json
 import math
 from pathlib import Path
 
+from fem.errors import InputError
+
+from ..case.case import load_case, tomllib
+from ..case.units import to_si
+from ..output.results import build_results
+from ..pipeline import analyse
+from .cmd_run import write_outputs
+
 EXPECTED = {
     # key: (dimension, results path, convergence key)
     "torsion.J": ("second_moment", ("torsion", "J"), "J"),
@@ -24,7 +32,7 @@ EXPECTED = {
 
 
 def default_cases() -> Path:
-    return Path(__file__).resolve().parent.parent / "cases" / "verification"
+    return Path(__file__).resolve().parents[2] / "cases" / "verification"
 
 
 def register(sub) -> None:
@@ -35,12 +43,6 @@ def register(sub) -> None:
 
 
 def verify_case(path: Path) -> list[dict]:
-    from fem.errors import InputError  # noqa: PLC0415
-
-    from .analysis import analyse  # noqa: PLC0415
-    from .case import load_case, tomllib  # noqa: PLC0415
-    from .units import to_si  # noqa: PLC0415
-
     case = load_case(path)
     raw = tomllib.loads(path.read_text(encoding="utf-8"))
     source = raw.get("case", {}).get("source")
@@ -50,7 +52,7 @@ def verify_case(path: Path) -> list[dict]:
     if not isinstance(expected, dict) or not expected:
         raise InputError(f"{path.name}: expected", None, "a verification case needs an [expected] table")
     a = analyse(case)
-    res = a.results()
+    res = build_results(a)
     rows = []
     for key, value in expected.items():
         if key not in EXPECTED:
@@ -70,13 +72,9 @@ def verify_case(path: Path) -> list[dict]:
 
 
 def run(args) -> int:
-    from .cmd_run import write_outputs  # noqa: PLC0415
-
     folder = Path(args.cases) if args.cases else default_cases()
     files = sorted(folder.glob("*.toml"))
     if not files:
-        from fem.errors import InputError  # noqa: PLC0415
-
         raise InputError("--cases", str(folder), "holds no verification cases (*.toml)")
     rows = []
     for f in files:

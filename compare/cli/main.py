@@ -8,9 +8,11 @@ from __future__ import annotations
 import argparse
 import sys
 
+from classic._validity import OutOfRangeError
 from fem.errors import InputError
 
-from . import __version__
+from .._version import __version__
+from . import cmd_run, cmd_verify
 
 EXIT_OK, EXIT_FAILED, EXIT_INPUT, EXIT_ACCURACY = 0, 1, 2, 3
 
@@ -21,8 +23,6 @@ class _Parser(argparse.ArgumentParser):
 
 
 def build_parser() -> argparse.ArgumentParser:
-    from . import cmd_run, cmd_verify  # noqa: PLC0415
-
     p = _Parser(prog="shaftcheck", description="FE cross-check of shaft sections against the hand formulas.")
     p.add_argument("--version", action="version", version=f"shaftcheck {__version__}")
     sub = p.add_subparsers(dest="command", parser_class=_Parser)
@@ -32,8 +32,6 @@ def build_parser() -> argparse.ArgumentParser:
 
 
 def main(argv: list[str] | None = None) -> int:
-    from classic._validity import OutOfRangeError  # noqa: PLC0415
-
     try:
         parser = build_parser()
         args = parser.parse_args(argv)

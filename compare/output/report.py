@@ -1,16 +1,19 @@
 """The terminal summary, in the case's own units (results.json stays SI)."""
 from __future__ import annotations
 
-from .analysis import CAUTION
-from .units import SYSTEMS, UnitSystem, from_si
+import numpy as np
+
+from ..case.units import SYSTEMS, UnitSystem, from_si
+from .report_combined import combined_lines
+
+CAUTION = ("shaftcheck is a cross-check aid for the designer. It does not replace the governing codes and "
+           "standards, the full design calculation, or the judgement of a licensed engineer, who decide.")
 
 _DIMS = {"second_moment": "second_moment", "area": "area", "stress": "stress", "length": "length"}
 
 
 def num(v: float, digits: int = 5) -> str:
     """Significant digits, positional notation across the usual engineering range."""
-    import numpy as np  # noqa: PLC0415
-
     if v == 0 or 1e-3 <= abs(v) < 1e7:
         return np.format_float_positional(v, precision=digits, unique=False, fractional=False, trim="-")
     return f"{v:.{digits - 1}e}"
@@ -97,8 +100,6 @@ def summary(res: dict, system: UnitSystem | None) -> str:
     if "shear" in res:
         lines += ["", *shear_lines(res["shear"], f)]
     if "combined" in res:
-        from .report_combined import combined_lines  # noqa: PLC0415
-
         lines += ["", *combined_lines(res, f)]
     if "accuracy" in res:
         lines += ["", *accuracy_lines(res)]
