@@ -3,7 +3,7 @@ import json
 
 import pytest
 
-from compare.accuracy import one_study
+from compare.solve.accuracy import one_study
 
 KEYED = """
 [case]

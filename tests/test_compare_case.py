@@ -3,8 +3,8 @@ import math
 
 import pytest
 
-from compare.case import parse_case
-from compare.units import SYSTEMS, to_si
+from compare.case.case import parse_case
+from compare.case.units import SYSTEMS, to_si
 from fem.errors import InputError
 
 BASE = {

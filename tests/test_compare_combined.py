@@ -1,5 +1,6 @@
-"""Combined stress, static and fatigue checks, material choice (compare.combined, compare.checks,
-compare.materials), run in-process: analyse(case), combined_step(a), a.results().
+"""Combined stress, static and fatigue checks, material choice (compare.checks.combined,
+compare.checks.checks, compare.checks.materials), run in-process: analyse(case), combined_step(a),
+build_results(a).
 
 Every check against an outside value names its source beside it."""
 import copy
@@ -12,13 +13,14 @@ import numpy as np
 import pytest
 
 from classic import fatigue as cf
-from compare import combined as cb
-from compare.analysis import analyse
-from compare.case import load_case, parse_case
-from compare.combined import combined_step
-from compare.materials import read_table
-from compare.report import Fmt
-from compare.report_combined import combined_lines, governing_line
+from compare.case.case import load_case, parse_case
+from compare.checks import combined as cb
+from compare.checks.materials import read_table
+from compare.checks.step import combined_step
+from compare.output.report import Fmt
+from compare.output.report_combined import combined_lines, governing_line
+from compare.output.results import build_results
+from compare.pipeline import analyse
 from fem.errors import InputError
 
 if sys.version_info >= (3, 11):
@@ -46,7 +48,7 @@ def solve(text_or_dict):
     data = tomllib.loads(text_or_dict) if isinstance(text_or_dict, str) else text_or_dict
     a = _analyse(parse_case(data))
     combined_step(a)
-    return a, a.results()
+    return a, build_results(a)
 
 
 def rerun(a, **loads):
@@ -58,7 +60,7 @@ def rerun(a, **loads):
             setattr(a.case.loads, k, v)
         a.extra = {k: v for k, v in a.extra.items() if k not in ("combined", "static", "fatigue", "materials", "governing")}
         combined_step(a)
-        return a.results()
+        return build_results(a)
     finally:
         a.case.loads = saved
 
@@ -391,7 +393,7 @@ def test_rotating_scan_with_shear_matches_a_dense_brute_force(keyed):
 
 
 def _reference_measure(name, sig, tau, st):
-    """Written out independently of compare.combined.measure, for the shaft state s1 >= 0 = s2 >= s3."""
+    """Written out independently of compare.checks.combined.measure, for the shaft state s1 >= 0 = s2 >= s3."""
     R = np.sqrt(sig**2 / 4 + tau**2)
     s1, s3 = sig / 2 + R, sig / 2 - R
     if name == "von_mises":
@@ -680,7 +682,7 @@ def test_a_vector_amplitude_may_point_anywhere():
 def test_demo_case_runs_in_process():
     a = _analyse(load_case(ROOT / "cases" / "conveyor_fatigue.toml"))
     combined_step(a)
-    res = a.results()
+    res = build_results(a)
     assert res["combined"]["loads"]["rotating"] is True
     assert res["materials"] and res["materials"][0]["illustrative"]
     assert res["governing"]["where"]["feature"] == "fillet"

@@ -10,9 +10,9 @@ import time
 import warnings
 from pathlib import Path
 
-from compare.accuracy import estimates, refine_to_accuracy
-from compare.case import load_case
-from compare.cmd_verify import verify_case
+from compare.case.case import load_case
+from compare.cli.cmd_verify import verify_case
+from compare.solve.accuracy import estimates, refine_to_accuracy
 from fem.geometry import Keyway, keyed_section
 from fem.mesh import MeshOptions, mesh_section
 from fem.properties import area_moments
