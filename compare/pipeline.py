@@ -1,6 +1,6 @@
 """One case, end to end, in the order the data flows: solve (mesh, properties, torsion, shear, the
 accuracy study), set beside the hand formulas (pairs), check (combined stress, static, fatigue,
-materials). :func:`analyse` returns the :class:`~compare.solve.analysis.Analysis` with every step's
+materials). :func:`analyse` returns the :class:`~compare.pairs.analysis.Analysis` with every step's
 records; :func:`compare.output.results.build_results` turns it into the ``results.json`` dictionary.
 """
 from __future__ import annotations
@@ -9,10 +9,9 @@ import time
 
 from .case.case import Case
 from .checks.step import combined_step
+from .pairs.analysis import Analysis, solve_case
 from .pairs.shear_step import shear_step
-from .pairs.torsion import torsion_pairs
 from .solve.accuracy_step import accuracy_step
-from .solve.analysis import Analysis, solve
 
 
 def analyse(case: Case, fineness: float | None = None, study: bool = True) -> Analysis:
@@ -20,8 +19,7 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     line does), refine to the case's accuracy target and run the convergence study; the results come
     from the finest mesh."""
     t0 = time.perf_counter()
-    a = solve(case, fineness, study)
-    a.pairs = torsion_pairs(a)
+    a = solve_case(case, fineness, study)  # mesh, properties, torsion and its pairs
     shear_step(a)
     if a.study is not None:
         accuracy_step(a)

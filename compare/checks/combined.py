@@ -92,7 +92,7 @@ class Field:
 
 
 def build_field(a) -> Field:
-    """Read the FE unit fields of an :class:`~compare.solve.analysis.Analysis` at every point."""
+    """Read the FE unit fields of an :class:`~compare.pairs.analysis.Analysis` at every point."""
     sm, pr, tr = a.mesh, a.props, a.torsion
     xc, yc = pr.centroid
     quad = (_NODES, np.full(_NODES.shape[1], 1.0 / _NODES.shape[1]))

@@ -5,7 +5,7 @@ from __future__ import annotations
 import math
 
 from .._version import __version__
-from ..solve.analysis import Analysis
+from ..pairs.analysis import Analysis
 from .report import CAUTION, Fmt
 from .report_combined import governing_text
 

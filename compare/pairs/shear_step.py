@@ -25,7 +25,7 @@ ENERGY_DEF = "energy definition κ = (V²/A)/∫|τ|² dA with the exact flexure
 
 
 def shear_step(a) -> None:
-    """Add ``a.extra['shear']`` (and its pairs) to an :class:`~compare.solve.analysis.Analysis`."""
+    """Add ``a.extra['shear']`` (and its pairs) to an :class:`~compare.pairs.analysis.Analysis`."""
     case = a.case
     nu = case.material.poisson
     V = case.loads.shear
