@@ -116,6 +116,9 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     t5 = time.perf_counter()
     combined_step(a)
     a.seconds["combined"] = time.perf_counter() - t5
+    from .findings import findings_step  # noqa: PLC0415
+
+    findings_step(a)
     a.seconds["total"] = time.perf_counter() - t0
     return a
 

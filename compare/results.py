@@ -78,7 +78,17 @@ def build_results(a: Analysis) -> dict:
     }
     for key, value in a.extra.items():
         out[key] = value
+    out["warnings"] = warnings_out(a)
     return _clean(out)
+
+
+def warnings_out(a: Analysis) -> list[dict]:
+    """``warnings``: [{code, text, data}], the text in the case's units, most serious first."""
+    from .report import Fmt, warning_text  # noqa: PLC0415
+
+    f = Fmt(a.case.units)
+    return [{"code": w["code"], "text": warning_text(w, f), "data": {k: v for k, v in w.items() if k != "code"}}
+            for w in a.extra.get("warnings", [])]
 
 
 def _clean(v):
