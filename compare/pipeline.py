@@ -8,6 +8,7 @@ from __future__ import annotations
 import time
 
 from .case.case import Case
+from .checks.findings import findings_step
 from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
 from .pairs.shear_step import shear_step
@@ -26,5 +27,6 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     t5 = time.perf_counter()
     combined_step(a)
     a.seconds["combined"] = time.perf_counter() - t5
+    findings_step(a)  # last: what the numbers of every step cannot support
     a.seconds["total"] = time.perf_counter() - t0
     return a

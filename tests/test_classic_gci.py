@@ -25,7 +25,7 @@ def test_nparc_order_extrapolation_gci():
 
 def test_nparc_asymptotic_ratio():
     # NPARC example prints 0.998 for the asymptotic-range check. The form of Roache (1994) as
-    # recorded in REFERENCE-VALUES, GCI23/(r^p GCI12), gives 1.002 on the same data: with relative
+    # used with that example, GCI23/(r^p GCI12), gives 1.002 on the same data: with relative
     # GCIs and the observed p it is identically f1/f2 (derived). 0.998 = f2/f1 is its reciprocal to
     # the printed digits. Both are "about 1", which is what the check asks.
     f1, f2, f3 = NPARC

@@ -1,5 +1,5 @@
-"""Checks of classic.shear against published values (REFERENCE-VALUES.md labels: [C] seen in the
-named source, [D] derived from the named exact solution, [M] from memory) and against exact
+"""Checks of classic.shear against published values (each test names its source, and says where a value is
+derived from the named exact solution or remembered from it) and against exact
 flexure stress fields evaluated numerically here."""
 import math
 
@@ -12,7 +12,7 @@ from classic.properties import round_area
 
 # Closed forms compared with closed forms: floating-point rounding only.
 EXACT_REL = 1e-12
-# Values printed to 3 decimals in REFERENCE-VALUES.md: half a unit in the last place.
+# Values printed to 3 decimals in the cited tables: half a unit in the last place.
 PRINTED_3 = 5e-4 + 1e-9
 
 
@@ -95,8 +95,8 @@ def test_round_flexure_against_derived_field(nu):
 
 
 def test_round_flexure_reference_values():
-    # REFERENCE-VALUES.md, solid round at nu = 0.3: 1.385 and 1.231 V/A, elementary 4/3
-    # (Timoshenko & Goodier, 3rd ed., section 120 [M form, D re-checked]); printed to 3 decimals.
+    # Solid round at nu = 0.3: 1.385 and 1.231 V/A, elementary 4/3 (Timoshenko & Goodier, Theory of
+    # Elasticity, 3rd ed., section 120; the form from memory, the values derived from it and re-checked); printed to 3 decimals.
     d, V = 0.03, 1.0
     A = round_area(d)
     assert S.round_flexure_centre(V, d, 0.3) * A == pytest.approx(1.385, abs=PRINTED_3)
@@ -135,14 +135,14 @@ def _rectangle_flexure_series(b_over_h, nu, nterms=200):
     return tuple(out)
 
 
-# REFERENCE-VALUES.md, Timoshenko & Goodier, 3rd ed., table in section 124, nu = 0.25
-# [M, values D re-derived]: b/h -> (centre, edges of the neutral axis).
+# Timoshenko & Goodier, Theory of Elasticity, 3rd ed., table in section 124, nu = 0.25
+# (from memory; values re-derived from the series below): b/h -> (centre, edges of the neutral axis).
 TG_RECT = {0.5: (0.983, 1.033), 1.0: (0.940, 1.126), 2.0: (0.856, 1.396), 4.0: (0.805, 1.988)}
 
 
 @pytest.mark.parametrize("boh", sorted(TG_RECT))
 def test_rectangle_flexure_table(boh):
-    # Table data against REFERENCE-VALUES.md (T&G section 124 [M, D]) and against the series
+    # Table data (Timoshenko & Goodier, 3rd ed., section 124; from memory) and against the series
     # derived above [D]; the table is printed to 3 decimals (half a unit: 5e-4).
     centre, edge = S.rectangle_flexure_ratios(boh, 0.25)
     assert (centre, edge) == pytest.approx(TG_RECT[boh], abs=1e-12)
@@ -224,7 +224,8 @@ def _energy_kappa(nu, R, Ri):
 @pytest.mark.parametrize("nu", [0.0, 0.3, 0.5])
 @pytest.mark.parametrize("m", [0.0, 0.3, 0.7, 0.95])
 def test_energy_hollow_round_against_quadrature(nu, m):
-    # REFERENCE-VALUES.md energy definition [D]: round 6(1+nu)^2/(7+14nu+8nu^2), hollow round
+    # Energy definition with the exact flexure stresses of Timoshenko & Goodier, 3rd ed., section 120
+    # (derived): round 6(1+nu)^2/(7+14nu+8nu^2), hollow round
     # 6(1+nu)^2(1+m^2)^2/[(7+14nu+8nu^2)(1+m^2)^2 + 4m^2(5+10nu+4nu^2)]; re-derived here by
     # Gauss quadrature of the exact field (rounding-level agreement expected).
     assert S.energy_hollow_round(nu, m) == pytest.approx(_energy_kappa(nu, 1.0, m), rel=1e-10)
@@ -233,7 +234,7 @@ def test_energy_hollow_round_against_quadrature(nu, m):
 
 
 def test_energy_reference_values_and_limits():
-    # REFERENCE-VALUES.md [D]: round 0.851 at nu = 0.3; thin tube -> 1/2; rectangle at nu = 0 -> 5/6.
+    # Derived from the same closed forms: round 0.851 at nu = 0.3; thin tube -> 1/2; rectangle at nu = 0 -> 5/6.
     assert S.energy_round(0.3) == pytest.approx(0.851, abs=PRINTED_3)
     for nu in (0.0, 0.3, 0.5):
         assert S.energy_hollow_round(nu, 1 - 1e-7) == pytest.approx(S.energy_thin_tube(), rel=1e-6)
@@ -291,7 +292,7 @@ def test_bad_input_refused_with_field_name(call, field):
 # ---------------------------------------------------------------- shear centres
 
 def test_channel_shear_centre_from_shear_flow():
-    # REFERENCE-VALUES.md [D, standard thin-wall result]: e = 3b^2/(h+6b) from the web centreline.
+    # Standard thin-wall result (common practice; derived below): e = 3b^2/(h+6b) from the web centreline.
     # Re-derived: flange shear flow q(s) = V t s (h/2)/I from the tip, flange force F = integral q,
     # e = F h / V, with the thin-wall I = t h^3/12 + 2 b t (h/2)^2.
     b, h, t, V = 0.04, 0.1, 0.001, 1.0

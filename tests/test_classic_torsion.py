@@ -1,5 +1,5 @@
-"""Checks of classic.torsion against published values (REFERENCE-VALUES.md labels: [C] seen in the
-named source, [D] derived from the named exact solution, [M] from memory) and against the exact
+"""Checks of classic.torsion against published values (each test names its source, and says where a value is
+derived from the named exact solution or remembered from it) and against the exact
 Prandtl stress functions integrated numerically here."""
 import math
 import warnings
@@ -155,7 +155,8 @@ def test_triangle_against_prandtl_function():
 
 # ---------------------------------------------------------------- rectangle
 
-# REFERENCE-VALUES.md, rectangle rows: series values [D] (4 decimals) and printed [C] (3 decimals).
+# Rectangle: Saint-Venant series values (Timoshenko & Goodier, 3rd ed.; derived, 4 decimals) and the printed
+# tables of Shigley, Mechanical Engineering Design, and Roark, Table 10.1 (3 decimals).
 RATIOS = [1, 1.5, 2, 3, 4, 6, 10]
 BETA_SERIES = [0.1406, 0.1958, 0.2287, 0.2633, 0.2808, 0.2983, 0.3123]
 ALPHA_SERIES = [0.2082, 0.2310, 0.2459, 0.2672, 0.2817, 0.2984, 0.3123]
@@ -175,7 +176,7 @@ def test_rectangle_series_against_derived_values(r, beta, alpha):
 @pytest.mark.parametrize("r, beta, alpha", zip(RATIOS, BETA_PRINTED, ALPHA_PRINTED))
 def test_rectangle_series_against_printed_table(r, beta, alpha):
     # Printed table, Shigley, Mechanical Engineering Design / Roark [C]. The printed tables
-    # round differently (0.228/0.229, 0.312/0.313), so ±0.001 as REFERENCE-VALUES.md advises.
+    # round differently (0.228/0.229, 0.312/0.313), so ±0.001.
     b_, a_ = Tn.rectangle_torsion_series(r, 1.0)
     assert b_ == pytest.approx(beta, abs=0.001)
     assert a_ == pytest.approx(alpha, abs=0.001)
@@ -217,7 +218,7 @@ def test_rectangle_functions_use_series_and_swap_sides():
     assert Tn.rectangle_torsion_constant(t, w) == pytest.approx(beta * w * t**3, rel=EXACT_REL)
     assert Tn.rectangle_peak_shear(T, w, t) == pytest.approx(T / (alpha * w * t**2), rel=EXACT_REL)
     assert Tn.rectangle_peak_shear(T, t, w) == pytest.approx(T / (alpha * w * t**2), rel=EXACT_REL)
-    # square: beta = 0.1406 [D] (REFERENCE-VALUES.md, w/t = 1), so J = 0.1406 a^4
+    # square: beta = 0.1406 [D] (Saint-Venant series, w/t = 1; derived), so J = 0.1406 a^4
     assert Tn.rectangle_torsion_constant(0.03, 0.03) == pytest.approx(0.1406 * 0.03**4, rel=4e-4)
 
 
@@ -231,7 +232,7 @@ def test_rectangle_series_converged():
 
 def test_rectangle_tends_to_thin_strip():
     # Timoshenko & Goodier, 3rd ed. [M]: beta = (1/3)(1 - 0.630 t/w) for large w/t, with
-    # 0.630 = (192/pi^5) * sum 1/n^5 over odd n [D]; beta -> 1/3 (REFERENCE-VALUES.md, w/t = inf).
+    # 0.630 = (192/pi^5) * sum 1/n^5 over odd n [D]; beta -> 1/3 (w/t = inf).
     c = 192 / math.pi**5 * sum(1 / n**5 for n in range(1, 2001, 2))
     assert c == pytest.approx(0.630, abs=5e-4)
     for r in (20.0, 100.0, 1000.0):

@@ -70,7 +70,7 @@ def test_verification_suite_passes_and_its_estimates_cover_the_true_errors(tmp_p
 def test_sharp_keyway_is_reported_singular_not_given_a_number(tmp_path, run_cli):
     text = KEYED.replace("fillet = 0.4\n", "").replace("poisson = 0.3\n", "") + '[analysis]\naccuracy = "1 %"\n'
     code, out, err, res = run(tmp_path, run_cli, text)
-    assert code == 0, err
+    assert code == 4, err  # no verdict with a sharp corner (README, exit codes)
     corner = res["convergence"]["tau_max_corner"]
     assert corner["gci"] is None and corner["status"].startswith("singular corner")
     assert res["accuracy"]["singular_corners"] is True

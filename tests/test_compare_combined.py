@@ -154,7 +154,7 @@ def test_round_bar_extreme_fibre_and_neutral_axis(round_bar):
     assert rep["von_mises"] == pytest.approx(math.sqrt(sig_h**2 + 3 * tau_h**2), rel=TOL_FE)
     assert rep["tresca"] == pytest.approx(2 * R_h, rel=TOL_FE)
     # neutral axis (R, 0): σ = 0; torsion plus the exact flexure surface value (1+2ν)/(1+ν)·V/A, both
-    # along +y there (Timoshenko & Goodier 3rd ed. §120; shared REFERENCE-VALUES: 1.231 V/A at ν = 0.3)
+    # along +y there (Timoshenko & Goodier 3rd ed. §120: 1.231 V/A at ν = 0.3)
     j = nearest_boundary(fld, d / 2, 0.0)
     assert abs(sg[j]) < 1e-6 * sig_h
     tau_na = 16 * T / (math.pi * d**3) + (1 + 2 * nu) / (1 + nu) * V / A
@@ -239,7 +239,7 @@ def test_hand_path_reproduces_shigley_example_7_1():
     # Shigley's Mechanical Engineering Design, 9th ed., Example 7-1 (p. 371): Kf 1.58, Kfs 1.37,
     # Ma 1260 lbf·in, Tm 1100 lbf·in, d 1.1 in, Se 29.3, Sut 105, Sy 82 kpsi -> n = 1.63 (Goodman),
     # 1.87 (Gerber), 1.88 (ASME elliptic), 1.56 (Soderberg); first-cycle yield ny = 4.50
-    # (shared REFERENCE-VALUES). The shoulder is a 3-D feature, so its chart Kt, Kts are given.
+    # (Shigley, Mechanical Engineering Design, 9th ed., Example 7-1). The shoulder is a 3-D feature, so its chart Kt, Kts are given.
     _, res = solve(EX71)
     h = res["fatigue"]["hand"]
     assert round(h["q"], 2) == 0.85 and round(h["qs"], 2) == 0.88  # Example 7-1 (from memory)
@@ -324,7 +324,7 @@ def test_keyed_shaft_governing_point_sits_at_the_keyway_fillet(keyed):
     assert gov["factor"] == min(v for v in _all_factors(res))
     assert gov["text"] and "fillet" in gov["text"]
     # 2-D bending ratio of a keyed section: above 1 (second moment lost), far below the 3-D
-    # keyseat-end chart value 2.14 (Shigley 9th ed., Table 7-1; shared REFERENCE-VALUES)
+    # keyseat-end chart value 2.14 (Shigley, Mechanical Engineering Design, 9th ed., Table 7-1)
     kt = res["combined"]["kt_bending_2d"]["value"]
     assert 1.0 < kt < 1.5
     assert "2-D" in res["fatigue"]["hand"]["Kt_source"]

@@ -21,7 +21,7 @@ def shear_of(section, nu, fineness=1.0):
 @pytest.mark.parametrize("nu", [0.0, 0.3])
 def test_round_bar_centre_and_surface(nu):
     # Exact flexure of the solid round bar (Timoshenko & Goodier, Theory of Elasticity, 3rd ed., §120;
-    # form from memory, values re-derived in shared REFERENCE-VALUES): at the centre
+    # form from memory, values re-derived from it): at the centre
     # (3+2ν)/(2(1+ν))·V/A, on the surface at the neutral axis (1+2ν)/(1+ν)·V/A.
     d, V = 0.02, 1000.0
     A = math.pi * d**2 / 4
@@ -46,7 +46,7 @@ def test_round_bar_centre_and_surface(nu):
 @pytest.mark.parametrize("b_over_h", [0.5, 1.0, 2.0, 4.0])
 def test_rectangle_against_the_timoshenko_goodier_table(b_over_h):
     # Timoshenko & Goodier, 3rd ed., table in §124, ν = 0.25: τ/(3V/2A) at the centre and at the
-    # ends of the neutral axis (from memory; values re-derived in shared REFERENCE-VALUES).
+    # ends of the neutral axis (from memory; values re-derived from the series in classic.shear).
     centre_ratio, edge_ratio = cs.rectangle_flexure_ratios(b_over_h)
     h = 0.01
     b = b_over_h * h
@@ -62,7 +62,7 @@ def test_rectangle_against_the_timoshenko_goodier_table(b_over_h):
 @pytest.mark.parametrize("nu", [0.0, 0.3])
 def test_energy_shear_coefficient_round_and_hollow(nu):
     # Energy definition with the exact flexure stresses: round 6(1+ν)²/(7+14ν+8ν²); hollow round
-    # with m = r_in/r_out from shared REFERENCE-VALUES [D].
+    # with m = r_in/r_out, both derived from the exact flexure stresses (T&G 3rd ed., §120).
     _, _, sr = shear_of(round_section(0.02), nu)
     k = {"fem": (sr.kappa_x, sr.kappa_y), "exact": cs.energy_round(nu)}
     assert k["fem"][0] == pytest.approx(k["exact"], rel=1e-4)
@@ -81,7 +81,7 @@ def channel(b, h, t):
 
 def test_thin_channel_shear_centre_tends_to_the_thin_wall_value():
     # Thin-walled theory: e = 3b²/(h+6b) from the web centreline, away from the flanges (standard
-    # thin-wall result, shared REFERENCE-VALUES [D]). The FE value approaches it as the wall thins.
+    # thin-wall result, common practice). The FE value approaches it as the wall thins.
     b, h = 0.04, 0.1
     e = cs.channel_shear_centre(b, h)
     errs = []
@@ -126,7 +126,7 @@ def test_equilibrium_residuals_are_small_on_an_unsymmetric_section():
 
 
 def test_convergence_rate_of_the_round_bar_coefficient():
-    # Exact: energy κ of the round bar at ν = 0.3 (shared REFERENCE-VALUES [D]). Observed order printed.
+    # Exact: energy κ of the round bar at ν = 0.3 (derived from T&G 3rd ed., §120). Observed order printed.
     exact = cs.energy_round(0.3)
     errs, hs = [], []
     for f in (0.5, 1.0, 2.0):
@@ -140,7 +140,7 @@ def test_convergence_rate_of_the_round_bar_coefficient():
 
 def test_slit_thin_tube_shear_centre_is_near_twice_the_radius():
     # Thin-walled open tube slit along one generator: shear centre at 2R from the tube's centre, on
-    # the far side from the slit (thin-wall theory; shared REFERENCE-VALUES, DESIGN-NOTES). The FE value
+    # the far side from the slit (thin-wall theory, common practice). The FE value
     # of a finite wall approaches it.
     from fem.geometry import Disk
 

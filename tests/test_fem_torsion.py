@@ -71,7 +71,7 @@ def test_equilateral_triangle():
 
 
 # Saint-Venant series for the rectangle, w/t -> (β, α), J = βwt³, τmax = T/(αwt²):
-# Timoshenko & Goodier, Theory of Elasticity, 3rd ed.; values re-derived in shared REFERENCE-VALUES.md [D].
+# Timoshenko & Goodier, Theory of Elasticity, 3rd ed.; values re-derived from the series (classic.torsion).
 SERIES = {1: (0.1406, 0.2082), 2: (0.2287, 0.2459), 4: (0.2808, 0.2817)}
 # The printed table (Shigley, Mechanical Engineering Design; Roark) [C]: allow ±0.001 for its rounding.
 PRINTED = {1: (0.141, 0.208), 2: (0.229, 0.246), 4: (0.281, 0.282)}

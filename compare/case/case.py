@@ -96,6 +96,8 @@ class Case:
     analysis: Analysis
     path: Path | None = None
     fatigue: Fatigue = field(default_factory=Fatigue)
+    #: (case-file field, length along the shaft [m]) of the features given a ``length``
+    feature_lengths: list = field(default_factory=list)
 
 
 _TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue"}
@@ -139,7 +141,8 @@ def parse_case(data: dict) -> Case:
     material = parse_material(data.get("material", {}), units)
     analysis = parse_analysis(data.get("analysis", {}))
     fatigue = parse_fatigue(data.get("fatigue", {}), units)
-    return Case(str(c.get("title", "untitled case")), units, section, loads, material, analysis, fatigue=fatigue)
+    return Case(str(c.get("title", "untitled case")), units, section, loads, material, analysis, fatigue=fatigue,
+                feature_lengths=parse_feature_lengths(data["section"], units))
 
 
 # ----------------------------------------------------------------------------- section
@@ -162,7 +165,7 @@ def parse_section(s: dict, units: UnitSystem | None) -> Section:
             f = f"keyways[{i}]"
             if not isinstance(k, dict):
                 raise InputError(f"section.{f}", k, "must be a table with width, depth, fillet, angle")
-            _known(k, {"width", "depth", "fillet", "angle"}, f"section.{f}")
+            _known(k, {"width", "depth", "fillet", "angle", "length"}, f"section.{f}")
             keyways.append(Keyway(
                 width=L(f"{f}.width", _req(k, "width", f"section.{f}")),
                 depth=L(f"{f}.depth", _req(k, "depth", f"section.{f}")),
@@ -178,8 +181,24 @@ def parse_section(s: dict, units: UnitSystem | None) -> Section:
     raise InputError("section.shape", shape, "must be \"round\", \"keyed\" or \"custom\"")
 
 
+def parse_feature_lengths(s: dict, units) -> list:
+    """The optional ``length`` (along the shaft) of each keyway and each cut: [(field, metres)]."""
+    out = []
+    groups = [("keyways", s.get("keyways"))] if s.get("shape") == "keyed" else [("cut", s.get("cut"))]
+    for key, items in groups:
+        for i, item in enumerate(items if isinstance(items, list) else []):
+            if isinstance(item, dict) and "length" in item:
+                f = f"section.{key}[{i}].length"
+                out.append((f"section.{key}[{i}]", to_si(item["length"], "length", f, units)))
+                if not out[-1][1] > 0:
+                    raise InputError(f, item["length"], "must be positive (the feature's length along the shaft)")
+    return out
+
+
 def _primitive(p, where: str, units):
     name = f"section.{where}"
+    if isinstance(p, dict) and "length" in p:  # the feature's length along the shaft: parse_feature_lengths
+        p = {k: v for k, v in p.items() if k != "length"}
     if not isinstance(p, dict) or len(p) != 1:
         raise InputError(name, p, "must be one of { disk = {...} }, { ellipse = {...} }, { rectangle = {...} }, { polygon = {...} }")
     kind, q = next(iter(p.items()))

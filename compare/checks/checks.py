@@ -19,6 +19,7 @@ from classic import stress as cs
 from classic import torsion as ct
 from classic._validity import OutOfRangeError
 
+from ..case.units import SYSTEMS, from_si
 from .combined import AXIAL_KC_SOURCE, Cycle, Field, FatigueStresses, _point_entry, where_of, worst_over_cycle
 
 SHIGLEY = cf.EDITION
@@ -114,6 +115,12 @@ def static_check(a, fld: Field, cyc: Cycle, worst: dict, skipped: dict, material
 
 
 # ====================================================================================== endurance
+def _length_text(d: float, units) -> str:
+    """A length for a source line, in the case's own unit (SI inside)."""
+    s = units or SYSTEMS["mm-N-MPa"]
+    return f"{from_si(d, 'length', s):.4g} {s.label('length')}"
+
+
 def shaft_diameter(a, fld: Field) -> tuple[float, str]:
     s = a.case.section
     if s.diameter:
@@ -146,7 +153,7 @@ def endurance(a, fld: Field, cyc: Cycle, material=None, steel: bool = True) -> d
             Se_p = cf.rotating_beam_endurance(Sut, "Pa")
             f["ka"] = {"value": cf.surface_factor(Sut, surface, "Pa"), "source": f"{SHIGLEY}, eq. 6-19, Table 6-2 ({surface})"}
             f["kb"] = {"value": cf.size_factor(d, "m", "bending"),
-                       "source": f"{SHIGLEY}, eq. 6-20 with d = {d * 1e3:.4g} mm ({d_src})" +
+                       "source": f"{SHIGLEY}, eq. 6-20 with d = {_length_text(d, a.case.units)} ({d_src})" +
                        ("" if cyc.rotating else "; not rotating: the actual d is used, conservative against the "
                         "equivalent diameter 0.370·d of eq. 6-24 (from memory)")}
             f["kc"] = {"value": cf.load_factor("bending"),
@@ -237,7 +244,7 @@ def hand_path(a, fld: Field, cyc: Cycle, Se, Sut, Sy, kt2d: dict | None) -> dict
         return {"skipped": "no Kts: the section has sharp re-entrant corners (unbounded stress); model the real fillet "
                            "radius or give fatigue.kts_torsion"}
     else:
-        Kts, Kts_src = max(1.0, a.kts), "FE: τmax / (16T/(πd³)) of the section (torsion.kts)"
+        Kts, Kts_src = max(1.0, a.kts), f"FE: τmax / ({a.nominal_shear()[1]}) of the section (torsion.kts)"
     # --- notch sensitivity
     q = qs = None
     r = fi.notch_radius

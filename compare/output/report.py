@@ -19,6 +19,12 @@ def num(v: float, digits: int = 5) -> str:
     return f"{v:.{digits - 1}e}"
 
 
+#: Relative size below which a printed value is round-off and shown as 0: a centroid at 1e-11 of the
+#: section size on a symmetric section, or a shear centre 1e-9 off its symmetry line, is not a result (the
+#: solves are converged far below 1e-7 of the section's size, and no design reads digits that fine).
+ROUND_OFF = 1e-7
+
+
 class Fmt:
     def __init__(self, system: UnitSystem | None):
         self.s = system or SYSTEMS["mm-N-MPa"]
@@ -33,8 +39,18 @@ class Fmt:
         unit = self.s.label(dimension)
         return f"{num(v, digits)} {unit}".rstrip()
 
-    def point(self, xy) -> str:
+    def q0(self, value, dimension: str, scale: float, digits: int = 5) -> str:
+        """Like :meth:`q`, with round-off shown as 0: |value| below 1e-9 of ``scale`` (a size of the same
+        dimension) is the solver's noise, not a result."""
+        if value is not None and scale and abs(value) < ROUND_OFF * abs(scale):
+            value = 0.0
+        return self.q(value, dimension, digits)
+
+    def point(self, xy, scale: float | None = None) -> str:
         x, y = (from_si(c, "length", self.s) for c in xy)
+        if scale:
+            tiny = ROUND_OFF * from_si(scale, "length", self.s)
+            x, y = (0.0 if abs(c) < tiny else c for c in (x, y))
         return f"({num(x)}, {num(y)}) {self.s.label('length')}"
 
     def where(self, loc: dict) -> str:
@@ -52,20 +68,85 @@ class Fmt:
         return "; ".join(parts)
 
 
+_CRIT = {"von_mises": "static yield, von Mises", "tresca": "static yield, Tresca",
+         "coulomb_mohr": "static fracture, Coulomb–Mohr", "modified_mohr": "static fracture, modified Mohr",
+         "goodman": "fatigue, DE-Goodman", "gerber": "fatigue, DE-Gerber", "asme_elliptic": "fatigue, DE-ASME elliptic",
+         "soderberg": "fatigue, DE-Soderberg", "yield_langer": "first-cycle yield, Langer",
+         "first_cycle_yield": "first-cycle yield, von Mises at the peak"}
+
+
+def warning_text(w: dict, f: Fmt) -> str:
+    """One warning record of :mod:`compare.findings` in words, in the case's units."""
+    code = w["code"]
+    if code == "sharp_corner_no_verdict":
+        where = []
+        for c in w["corners"]:
+            bits = [f.point(c["at"])]
+            if c.get("keyway"):
+                bits.append(f"keyway {c['keyway']}")
+            if c.get("boundary"):
+                bits.append(f"{c['boundary']} boundary")
+            where.append(" ".join([bits[0], f"({', '.join(bits[1:])})" if len(bits) > 1 else ""]).strip())
+        lo, hi = w["keyway_radii"]
+        fix = (f"give the real keyway bottom radius as section.keyways[].fillet (the metric key standards ISO/R773 and "
+               f"DIN 6885-1 give {f.q(lo, 'length', 2)} to {f.q(hi, 'length', 2)}, depending on the key size)"
+               if w.get("keyed") else "give the corner its real radius (a fillet on the primitive)")
+        return (f"NO VERDICT: sharp re-entrant corner{'s' if len(where) > 1 else ''} at {'; '.join(where)}. The stress "
+                "there is unbounded, so this section has no peak stress, no Kts and no factor of safety; no material "
+                f"can be said to meet the design factor. To get one, {fix}.")
+    if code == "factor_below_one":
+        crit = _CRIT.get(w.get("criterion"), w.get("criterion") or "")
+        away = " even away from the sharp corners" if w.get("away_from_corners") else ""
+        return (f"FACTOR OF SAFETY BELOW 1: n = {w['factor']:.3g} ({crit}, {w.get('path')} path){away}: the section is "
+                "predicted to fail under these loads, whatever the design factor.")
+    if code == "self_check_failed":
+        return (f"SELF-CHECK FAILED: {w['check']} (value {_g(w.get('value'))}, limit {_g(w.get('limit'))}): the solution "
+                "has detected its own failure; its numbers are not checked results.")
+    if code == "accuracy_not_met":
+        ach = "unknown" if w.get("achieved") is None else f"{100 * w['achieved']:.3g} %"
+        why = f" ({w['limited_by']})" if w.get("limited_by") else ""
+        return (f"ACCURACY NOT MET: target {100 * w['target']:.3g} %, estimated error {ach}{why}: the numbers carry "
+                "that error, not the target.")
+    if code == "open_section":
+        what = w.get("label") or f"cut step {w['step']}"
+        return (f"OPEN SECTION: {what} joins a hole of the section to the outside (holes: "
+                f"{w['holes_without']} without it, {w['holes_with']} with it). A section is repeated along the whole "
+                "shaft: this describes a slit running the full length (an open section, far weaker in torsion), not a "
+                "local radial hole. For a drilled cross hole use a published Kt for a transverse hole instead.")
+    if code == "short_feature":
+        return (f"2-D MODEL OF A 3-D FEATURE: {w['field']} is {f.q(w['length'], 'length', 4)} long along the shaft, "
+                f"less than the section's width {f.q(w['width'], 'length', 4)}. The 2-D model describes a slot running "
+                "the whole length, not a local feature: its J, stiffness and stresses are those of the long slot.")
+    return code
+
+
+def _g(v) -> str:
+    return "—" if v is None else (f"{v:.3g}" if isinstance(v, (int, float)) else str(v))
+
+
 def summary(res: dict, system: UnitSystem | None) -> str:
     f = Fmt(system)
     s, t = res["section"], res["torsion"]
     lines = [f"shaftcheck {res['tool']['version']} — {res['case']['title']}",
              f"units: {f.s.name}   mesh: {res['mesh']['elements']} curved P2 triangles, {res['mesh']['dofs']} DOFs",
              ""]
+    for w in res.get("warnings", []):
+        lines.append(f"WARNING: {w['text']}")
+    if res.get("warnings"):
+        lines.append("")
     gov = res.get("governing")
-    if gov:
+    if gov and gov.get("no_verdict"):
+        lines += ["GOVERNING: none — a section with a sharp re-entrant corner has no factor of safety (see above); "
+                  "the factors printed below are for the rest of the section only and are not a verdict", ""]
+    elif gov:
         lines += [f"GOVERNING: {gov['text']}", ""]
+    size = s["area"] ** 0.5
     lines += [
         "Section",
         f"  area A            {f.q(s['area'], 'area')}",
-        f"  centroid          {f.point(s['centroid'])}",
-        f"  Ixx, Iyy, Ixy     {f.q(s['Ixx'], 'second_moment')}, {f.q(s['Iyy'], 'second_moment')}, {f.q(s['Ixy'], 'second_moment')}",
+        f"  centroid          {f.point(s['centroid'], size)}",
+        f"  Ixx, Iyy, Ixy     {f.q(s['Ixx'], 'second_moment')}, {f.q(s['Iyy'], 'second_moment')}, "
+        f"{f.q0(s['Ixy'], 'second_moment', max(s['Ixx'], s['Iyy']))}",
         f"  I1, I2 at {s['principal_angle_deg']:.2f}°   {f.q(s['I1'], 'second_moment')}, {f.q(s['I2'], 'second_moment')}",
         f"  FE vs exact boundary integral: largest relative difference {max(s['fe_vs_boundary_integral'].values()):.1e}",
         "",
@@ -80,9 +161,8 @@ def summary(res: dict, system: UnitSystem | None) -> str:
     ]
     if t.get("singular_corners"):
         pts = ", ".join(f.point(p) for p in t["singular_corners"])
-        lines.append(f"  WARNING: {len(t['singular_corners'])} sharp re-entrant corner(s) at {pts}: the stress there is "
-                     "unbounded in theory and any number is the mesh's, so none is given; τmax above is the peak "
-                     "elsewhere. Model the real fillet radius.")
+        lines.append(f"  {len(t['singular_corners'])} sharp re-entrant corner(s) at {pts}: the stress there is unbounded; "
+                     "τmax above is the peak away from them, not the section's peak (see the warning at the top)")
     if t.get("kts") is not None:
         lines.append(f"  Kts               {t['kts']:.4f}   (nominal {t['kts_nominal']['formula']})")
     lines += ["", "FE against the hand formulas"]
@@ -98,7 +178,7 @@ def summary(res: dict, system: UnitSystem | None) -> str:
         lines.append(f"  {p['quantity']}: FE {f.q(p['fe'], dim)}, hand {f.q(p['classic'], dim)}, ratio {ratio}{flag}")
         lines.append(f"      source: {p['source']}" + (f"; {p['note']}" if p["note"] else ""))
     if "shear" in res:
-        lines += ["", *shear_lines(res["shear"], f)]
+        lines += ["", *shear_lines(res["shear"], f, size)]
     if "combined" in res:
         lines += ["", *combined_lines(res, f)]
     if "accuracy" in res:
@@ -107,18 +187,21 @@ def summary(res: dict, system: UnitSystem | None) -> str:
     return "\n".join(lines)
 
 
-def shear_lines(sh: dict, f: Fmt) -> list[str]:
+def shear_lines(sh: dict, f: Fmt, size: float | None = None) -> list[str]:
     if "skipped" in sh:
         return ["Transverse shear", f"  not computed: {sh['skipped']}"]
     out = ["Transverse shear (Saint-Venant flexure, ν = %g)" % sh["poisson"],
-           f"  shear centre      {f.point(sh['centre'])}  (offset from the centroid {f.point(sh['centre_offset_from_centroid'])})",
-           f"  κx, κy, κxy       {sh['kappa_x']:.5f}, {sh['kappa_y']:.5f}, {sh['kappa_xy']:.3g}   (energy definition)",
+           f"  shear centre      {f.point(sh['centre'], size)}  (offset from the centroid "
+           f"{f.point(sh['centre_offset_from_centroid'], size)})",
+           f"  κx, κy, κxy       {sh['kappa_x']:.5f}, {sh['kappa_y']:.5f}, "
+           f"{0.0 if abs(sh['kappa_xy']) < ROUND_OFF else sh['kappa_xy']:.3g}   (energy definition)",
            f"  shear areas       κx·A {f.q(sh['shear_area_x'], 'area')}, κy·A {f.q(sh['shear_area_y'], 'area')}"]
     if "tau_max" in sh:
         where = f.where(sh["tau_max_where"]) if sh["tau_max_on_boundary"] else "inside the section"
         out += [f"  shear force V     ({f.q(sh['force'][0], 'force')}, {f.q(sh['force'][1], 'force')}) through the shear centre",
                 f"  τmax              {f.q(sh['tau_max'], 'stress')} at {f.point(sh['tau_max_at'])}: {where}",
-                f"  through the shaft axis instead, V also applies a torque of {f.q(sh['torque_from_axis_offset'], 'moment')}"]
+                f"  through the shaft axis instead, V also applies a torque of "
+                f"{f.q0(sh['torque_from_axis_offset'], 'moment', (size or 0.0) * max(abs(v) for v in sh['force']))}"]
     r = sh["residuals"]
     res_txt = f"resultant {max(abs(v) for v in r['resultant_Vx'] + r['resultant_Vy']):.1e}"
     if "normal_traction" in r:

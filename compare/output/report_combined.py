@@ -94,7 +94,8 @@ def combined_lines(res: dict, f) -> list[str]:
         out.append(f"  note: {note}")
     st = res.get("static", {})
     if st.get("criteria"):
-        out += ["", "Static check (FE local stresses, worst instant)"]
+        nv = " — away from the sharp corners only, NOT a verdict" if (res.get("governing") or {}).get("no_verdict") else ""
+        out += ["", f"Static check (FE local stresses, worst instant){nv}"]
         req = st.get("required_strength", {})
         for k in st["criteria"]:
             line = f"  {LABELS[k]:<17} n = {_n(st[k])} at {f.point(st['at'][k])}: {f.where(st['where'][k])}"
@@ -111,7 +112,8 @@ def combined_lines(res: dict, f) -> list[str]:
             out.append(f"  required for the design factor {nd:g}: " + "; ".join(bits))
     ft = res.get("fatigue", {})
     if ft.get("criteria"):
-        out += ["", f"Fatigue ({ft['edition']})"]
+        nv = " — away from the sharp corners only, NOT a verdict" if (res.get("governing") or {}).get("no_verdict") else ""
+        out += ["", f"Fatigue ({ft['edition']}){nv}"]
         fac = ft.get("factors") or {}
         if fac:
             chain = " × ".join(f"{k} {v['value']:.3f}" for k, v in fac.items())
@@ -143,7 +145,9 @@ def combined_lines(res: dict, f) -> list[str]:
         ill = " — ILLUSTRATIVE values, not real material data" if mats[0].get("illustrative") else ""
         out += ["", f"Materials ({mats[0]['table']}{ill}), design factor {mats[0]['design_factor']:g}, ranked by margin"]
         for e in mats:
-            if e["meets"] is True:
+            if e.get("no_verdict"):
+                verdict = "no verdict (unbounded stress at a sharp corner)"
+            elif e["meets"] is True:
                 verdict = "meets"
             elif e["meets"] is False:
                 verdict = "does not meet"

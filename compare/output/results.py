@@ -6,7 +6,7 @@ import math
 
 from .._version import __version__
 from ..pairs.analysis import Analysis
-from .report import CAUTION, Fmt
+from .report import CAUTION, Fmt, warning_text
 from .report_combined import governing_text
 
 SCHEMA_VERSION = 1
@@ -81,9 +81,24 @@ def build_results(a: Analysis) -> dict:
     for key, value in a.extra.items():
         out[key] = value
     if "governing" in out:
-        out["governing"] = _with_text(out["governing"], governing_text(out["governing"], out.get("fatigue", {}),
-                                                                       Fmt(case.units)))
+        gov = out["governing"]
+        if gov.get("no_verdict"):
+            away = gov.get("away_from_corners")
+            if away:
+                away = _with_text(away, governing_text(away, out.get("fatigue", {}), Fmt(case.units)))
+            out["governing"] = {**gov, "away_from_corners": away,
+                                "text": "no verdict: a sharp re-entrant corner leaves the peak stress unbounded"}
+        else:
+            out["governing"] = _with_text(gov, governing_text(gov, out.get("fatigue", {}), Fmt(case.units)))
+    out["warnings"] = warnings_out(a)
     return _clean(out)
+
+
+def warnings_out(a: Analysis) -> list[dict]:
+    """``warnings``: [{code, text, data}], the text in the case's units, most serious first."""
+    f = Fmt(a.case.units)
+    return [{"code": w["code"], "text": warning_text(w, f), "data": {k: v for k, v in w.items() if k != "code"}}
+            for w in a.extra.get("warnings", [])]
 
 
 def _with_text(record: dict, text: str) -> dict:

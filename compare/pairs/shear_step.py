@@ -109,7 +109,7 @@ def shear_pairs(a, sr: ShearResult, out: dict, L: float) -> list[Pair]:
     # --- coefficients (only the energy definition is compared; the others are shown with their label)
     exact_k = None
     if name == "solid round":
-        exact_k = (cs.energy_round(nu), "energy shear coefficient of the solid round bar (closed form of the exact flexure stresses; shared REFERENCE-VALUES)")
+        exact_k = (cs.energy_round(nu), "energy shear coefficient of the solid round bar (energy definition integrated from the exact flexure stresses of Timoshenko & Goodier, Theory of Elasticity, 3rd ed., §120)")
         others = [(cs.cowper_round(nu), COWPER), (cs.hutchinson_round(nu), HUTCH)]
     elif name == "tube":
         m = s.bore / s.diameter
@@ -168,7 +168,7 @@ def _rectangle_table_pairs(a, sr, direction, V):
     mag = np.hypot(t[0], t[1])
     return [
         Pair("rectangle: τ at the centre / (3V/2A)", float(mag[0] / nominal), centre_r, TG_RECT, "check", "dimensionless",
-             5e-3, "table printed to three digits; values re-derived in shared REFERENCE-VALUES"),
+             5e-3, "the published table is printed to three digits (half a unit in the last place)"),
         Pair("rectangle: τ at the ends of the neutral axis / (3V/2A)", float(mag[1] / nominal), edge_r, TG_RECT, "check",
-             "dimensionless", 5e-3, "table printed to three digits; values re-derived in shared REFERENCE-VALUES"),
+             "dimensionless", 5e-3, "the published table is printed to three digits (half a unit in the last place)"),
     ]
