@@ -1,7 +1,8 @@
 """The command line: ``shaftcheck <command> ...``. One entry point, one small module per command.
 
 Exit codes: 0 success, 2 bad input (one line on stderr naming the field and value), 3 the requested
-accuracy was not reached within the limits, 1 a verification check failed.
+accuracy was not reached within the limits, 1 a verification check failed, 130 / 143 interrupted by
+SIGINT / SIGTERM (one line on stderr; see compare/interrupt.py).
 """
 from __future__ import annotations
 
@@ -34,6 +35,9 @@ def build_parser() -> argparse.ArgumentParser:
 def main(argv: list[str] | None = None) -> int:
     from classic._validity import OutOfRangeError  # noqa: PLC0415
 
+    from .interrupt import Interrupted, install_handlers  # noqa: PLC0415
+
+    restore_handlers = install_handlers()
     try:
         parser = build_parser()
         args = parser.parse_args(argv)
@@ -44,9 +48,14 @@ def main(argv: list[str] | None = None) -> int:
     except (InputError, OutOfRangeError) as exc:
         print(f"shaftcheck: error: {exc}", file=sys.stderr)
         return EXIT_INPUT
-    except KeyboardInterrupt:  # pragma: no cover
-        print("shaftcheck: interrupted", file=sys.stderr)
+    except Interrupted as exc:
+        print(f"shaftcheck: interrupted by {exc.name}; no partial output was left", file=sys.stderr)
+        return exc.exit_code
+    except KeyboardInterrupt:  # Ctrl+C where the handlers could not be installed (not the main thread)
+        print("shaftcheck: interrupted by SIGINT; no partial output was left", file=sys.stderr)
         return 130
+    finally:
+        restore_handlers()
 
 
 if __name__ == "__main__":  # pragma: no cover
