@@ -75,7 +75,11 @@ def check_out(out: Path, label: str | None = None) -> None:
         return InputError("--out", label, reason)
 
     try:
-        _check_out(out, bad)
+        lock = Path(os.path.abspath(_target(out))).parent
+        while not os.path.isdir(lock) and lock.parent != lock:
+            lock = lock.parent
+        with _locked(lock):  # the lock under which outputs are moved in: no half-swapped folder is seen
+            _check_out(out, bad)
     except OSError as exc:
         raise bad(f"cannot be used ({exc.strerror or exc})") from None
 
@@ -191,7 +195,12 @@ def _make_folders(folder: Path) -> list[Path]:
         folder = folder.parent
     made = []
     for d in reversed(missing):
-        d.mkdir()
+        try:
+            d.mkdir()
+        except FileExistsError:  # made meanwhile by another run
+            if not d.is_dir():
+                raise
+            continue
         made.append(d)
     return made
 
