@@ -239,15 +239,22 @@ def _move_in(tmp: Path, target: Path, bad) -> None:
 
 @contextmanager
 def _locked(folder: Path):
-    """An exclusive lock on ``folder`` (flock on the folder itself: no lock file is left behind)."""
+    """An exclusive lock on ``folder`` (flock on the folder itself: no lock file is left behind).
+
+    Where there is no such lock (not POSIX, a file system without locks, a folder that cannot be
+    opened), the block runs unlocked: concurrent runs are then not kept apart."""
     try:
         import fcntl  # noqa: PLC0415
-    except ImportError:  # not POSIX: no lock
+
+        fd = os.open(folder, os.O_RDONLY)
+    except (ImportError, OSError):
         yield
         return
-    fd = os.open(folder, os.O_RDONLY)
     try:
-        fcntl.flock(fd, fcntl.LOCK_EX)
+        try:
+            fcntl.flock(fd, fcntl.LOCK_EX)
+        except OSError:  # no locks on this file system
+            pass
         yield
     finally:
         os.close(fd)  # releases the lock
