@@ -14,7 +14,20 @@ import pytest
 from compare import cmd_run, interrupt
 
 ROOT = Path(__file__).resolve().parents[1]
-CASE = ROOT / "cases" / "conveyor_gear_seat.toml"  # several seconds of meshing and solving
+SLOW = ROOT / "cases" / "conveyor_gear_seat.toml"  # several seconds of meshing and solving
+QUICK = """
+[case]
+units = "mm-N-MPa"
+[section]
+shape = "round"
+diameter = 40
+[loads]
+torque = "100 N*m"
+[material]
+shear_modulus = "80 GPa"
+[analysis]
+accuracy = "1 %"
+"""
 
 pytestmark = pytest.mark.skipif(not sys.platform.startswith("linux"), reason="signals and /proc as on Linux")
 
@@ -49,8 +62,12 @@ def test_a_signal_ends_the_run_with_one_line_and_leaves_nothing_behind(tmp_path,
     out.mkdir()
     (out / "results.json").write_text('{"earlier": true}\n')
     (out / "section.vtu").write_text("<earlier/>\n")
+    case = SLOW
+    if moment == "write":
+        case = tmp_path / "quick.toml"
+        case.write_text(QUICK)
     env = {**os.environ, "PYTHONPATH": str(ROOT), cmd_run.PAUSE_ENV: "60"}
-    proc = subprocess.Popen([sys.executable, "-m", "compare.cli", "run", str(CASE), "--out", str(out)],
+    proc = subprocess.Popen([sys.executable, "-m", "compare.cli", "run", str(case), "--out", str(out)],
                             cwd=tmp_path, env=env, stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True)
     if moment == "solve":
         _wait_for(lambda: _gmsh_loaded(proc.pid), proc, "meshing started")
@@ -64,7 +81,7 @@ def test_a_signal_ends_the_run_with_one_line_and_leaves_nothing_behind(tmp_path,
     assert err == f"shaftcheck: interrupted by {signal.Signals(sig).name}; no partial output was left\n"
     assert "Traceback" not in err and stdout == ""
     assert _temporary(tmp_path) == []
-    assert sorted(os.listdir(tmp_path)) == ["o"]
+    assert sorted(os.listdir(tmp_path)) == sorted(["o"] + (["quick.toml"] if moment == "write" else []))
     assert (out / "results.json").read_text() == '{"earlier": true}\n'
     assert (out / "section.vtu").read_text() == "<earlier/>\n"
 
