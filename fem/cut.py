@@ -9,7 +9,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from .geometry import Section
-from .gmshload import load_gmsh
+from .gmshload import initialize as initialize_gmsh, load_gmsh
 
 
 @dataclass
@@ -23,7 +23,7 @@ def cut_section(section: Section, through, normal) -> Cut:
     """Cut along the line through ``through`` perpendicular to ``normal``."""
     gmsh = load_gmsh()
     if not gmsh.isInitialized():
-        gmsh.initialize(readConfigFiles=False)
+        initialize_gmsh(gmsh)
     gmsh.option.setNumber("General.Terminal", 0)
     gmsh.clear()
     try:

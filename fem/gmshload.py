@@ -7,6 +7,8 @@ line the command line can print (see README, 'System libraries').
 from __future__ import annotations
 
 import re
+import signal
+import threading
 
 from .errors import InputError
 
@@ -46,3 +48,25 @@ def load_gmsh():
     except (ImportError, OSError) as exc:
         raise GmshMissing("gmsh", None, explain_import_error(exc)) from None
     return gmsh
+
+
+def initialize(gmsh) -> None:
+    """Start the gmsh API once, leaving the process's SIGINT and SIGTERM handling as it was.
+
+    gmsh's Python ``initialize()`` sets SIGINT to the system default (end the process at once, no
+    clean-up) unless ``interruptible=False``; its C library also resets SIGTERM to the system default
+    behind Python's back (``signal.getsignal`` still reports the old handler). Both handlers are put
+    back, so a program that handles the two signals itself keeps doing so after meshing starts.
+    """
+    if gmsh.isInitialized():
+        return
+    main = threading.current_thread() is threading.main_thread()
+    saved = {s: signal.getsignal(s) for s in (signal.SIGINT, signal.SIGTERM)} if main else {}
+    try:
+        gmsh.initialize(readConfigFiles=False, interruptible=False)
+    except TypeError:  # an older gmsh without the keyword
+        gmsh.initialize(readConfigFiles=False)
+    finally:
+        for sig, handler in saved.items():
+            if handler is not None:  # None: set outside Python, nothing to put back
+                signal.signal(sig, handler)

@@ -17,7 +17,7 @@ from skfem import MeshTri2
 
 from .errors import InputError
 from .geometry import BoundaryInfo, Section, analyse_boundary
-from .gmshload import load_gmsh
+from .gmshload import initialize as initialize_gmsh, load_gmsh
 
 #: Default global fineness: elements across the section's characteristic size.
 DEFAULT_FINENESS = 1.0
@@ -88,7 +88,7 @@ def mesh_section(section: Section, options: MeshOptions | None = None,
     gmsh = load_gmsh()
     t0 = time.perf_counter()
     if not gmsh.isInitialized():
-        gmsh.initialize(readConfigFiles=False)
+        initialize_gmsh(gmsh)
     gmsh.option.setNumber("General.Terminal", 0)
     gmsh.option.setNumber("General.NumThreads", 1)
     gmsh.clear()

@@ -1,5 +1,11 @@
-"""A gmsh that cannot load its system libraries becomes one line naming the library."""
+"""A gmsh that cannot load its system libraries becomes one line naming the library; starting gmsh
+leaves the SIGINT and SIGTERM handlers as they were."""
 import builtins
+import signal
+import subprocess
+import sys
+import textwrap
+from pathlib import Path
 
 import pytest
 
@@ -25,3 +31,25 @@ def test_missing_library_is_named_with_its_package(monkeypatch):
 def test_other_import_errors_are_one_line_too():
     msg = gmshload.explain_import_error(ImportError("No module named 'gmsh'\nmore detail"))
     assert "\n" not in msg and "No module named" in msg
+
+
+@pytest.mark.skipif(sys.platform == "win32", reason="POSIX signals")
+def test_starting_gmsh_keeps_the_signal_handlers():
+    # gmsh's initialize() sets SIGINT to the system default, and its library resets SIGTERM behind
+    # Python's back: without the fix the SIGTERM below ends the child process (exit -15)
+    code = textwrap.dedent("""
+        import os, signal, time
+        seen = []
+        for s in (signal.SIGINT, signal.SIGTERM):
+            signal.signal(s, lambda n, f: seen.append(n))
+        from fem import gmshload
+        gmshload.initialize(gmshload.load_gmsh())
+        os.kill(os.getpid(), signal.SIGTERM)
+        os.kill(os.getpid(), signal.SIGINT)
+        time.sleep(0.1)
+        print(sorted(seen))
+    """)
+    root = Path(__file__).resolve().parents[1]
+    p = subprocess.run([sys.executable, "-c", code], cwd=root, capture_output=True, text=True, timeout=120)
+    assert p.returncode == 0, p.stderr
+    assert p.stdout.strip() == f"{sorted([int(signal.SIGINT), int(signal.SIGTERM)])}"

@@ -3,17 +3,25 @@ from __future__ import annotations
 
 import json
 import os
+import secrets
 import shutil
-import tempfile
+import time
+from contextlib import contextmanager
 from pathlib import Path
 
 from fem.errors import InputError
+
+try:
+    import fcntl
+except ImportError:  # not POSIX: outputs are moved in without a lock (see _locked)
+    fcntl = None
 
 from ..case.case import load_case
 from ..output.report import summary
 from ..output.results import build_results
 from ..output.vtu import write_fields_vtu
 from ..pipeline import analyse
+from .interrupt import Interrupted, held
 
 
 def register(sub) -> None:
@@ -30,9 +38,10 @@ def run(args) -> int:
     case = load_case(args.case)
     if args.fineness is not None and not args.fineness > 0:
         raise InputError("--fineness", args.fineness, "must be positive")
+    out = Path(args.out) if args.out else Path("out") / Path(args.case).stem
+    check_out(out)  # before the work, not after it
     a = analyse(case, fineness=args.fineness)
     res = build_results(a)
-    out = Path(args.out) if args.out else Path("out") / Path(args.case).stem
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
     write_outputs(out, files, None if args.no_vtu else a)
     if not args.quiet:
@@ -41,26 +50,213 @@ def run(args) -> int:
     return res.get("exit_code", 0)
 
 
-def write_outputs(out: Path, files: dict[str, str], analysis=None) -> None:
-    """Write everything into a temporary folder first, then move it in place: a failure leaves
-    nothing half-written."""
+# The names shaftcheck writes into an output folder. A folder holding only these (as plain files) is
+# taken to be an earlier output and is replaced as a whole; anything else in it stops the run (exit 2).
+OUTPUT_NAMES = frozenset({"results.json", "section.vtu", "verify.json"})
+
+# Test-only hook: seconds to pause after the results are written to the temporary folder and before
+# they are moved into place, so a test can send a signal or start a second run at that moment.
+PAUSE_ENV = "SHAFTCHECK_TEST_PAUSE_IN_WRITE"
+
+
+def _target(out: Path) -> Path:
+    """The folder actually replaced: a symbolic link to a folder is followed."""
+    return Path(os.path.realpath(out)) if os.path.islink(out) else out
+
+
+def check_out(out: Path, label: str | None = None) -> None:
+    """Refuse an output folder that cannot be written or must not be replaced, before any work is done.
+
+    Raises :class:`fem.errors.InputError` naming ``--out`` for: a name too long for the file system; a
+    path that exists and is not a folder; a read-only folder (the output folder or the one it would be
+    made in); the current folder or one of its parents; an existing folder holding anything but
+    shaftcheck's own output files (:data:`OUTPUT_NAMES`), a sub-folder called ``results.json``
+    included.
+    """
     out = Path(out)
-    if out.exists() and not out.is_dir():
-        raise InputError("--out", str(out), "exists and is not a folder")
-    parent = out.parent if str(out.parent) else Path(".")
+    label = str(out) if label is None else label
+
+    def bad(reason):
+        return InputError("--out", label, reason)
+
     try:
-        parent.mkdir(parents=True, exist_ok=True)
-        tmp = Path(tempfile.mkdtemp(prefix=".shaftcheck-", dir=parent))
+        lock = Path(os.path.abspath(_target(out))).parent
+        while not os.path.isdir(lock) and lock.parent != lock:
+            lock = lock.parent
+        with _locked(lock):  # the lock under which outputs are moved in: no half-swapped folder is seen
+            _check_out(out, bad)
     except OSError as exc:
-        raise InputError("--out", str(out), f"cannot be written ({exc.strerror})") from None
+        raise bad(f"cannot be used ({exc.strerror or exc})") from None
+
+
+def _check_out(out: Path, bad) -> None:
+    if os.path.islink(out) and not os.path.exists(out):
+        raise bad("is a broken symbolic link")
+    full = Path(os.path.abspath(_target(out)))
+    # the nearest existing folder on the way, and the names still to be made below it
+    base, missing = full, []
+    while not os.path.lexists(base):
+        missing.append(base.name)
+        base = base.parent
     try:
+        name_max = os.pathconf(base, "PC_NAME_MAX")
+        path_max = os.pathconf(base, "PC_PATH_MAX")
+    except (OSError, ValueError, AttributeError):
+        name_max, path_max = 255, 4096
+    for name in missing:
+        n = len(os.fsencode(name))
+        if n > name_max:
+            raise bad(f"a name of {n} bytes is too long for the file system (at most {name_max})")
+    n = len(os.fsencode(str(full / "results.json")))
+    if n > path_max:
+        raise bad(f"the path is too long for the file system ({n} bytes with the file name; at most {path_max})")
+    if not missing and not full.is_dir():
+        raise bad("exists and is not a folder")
+    if not base.is_dir():
+        raise bad(f"{str(base)!r} is not a folder")
+    if full.parent == full or Path(os.getcwd()).resolve().is_relative_to(full.resolve()):
+        raise bad("is the current folder or one of its parents; give a folder of its own")
+    writable = base if missing else full.parent
+    if not os.access(writable, os.W_OK | os.X_OK):
+        raise bad(f"cannot be written: the folder {str(writable)!r} is read-only")
+    if not missing:
+        if not os.access(full, os.W_OK | os.X_OK):
+            raise bad("is a read-only folder")
+        _check_only_ours(full, bad)
+
+
+def _check_only_ours(folder: Path, bad) -> None:
+    try:
+        entries = sorted(os.scandir(folder), key=lambda e: e.name)
+    except OSError as exc:
+        raise bad(f"cannot be read ({exc.strerror})") from None
+    for e in entries:
+        if e.name not in OUTPUT_NAMES:
+            raise bad(f"holds {e.name!r}, which shaftcheck did not write; an existing output folder is "
+                      "replaced as a whole, so give a new or empty folder")
+        if not e.is_file(follow_symlinks=False):
+            raise bad(f"holds {e.name!r}, which is not a plain file; remove it or give a new folder")
+
+
+def write_outputs(out: Path, files: dict[str, str], analysis=None) -> None:
+    """Write ``files`` (and ``section.vtu`` from ``analysis``) as the whole content of the folder ``out``.
+
+    Everything is written into a hidden temporary folder beside ``out`` first, then moved into place
+    under a lock on the parent folder: an earlier output there is replaced as a whole, never merged.
+    Failure or interruption (SIGINT, SIGTERM) leaves ``out`` as it was, or whole with the new results
+    if the signal came while they were being moved in, and no temporary folder behind. Two runs
+    writing to one ``out`` at once leave the complete output of one of them.
+    """
+    out = Path(out)
+    check_out(out)
+    target = _target(out)
+    parent = target.parent if str(target.parent) else Path(".")
+    tmp, made, done = None, [], False
+
+    def cleanup():
+        if tmp is not None:
+            shutil.rmtree(tmp, ignore_errors=True)
+        if not done:
+            for d in reversed(made):  # folders made for this run, innermost first, if still empty
+                try:
+                    d.rmdir()
+                except OSError:
+                    break
+
+    try:
+        with held():
+            made = _make_folders(parent)
+            tmp = _fresh_folder(parent, ".shaftcheck-")
         for name, text in files.items():
             (tmp / name).write_text(text, encoding="utf-8")
         if analysis is not None:
             write_fields_vtu(tmp / "section.vtu", analysis)
-        out.mkdir(parents=True, exist_ok=True)
-        for item in tmp.iterdir():
-            os.replace(item, out / item.name)
+        pause = os.environ.get(PAUSE_ENV)
+        if pause:
+            time.sleep(float(pause))
+        with held():
+            _move_in(tmp, target, lambda reason: InputError("--out", str(out), reason))
+            tmp, done = None, True
+    except OSError as exc:
+        raise InputError("--out", str(out), f"cannot be written ({exc.strerror or exc})") from None
     finally:
-        shutil.rmtree(tmp, ignore_errors=True)
+        try:
+            with held():
+                cleanup()
+        except Interrupted:
+            cleanup()
+            raise
+
+
+def _make_folders(folder: Path) -> list[Path]:
+    """Make ``folder`` and its missing parents; return the ones made, outermost first."""
+    missing = []
+    while not os.path.lexists(folder):
+        missing.append(folder)
+        folder = folder.parent
+    made = []
+    for d in reversed(missing):
+        try:
+            d.mkdir()
+        except FileExistsError:  # made meanwhile by another run
+            if not d.is_dir():
+                raise
+            continue
+        made.append(d)
+    return made
+
+
+def _fresh_folder(parent: Path, prefix: str) -> Path:
+    """A new empty folder with a unique hidden name (made with the usual permissions, unlike mkdtemp)."""
+    for _ in range(100):
+        d = parent / f"{prefix}{secrets.token_hex(6)}"
+        try:
+            d.mkdir()
+            return d
+        except FileExistsError:
+            continue
+    raise FileExistsError(f"no free temporary name in {parent}")
+
+
+def _move_in(tmp: Path, target: Path, bad) -> None:
+    """Put the folder ``tmp`` at ``target``, replacing an earlier output there, under a lock."""
+    parent = target.parent if str(target.parent) else Path(".")
+    with _locked(parent):
+        if not os.path.lexists(target):
+            os.rename(tmp, target)
+            return
+        if not target.is_dir() or target.is_symlink():
+            raise bad("exists and is not a folder")
+        _check_only_ours(target, bad)  # again: another program may have written there meanwhile
+        old = _fresh_folder(parent, ".shaftcheck-old-")
+        os.rename(target, old)  # onto an empty folder: replaces it
+        try:
+            os.rename(tmp, target)
+        except OSError:
+            os.rename(old, target)
+            raise
+        shutil.rmtree(old, ignore_errors=True)
+
+
+@contextmanager
+def _locked(folder: Path):
+    """An exclusive lock on ``folder`` (flock on the folder itself: no lock file is left behind).
+
+    Where there is no such lock (not POSIX, a file system without locks, a folder that cannot be
+    opened), the block runs unlocked: concurrent runs are then not kept apart."""
+    try:
+        if fcntl is None:
+            raise OSError("no flock here")
+        fd = os.open(folder, os.O_RDONLY)
+    except OSError:
+        yield
+        return
+    try:
+        try:
+            fcntl.flock(fd, fcntl.LOCK_EX)
+        except OSError:  # no locks on this file system
+            pass
+        yield
+    finally:
+        os.close(fd)  # releases the lock
 

@@ -1,7 +1,9 @@
 """The command line: ``shaftcheck <command> ...``. One entry point, one small module per command.
 
 Exit codes: 0 success, 2 bad input (one line on stderr naming the field and value), 3 the requested
-accuracy was not reached within the limits, 1 a verification check failed.
+accuracy was not reached within the limits, 1 a verification check failed, 130 / 143 interrupted by
+SIGINT / SIGTERM (one line on stderr; see compare/cli/interrupt.py), 4 no verdict (a sharp re-entrant
+corner leaves the stress unbounded; compare/checks/findings.py).
 """
 from __future__ import annotations
 
@@ -13,6 +15,7 @@ from fem.errors import InputError
 
 from .._version import __version__
 from . import cmd_run, cmd_verify
+from .interrupt import Interrupted, install_handlers
 
 EXIT_OK, EXIT_FAILED, EXIT_INPUT, EXIT_ACCURACY = 0, 1, 2, 3
 
@@ -32,6 +35,7 @@ def build_parser() -> argparse.ArgumentParser:
 
 
 def main(argv: list[str] | None = None) -> int:
+    restore_handlers = install_handlers()
     try:
         parser = build_parser()
         args = parser.parse_args(argv)
@@ -42,9 +46,14 @@ def main(argv: list[str] | None = None) -> int:
     except (InputError, OutOfRangeError) as exc:
         print(f"shaftcheck: error: {exc}", file=sys.stderr)
         return EXIT_INPUT
-    except KeyboardInterrupt:  # pragma: no cover
-        print("shaftcheck: interrupted", file=sys.stderr)
+    except Interrupted as exc:
+        print(f"shaftcheck: interrupted by {exc.name}; no partial output was left", file=sys.stderr)
+        return exc.exit_code
+    except KeyboardInterrupt:  # Ctrl+C where the handlers could not be installed (not the main thread)
+        print("shaftcheck: interrupted by SIGINT; no partial output was left", file=sys.stderr)
         return 130
+    finally:
+        restore_handlers()
 
 
 if __name__ == "__main__":  # pragma: no cover
