@@ -14,7 +14,7 @@ def register(sub) -> None:
     p = sub.add_parser("run", help="analyse one case file")
     p.add_argument("case", help="case file (TOML)")
     p.add_argument("--out", default=None, help="output folder for results.json and section.vtu (default: out/<case name>)")
-    p.add_argument("--fineness", type=float, default=None, help="override analysis.fineness (mesh density)")
+    p.add_argument("--fineness", default=None, help="override analysis.fineness (mesh density)")
     p.add_argument("--no-vtu", action="store_true", help="do not write the VTU file")
     p.add_argument("--quiet", action="store_true", help="print nothing on success")
     p.set_defaults(func=run)
@@ -27,9 +27,14 @@ def run(args) -> int:
     from .report import summary  # noqa: PLC0415
 
     case = load_case(args.case)
-    if args.fineness is not None and not args.fineness > 0:
+    fineness = option_number("--fineness", args.fineness)
+    if fineness is not None and not fineness > 0:
         raise InputError("--fineness", args.fineness, "must be positive")
-    a = analyse(case, fineness=args.fineness)
+    if case.analysis.materials:  # a bad material table is refused before the long solve, not after it
+        from .materials import read_table, table_path  # noqa: PLC0415
+
+        read_table(table_path(case))
+    a = analyse(case, fineness=fineness)
     res = a.results()
     out = Path(args.out) if args.out else Path("out") / Path(args.case).stem
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
@@ -38,6 +43,24 @@ def run(args) -> int:
         print(summary(res, case.units))
         print(f"\nwritten: {out / 'results.json'}" + ("" if args.no_vtu else f", {out / 'section.vtu'}"))
     return res.get("exit_code", 0)
+
+
+def option_number(name: str, text: str | None) -> float | None:
+    """A number given on the command line, finite; a word, NaN or infinity is an InputError naming
+    the option and echoing what was typed."""
+    import math  # noqa: PLC0415
+
+    from fem.errors import InputError  # noqa: PLC0415
+
+    if text is None:
+        return None
+    try:
+        v = float(text)
+    except ValueError:
+        raise InputError(name, text, "must be a number") from None
+    if not math.isfinite(v):
+        raise InputError(name, text, "must be a finite number")
+    return v
 
 
 def write_outputs(out: Path, files: dict[str, str], analysis=None) -> None:
