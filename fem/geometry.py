@@ -37,6 +37,7 @@ class Disk:
     label: str = field(default="", compare=False)  # where it came from, for error messages
 
     def validate(self, name: str) -> None:
+        _finite_point(f"{name}.center", self.center)
         _positive(f"{name}.radius", self.radius)
 
     def moved(self, dx, dy, deg):
@@ -55,8 +56,10 @@ class Ellipse:
     label: str = field(default="", compare=False)
 
     def validate(self, name: str) -> None:
+        _finite_point(f"{name}.center", self.center)
         _positive(f"{name}.semi_axes[0]", self.semi_axes[0])
         _positive(f"{name}.semi_axes[1]", self.semi_axes[1])
+        _finite_angle(f"{name}.rotation", self.rotation)  # gmsh crashes (segfault) on a NaN rotation
 
     def moved(self, dx, dy, deg):
         c = _rot(deg) @ np.asarray(self.center) + (dx, dy)
@@ -85,6 +88,8 @@ class Polygon:
         pts = np.asarray(self.points, dtype=float)
         if pts.ndim != 2 or pts.shape[1] != 2 or len(pts) < 3:
             raise InputError(f"{name}.points", _short(self.points), "needs at least three [x, y] points")
+        if not np.all(np.isfinite(pts)):
+            raise InputError(f"{name}.points", _short(self.points), "holds a value that is not a finite number")
         n = len(pts)
         for i in range(n):
             if np.linalg.norm(pts[(i + 1) % n] - pts[i]) <= 1e-12 * _scale(pts):
@@ -118,6 +123,7 @@ def rectangle(center, size, rotation=0.0, fillet=0.0, name="") -> Polygon:
     ``name`` is the field path used in error messages."""
     label, name = name, name or "rectangle"
     w, h = size
+    _finite_angle(f"{name}.rotation", rotation)
     _positive(f"{name}.size[0]", w)
     _positive(f"{name}.size[1]", h)
     if fillet < 0:
@@ -134,6 +140,7 @@ def polygon(points, rotation=0.0, fillets=(), name="") -> Polygon:
     pts = np.asarray(points, dtype=float)
     if pts.ndim != 2 or pts.shape[1] != 2 or len(pts) < 3:
         raise InputError(f"{name or 'polygon'}.points", _short(points), "needs at least three [x, y] points")
+    _finite_angle(f"{name or 'polygon'}.rotation", rotation)
     if rotation:
         c = pts.mean(axis=0)
         pts = (_rot(rotation) @ (pts - c).T).T + c
@@ -209,6 +216,8 @@ class Section:
             obj, _ = occ.cut(obj, cuts)
         occ.synchronize()
         surfaces = [t for d, t in obj if d == 2]
+        if self.kind == "custom" and cuts:
+            _check_cuts_touch(gmsh, self)
         if not surfaces:
             raise InputError("section", self.kind, "the cuts remove the whole section (nothing is left)")
         if len(surfaces) > 1 and not _faces_connected(gmsh, surfaces):
@@ -225,6 +234,9 @@ def round_section(diameter: float, bore: float | None = None) -> Section:
         _positive("section.bore", bore)
         if bore >= diameter:
             raise InputError("section.bore", bore, f"is not smaller than the diameter ({diameter:g} m)")
+        if (diameter - bore) / 2 < SLIVER * diameter:
+            raise InputError("section.bore", bore, f"leaves a wall of {(diameter - bore) / 2:.3g} m, a sliver thinner than "
+                             f"{SLIVER:g} of the diameter ({SLIVER * diameter:.3g} m) that cannot be meshed or trusted")
         steps.append(("cut", Disk((0.0, 0.0), bore / 2)))
     return Section(tuple(steps), kind="round", diameter=diameter, bore=bore or None)
 
@@ -242,12 +254,21 @@ def keyed_section(diameter: float, keyways: Sequence[Keyway], bore: float | None
         _positive(f"{f}.depth", k.depth)
         if k.fillet < 0:
             raise InputError(f"{f}.fillet", k.fillet, "must not be negative")
+        _finite_angle(f"{f}.angle", k.angle)
+        for what, v in (("width", k.width), ("depth", k.depth)):
+            if v < SLIVER * diameter:
+                raise InputError(f"{f}.{what}", v, f"is a sliver, below {SLIVER:g} of the diameter ({SLIVER * diameter:.3g} m): "
+                                 "it cannot be meshed or trusted")
         if k.width >= diameter:
             raise InputError(f"{f}.width", k.width, f"is not smaller than the shaft diameter ({diameter:g} m)")
         if k.depth >= R:
             raise InputError(f"{f}.depth", k.depth, f"reaches the shaft axis or beyond (radius {R:g} m)")
         if bore and R - k.depth <= bore / 2:
             raise InputError(f"{f}.depth", k.depth, f"cuts into the bore (bore radius {bore / 2:g} m, keyway bottom at {R - k.depth:g} m from the axis)")
+        if bore and R - k.depth - bore / 2 < SLIVER * diameter:
+            raise InputError(f"{f}.depth", k.depth, f"leaves a ligament of {R - k.depth - bore / 2:.3g} m between the keyway "
+                             f"bottom and the bore, a sliver thinner than {SLIVER:g} of the diameter "
+                             f"({SLIVER * diameter:.3g} m) that cannot be meshed or trusted")
         if k.fillet > k.width / 2 * (1 + 1e-12):
             raise InputError(f"{f}.fillet", k.fillet, f"is larger than half the keyway width ({k.width / 2:g} m)")
         if k.fillet > k.depth * (1 + 1e-12):
@@ -441,6 +462,46 @@ def analyse_boundary(gmsh, surfaces: list[int], length_scale: float) -> Boundary
 
 
 # ----------------------------------------------------------------------------- helpers
+
+#: Walls, ligaments and keyway sizes thinner than this fraction of the diameter are refused: at
+#: 1e-3·d the sliver is far below any real feature and near the geometry kernel's tolerances.
+SLIVER = 1e-3
+
+
+def _finite_angle(name: str, value) -> None:
+    if value is None or not np.isfinite(value):
+        raise InputError(name, value, "is not a finite angle")
+
+
+def _finite_point(name: str, p) -> None:
+    if not np.all(np.isfinite(np.asarray(p, dtype=float))):
+        raise InputError(name, list(p), "holds a value that is not a finite number")
+
+
+def _check_cuts_touch(gmsh, section: "Section") -> None:
+    """Refuse a cut that lies wholly outside the added primitives: it removes nothing, which the
+    user did not mean. Checked in a scratch gmsh model so the section's own model is untouched."""
+    current = gmsh.model.getCurrent()
+    gmsh.model.add("_cut_check")
+    try:
+        occ = gmsh.model.occ
+        adds = [(2, p.build(occ)) for op, p in section.steps if op == "add"]
+        area = sum(occ.getMass(2, t) for _, t in adds)
+        n = 0
+        for op, p in section.steps:
+            if op != "cut":
+                continue
+            tool = [(2, p.build(occ))]
+            common, _ = occ.intersect(adds, tool, removeObject=False, removeTool=True)
+            overlap = sum(occ.getMass(d, t) for d, t in common if d == 2)
+            if overlap <= 1e-9 * area:
+                raise InputError(p.label or f"section.cut[{n}]", None,
+                                 "lies wholly outside the section: it removes nothing (check its position and units)")
+            occ.remove(common, recursive=True)
+            n += 1
+    finally:
+        gmsh.model.remove()
+        gmsh.model.setCurrent(current)
 
 
 def _positive(name: str, value) -> None:

@@ -74,3 +74,34 @@ def test_keyed_section_with_two_keyways_and_a_bore_meshes_with_named_boundaries(
 def test_sharp_keyway_is_reported_as_a_reentrant_corner():
     sm = mesh_section(keyed_section(0.02, [Keyway(0.006, 0.0035, 0.0)]))
     assert len(sm.boundary.reentrant_sharp_corners) == 2
+
+
+# issue 8 items 5-7: non-finite angles (a NaN ellipse rotation crashed gmsh with a segfault), slivers
+# beside a bore, a cut that lies wholly outside the section
+
+
+@pytest.mark.parametrize("bad", [float("nan"), float("inf"), -float("inf")])
+def test_non_finite_rotations_and_angles_are_refused_before_gmsh(bad):
+    from fem.geometry import Ellipse
+
+    refused(lambda: custom_section([Ellipse((0.0, 0.0), (0.02, 0.01), bad, label="section.add[0].ellipse")]),
+            "section.add[0].ellipse.rotation")
+    refused(lambda: rectangle((0, 0), (0.01, 0.02), bad, name="section.cut[0].rectangle"), "section.cut[0].rectangle.rotation")
+    refused(lambda: polygon([(0, 0), (1, 0), (0, 1)], bad, name="section.add[0].polygon"), "section.add[0].polygon.rotation")
+    refused(lambda: keyed_section(0.025, [Keyway(0.008, 0.004, 0.0002, bad)]), "section.keyways[0].angle")
+
+
+def test_slivers_beside_a_bore_are_refused():
+    msg = refused(lambda: round_section(0.025, 0.02499999), "section.bore")
+    assert "sliver" in msg
+    msg = refused(lambda: keyed_section(0.025, [Keyway(0.008, 0.00749999, 0.0002)], bore=0.010), "section.keyways[0].depth")
+    assert "ligament" in msg
+    refused(lambda: keyed_section(0.025, [Keyway(1e-7, 0.004, 0.0)]), "section.keyways[0].width")
+    # a thin but real wall (2 % of the diameter) is accepted
+    assert round_section(0.025, 0.024).bore == 0.024
+
+
+def test_a_cut_wholly_outside_the_section_is_refused():
+    s = custom_section([Disk((0.0, 0.0), 0.02)], [Disk((0.05, 0.0), 0.002, label="section.cut[0].disk")])
+    msg = refused(lambda: mesh_section(s), "section.cut[0].disk")
+    assert "outside" in msg

@@ -16,14 +16,19 @@ Unknown keys are refused (a misspelt key silently ignored is a wrong answer). Ev
 from __future__ import annotations
 
 import math
+import os
+import re
+import stat
 import sys
 from dataclasses import dataclass, field
 from pathlib import Path
 
-from fem.errors import InputError
+from classic._validity import OutOfRangeError
+from classic.fatigue import surface_factor
+from fem.errors import InputError, escape_text
 from fem.geometry import Disk, Ellipse, Keyway, Section, custom_section, keyed_section, polygon, rectangle, round_section
 
-from .units import UnitSystem, to_si, unit_system
+from .units import UnitSystem, from_si, to_si, unit_system
 
 if sys.version_info >= (3, 11):
     import tomllib
@@ -98,6 +103,7 @@ class Case:
     fatigue: Fatigue = field(default_factory=Fatigue)
     #: (case-file field, length along the shaft [m]) of the features given a ``length``
     feature_lengths: list = field(default_factory=list)
+    expected: dict = field(default_factory=dict)  # [expected] of a verification case: {quantity: SI value}
 
 
 _TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue"}
@@ -112,18 +118,62 @@ _MATERIAL = {
 }
 _ANALYSIS = {"fineness", "accuracy", "max_dofs", "max_seconds", "design_factor", "materials"}
 _FATIGUE = {"kt_bending", "kt_bending_source", "kts_torsion", "kts_torsion_source", "notch_radius"}
+#: Quantities an [expected] table may hold (verification cases), with their dimension.
+EXPECTED_QUANTITIES = {"torsion.J": "second_moment", "torsion.tau_max": "stress", "shear.tau_max": "stress",
+                       "shear.kappa_x": "dimensionless", "shear.kappa_y": "dimensionless"}
+#: Case and material files are read only up to this size: a real one is a few kB.
+MAX_FILE_BYTES = 1_000_000
+#: G = E/(2(1 + ν)) holds for an isotropic linear-elastic solid (Timoshenko & Goodier, Theory of
+#: Elasticity, 3rd ed., 1970, Sec. 6). Data sheets round each of E, G and ν to two or three figures,
+#: which moves G by a few per cent at most; 5 % allows that and still catches E typed in place of G.
+MODULI_TOLERANCE = 0.05
+#: Absolute zero [°C] (the kelvin's definition: 0 K = −273.15 °C).
+ABSOLUTE_ZERO_C = -273.15
+
+
+def read_input_file(path: str | Path, field: str) -> str:
+    """The text of a case or material file: a regular file of at most :data:`MAX_FILE_BYTES`,
+    UTF-8. Anything else (a folder, a FIFO, a device such as /dev/zero, binary data) is refused
+    with an :class:`InputError` naming ``field`` before more than that is read."""
+    shown = str(path)
+    try:
+        st = os.stat(path)
+    except OSError as exc:
+        raise InputError(field, shown, f"cannot be read ({exc.strerror})") from None
+    if not stat.S_ISREG(st.st_mode):
+        what = "a folder" if stat.S_ISDIR(st.st_mode) else "not a regular file (a pipe, device or socket)"
+        raise InputError(field, shown, f"is {what}; give a TOML file")
+    if st.st_size > MAX_FILE_BYTES:
+        raise InputError(field, shown, f"is {st.st_size} bytes, more than the {MAX_FILE_BYTES} a case or material file may have")
+    try:
+        fd = os.open(path, os.O_RDONLY | getattr(os, "O_NONBLOCK", 0))
+        with os.fdopen(fd, "rb") as fh:
+            if not stat.S_ISREG(os.fstat(fh.fileno()).st_mode):  # swapped since the stat above
+                raise InputError(field, shown, "is not a regular file; give a TOML file")
+            raw = fh.read(MAX_FILE_BYTES + 1)
+    except OSError as exc:
+        raise InputError(field, shown, f"cannot be read ({exc.strerror})") from None
+    if len(raw) > MAX_FILE_BYTES:
+        raise InputError(field, shown, f"is more than the {MAX_FILE_BYTES} bytes a case or material file may have")
+    try:
+        return raw.decode("utf-8")
+    except UnicodeDecodeError as exc:
+        raise InputError(field, shown, f"is not UTF-8 text (byte {exc.start} cannot be read); is it a binary file?") from None
+
+
+def parse_toml(text: str, field: str, shown: str) -> dict:
+    """TOML text as a dict; malformed or pathologically nested input is an :class:`InputError`."""
+    try:
+        return tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        raise InputError(field, shown, f"is not valid TOML ({escape_text(str(exc))})") from None
+    except RecursionError:
+        raise InputError(field, shown, "is not usable TOML (arrays or tables nested too deeply)") from None
 
 
 def load_case(path: str | Path) -> Case:
     path = Path(path)
-    try:
-        text = path.read_text(encoding="utf-8")
-    except OSError as exc:
-        raise InputError("case file", str(path), f"cannot be read ({exc.strerror})") from None
-    try:
-        data = tomllib.loads(text)
-    except tomllib.TOMLDecodeError as exc:
-        raise InputError("case file", str(path), f"is not valid TOML ({exc})") from None
+    data = parse_toml(read_input_file(path, "case file"), "case file", str(path))
     case = parse_case(data)
     case.path = path
     return case
@@ -134,6 +184,10 @@ def parse_case(data: dict) -> Case:
     c = data.get("case", {})
     _known(c, _CASE, "case")
     units = unit_system(c.get("units"))
+    title = _text(c.get("title", "untitled case"), "case.title")
+    for key in ("description", "source"):
+        if key in c:
+            _text(c[key], f"case.{key}")
     if "section" not in data:
         raise InputError("section", None, "is missing: every case describes a section")
     section = parse_section(data["section"], units)
@@ -141,14 +195,84 @@ def parse_case(data: dict) -> Case:
     material = parse_material(data.get("material", {}), units)
     analysis = parse_analysis(data.get("analysis", {}))
     fatigue = parse_fatigue(data.get("fatigue", {}), units)
-    return Case(str(c.get("title", "untitled case")), units, section, loads, material, analysis, fatigue=fatigue,
+    expected = parse_expected(data["expected"], units) if "expected" in data else {}
+    _fatigue_needs_ultimate(loads, material, data.get("material", {}))
+    return Case(title, units, section, loads, material, analysis, fatigue=fatigue, expected=expected,
                 feature_lengths=parse_feature_lengths(data["section"], units))
+
+
+def parse_expected(d, units) -> dict:
+    """The [expected] table of a verification case: published exact values, each with its unit."""
+    _known(d, set(EXPECTED_QUANTITIES), "expected")
+    if not d:
+        raise InputError("expected", None, "is empty: give at least one exact value or leave the table out")
+    return {k: to_si(v, EXPECTED_QUANTITIES[k], f"expected.{k}", None) for k, v in d.items()}
+
+
+def _fatigue_needs_ultimate(loads: Loads, m: Material, raw: dict) -> None:
+    """An alternating load on a ductile part whose case gives strengths but not the ultimate: the
+    fatigue check (Se' = 0.5·Sut, Goodman, Gerber) cannot be made. Refused rather than left out."""
+    alternating = any(_nonzero(v) for v in loads.alternating.values()) or (
+        loads.rotating and (_nonzero(loads.bending) or _nonzero(loads.shear)))
+    gives_strength = m.yield_strength is not None or m.endurance_limit is not None
+    if alternating and gives_strength and m.kind == "ductile" and m.ultimate is None:
+        raise InputError("material.ultimate", None, "is needed: the loads alternate, and the fatigue check "
+                         "(Se' = 0.5·Sut, Goodman, Gerber) cannot be made without it; give the minimum ultimate "
+                         "tensile strength")
+
+
+def _nonzero(v) -> bool:
+    if v is None:
+        return False
+    if isinstance(v, tuple):
+        return any(x != 0 for x in v)
+    return v != 0
 
 
 # ----------------------------------------------------------------------------- section
 
 
 def parse_section(s: dict, units: UnitSystem | None) -> Section:
+    """The section, checked. A value refused by the geometry (which works in metres) is echoed as the
+    user wrote it, with its unit, and lengths in the reason are given in the case's units."""
+    if not isinstance(s, dict):
+        raise InputError("section", s, "must be a table: [section] with shape = \"round\", \"keyed\" or \"custom\"")
+    try:
+        return _parse_section(s, units)
+    except InputError as exc:
+        if not exc.field.startswith("section."):
+            raise
+        found, raw = _lookup(s, exc.field[len("section."):])
+        if not found:
+            raise
+        unit = units.label("length") if units is not None and isinstance(raw, (int, float)) else None
+        raise InputError(exc.field, raw, _lengths_in(exc.reason, units), unit) from None
+
+
+def _lookup(data, path: str):
+    """(True, value) at a field path like ``keyways[0].depth`` or ``cut[2].disk.center[1]`` in the
+    raw case data, else (False, None)."""
+    node = data
+    for part in re.findall(r"[^.\[\]]+|\[\d+\]", path):
+        try:
+            node = node[int(part[1:-1])] if part.startswith("[") else node[part]
+        except (KeyError, IndexError, TypeError, ValueError):
+            return False, None
+    return True, node
+
+
+def _lengths_in(reason: str, units: UnitSystem | None) -> str:
+    """Lengths the geometry wrote in metres ("(radius 0.0142875 m)") in the case's length unit."""
+    if units is None or units.length == "m":
+        return reason
+
+    def conv(m):
+        return f"{from_si(float(m.group(1)), 'length', units):.6g} {units.label('length')}"
+
+    return re.sub(r"(-?\d+(?:\.\d*)?(?:e[-+]?\d+)?) m\b", conv, reason)
+
+
+def _parse_section(s: dict, units: UnitSystem | None) -> Section:
     shape = s.get("shape")
     L = lambda key, v: to_si(v, "length", f"section.{key}", units)  # noqa: E731
     if shape == "round":
@@ -296,9 +420,7 @@ def parse_material(d: dict, units) -> Material:
         attr = "yield_strength" if key == "yield" else key
         v = d[key]
         if dim is None:
-            if not isinstance(v, str):
-                raise InputError(f"material.{key}", v, "must be a string")
-            setattr(m, attr, v)
+            setattr(m, attr, _text(v, f"material.{key}"))
             continue
         setattr(m, attr, to_si(v, dim, f"material.{key}", units))
     for key in ("shear_modulus", "elastic_modulus", "yield", "ultimate", "compressive_ultimate", "endurance_limit"):
@@ -308,6 +430,20 @@ def parse_material(d: dict, units) -> Material:
             raise InputError(f"material.{key}", d[key], "must be positive")
     if m.poisson is not None and not (-1.0 < m.poisson < 0.5):
         raise InputError("material.poisson", d["poisson"], "must lie between -1 and 0.5")
+    check_strengths(m, d, "material", units)
+    if m.temperature is not None and m.temperature < ABSOLUTE_ZERO_C:
+        raise InputError("material.temperature", d["temperature"], "is below absolute zero (−273.15 °C)",
+                         "°C" if isinstance(d["temperature"], (int, float)) else None)
+    if m.surface is not None:
+        check_surface(m.surface, "material.surface")
+    if m.shear_modulus is not None and m.elastic_modulus is not None and m.poisson is not None:
+        G = m.elastic_modulus / (2 * (1 + m.poisson))
+        if abs(m.shear_modulus - G) > MODULI_TOLERANCE * G:
+            raise InputError("material.shear_modulus", d["shear_modulus"],
+                             f"does not agree with elastic_modulus and poisson: E/(2(1 + ν)) = "
+                             f"{_stress_text(G, units)}, {abs(m.shear_modulus / G - 1):.0%} away (at most "
+                             f"{MODULI_TOLERANCE:.0%} allowed for rounding); give two of the three",
+                             _stress_unit(d["shear_modulus"], units))
     if m.shear_modulus is None and m.elastic_modulus is not None and m.poisson is not None:
         m.shear_modulus = m.elastic_modulus / (2 * (1 + m.poisson))
     if m.elastic_modulus is None and m.shear_modulus is not None and m.poisson is not None:
@@ -317,6 +453,36 @@ def parse_material(d: dict, units) -> Material:
     if m.reliability is not None and not (0 < m.reliability < 1):
         raise InputError("material.reliability", d["reliability"], "must be a fraction between 0 and 1 (e.g. 0.99)")
     return m
+
+
+def check_strengths(m: Material, raw: dict, where: str, units) -> None:
+    """Strengths that contradict each other: yield or endurance limit above the ultimate."""
+    u = m.ultimate
+    if u is None:
+        return
+    for key, attr in (("yield", "yield_strength"), ("endurance_limit", "endurance_limit")):
+        v = getattr(m, attr)
+        if v is not None and v > u:
+            raise InputError(f"{where}.{key}", raw[key], f"is above the ultimate strength ({_stress_text(u, units)}); "
+                             "a tensile strength cannot exceed the ultimate", _stress_unit(raw[key], units))
+
+
+def check_surface(v: str, field: str) -> None:
+    """The surface finish must be one the Marin surface factor knows (Shigley 9th ed., Table 6-2)."""
+    try:
+        surface_factor(500.0, v)
+    except OutOfRangeError:
+        raise InputError(field, v, "unknown surface; use ground, machined, cold-drawn, hot-rolled or as-forged") from None
+
+
+def _stress_text(v: float, units) -> str:
+    if units is None:
+        return f"{v / 1e6:.6g} MPa"
+    return f"{from_si(v, 'stress', units):.6g} {units.label('stress')}"
+
+
+def _stress_unit(raw, units):
+    return units.label("stress") if units is not None and isinstance(raw, (int, float)) else None
 
 
 def parse_analysis(d: dict) -> Analysis:
@@ -337,7 +503,7 @@ def parse_analysis(d: dict) -> Analysis:
         a.max_dofs = v
     if "max_seconds" in d:
         v = d["max_seconds"]
-        if isinstance(v, bool) or not isinstance(v, (int, float)) or not v > 0:
+        if isinstance(v, bool) or not isinstance(v, (int, float)) or not math.isfinite(v) or not v > 0:
             raise InputError("analysis.max_seconds", v, "must be a positive number of seconds")
         a.max_seconds = float(v)
     if "design_factor" in d:
@@ -346,7 +512,7 @@ def parse_analysis(d: dict) -> Analysis:
             raise InputError("analysis.design_factor", d["design_factor"], "must be at least 1")
         a.design_factor = v
     if "materials" in d:
-        if not isinstance(d["materials"], str):
+        if not isinstance(d["materials"], str) or not d["materials"].strip() or "\0" in d["materials"]:
             raise InputError("analysis.materials", d["materials"], "must be the path of a material table")
         a.materials = d["materials"]
     return a
@@ -368,7 +534,7 @@ def parse_fatigue(d: dict, units) -> Fatigue:
             raise InputError(f"fatigue.{key}_source", src, f"is required with fatigue.{key}: name the chart it was "
                              "read from (book, edition, figure)")
         setattr(f, key, v)
-        setattr(f, f"{key}_source", src.strip())
+        setattr(f, f"{key}_source", escape_text(src.strip()))
     if "notch_radius" in d:
         f.notch_radius = to_si(d["notch_radius"], "length", "fatigue.notch_radius", units)
         if not f.notch_radius > 0:
@@ -410,5 +576,15 @@ def _list(v, name):
 def _angle(v, name) -> float:
     """Degrees: a plain number is degrees; a string may carry deg or rad."""
     if isinstance(v, (int, float)) and not isinstance(v, bool):
+        if not math.isfinite(v):
+            raise InputError(name, v, "is not a finite angle")
         return float(v)
     return math.degrees(to_si(v, "angle", name, None))
+
+
+def _text(v, name) -> str:
+    """A piece of user text (title, name, source): a string, with control characters escaped so it
+    is safe to copy into results and print on a terminal."""
+    if not isinstance(v, str):
+        raise InputError(name, v, "must be a string")
+    return escape_text(v)

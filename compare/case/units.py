@@ -83,15 +83,32 @@ SYSTEMS = {
 def unit_system(name, field="case.units") -> UnitSystem | None:
     if name is None:
         return None
-    if name not in SYSTEMS:
+    if not isinstance(name, str) or name not in SYSTEMS:
         raise InputError(field, name, f"unknown unit system; use one of {', '.join(SYSTEMS)}")
     return SYSTEMS[name]
 
 
 def to_si(value, dimension: str, field: str, system: UnitSystem | None) -> float:
-    """A case-file value (number or 'number unit' string) as a float in SI for ``dimension``."""
+    """A case-file value (number or 'number unit' string) as a float in SI for ``dimension``.
+    Infinite and NaN values are refused however written (``inf``, ``"inf"``, ``"1e400 mm"``)."""
+    si = _to_si(value, dimension, field, system)
+    if not math.isfinite(si):
+        raise InputError(field, value, "is not a finite number", _unit_of(value, dimension, system))
+    return si
+
+
+def _unit_of(value, dimension, system):
+    """The unit a plain number takes from the case's unit system (for echoing it)."""
+    if isinstance(value, (int, float)) and not isinstance(value, bool) and system is not None:
+        return system.label(dimension) or None
+    return None
+
+
+def _to_si(value, dimension: str, field: str, system: UnitSystem | None) -> float:
     if isinstance(value, bool) or value is None:
         raise InputError(field, value, f"expected a {dimension.replace('_', ' ')}")
+    if isinstance(value, int) and abs(value) > 10**300:
+        raise InputError(field, value, "is far too large to be a number of this tool")
     if isinstance(value, (int, float)):
         if not math.isfinite(value):
             raise InputError(field, value, "is not a finite number")
@@ -120,6 +137,12 @@ def to_si(value, dimension: str, field: str, system: UnitSystem | None) -> float
 
 def _convert(text: str, dimension: str, field: str) -> float:
     u = ureg()
+    # pint evaluates powers: "1 mm**9**9**9" would run for ever. Units need small whole powers only.
+    powers = re.findall(r"(?:\*\*|\^)\s*\(?\s*[-+]?\s*([0-9.]*)", text)
+    if len(text) > 80 or re.search(r"(?:\*\*|\^)[^*^/a-zA-Z]*(?:\*\*|\^)", text) or any(
+            not p or len(p) > 2 for p in powers):
+        raise InputError(field, text, "cannot be read as a quantity with a unit (write a number and a unit, "
+                         "e.g. \"25 mm\", \"150 N*m\", \"1 mm**4\")")
     try:
         # number and unit apart: pint refuses offset units (°C) inside an expression like "80 degC"
         m = re.fullmatch(r"\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*?)\s*", text)

@@ -26,22 +26,16 @@ weakly on Poisson's ratio, and the case's value is used for every row.
 from __future__ import annotations
 
 import math
-import sys
 from dataclasses import replace
 from pathlib import Path
 
 import numpy as np
 
-from fem.errors import InputError
+from fem.errors import InputError, escape_text
 
-from ..case.case import Material, _known
+from ..case.case import ABSOLUTE_ZERO_C, Material, _known, _text, check_strengths, check_surface, parse_toml, read_input_file
 from ..case.units import to_si, unit_system
 from .checks import FATIGUE_CRITERIA, endurance, fe_fatigue, hand_path, static_check
-
-if sys.version_info >= (3, 11):
-    import tomllib
-else:  # pragma: no cover
-    import tomli as tomllib
 
 CLASSES = ("steel", "cast iron", "aluminium", "polymer", "other")
 _ROW = {"name", "class", "kind", "yield", "ultimate", "compressive_ultimate", "endurance_limit", "surface",
@@ -62,19 +56,17 @@ NOT_CHECKED_BY_CLASS = {
 
 
 def read_table(path: Path) -> tuple[dict, list[tuple[Material, dict]]]:
-    try:
-        text = path.read_text(encoding="utf-8")
-    except OSError as exc:
-        raise InputError("analysis.materials", str(path), f"cannot be read ({exc.strerror})") from None
-    try:
-        data = tomllib.loads(text)
-    except tomllib.TOMLDecodeError as exc:
-        raise InputError("analysis.materials", str(path), f"is not valid TOML ({exc})") from None
-    where = path.name
+    data = parse_toml(read_input_file(path, "analysis.materials"), "analysis.materials", str(path))
+    where = escape_text(path.name)
     _known(data, {"table", "material"}, where)
     head = data.get("table", {})
     _known(head, _TABLE, f"{where}: table")
     units = unit_system(head.get("units"), f"{where}: table.units")
+    for key in ("title", "note"):
+        if key in head:
+            head[key] = _text(head[key], f"{where}: table.{key}")
+    if "illustrative" in head and not isinstance(head["illustrative"], bool):
+        raise InputError(f"{where}: table.illustrative", head["illustrative"], "must be true or false")
     rows = data.get("material")
     if not isinstance(rows, list) or not rows:
         raise InputError(f"{where}: material", rows, "the table needs at least one [[material]] row")
@@ -84,13 +76,15 @@ def read_table(path: Path) -> tuple[dict, list[tuple[Material, dict]]]:
         _known(r, _ROW, f)
         if not isinstance(r.get("name"), str) or not r["name"].strip():
             raise InputError(f"{f}.name", r.get("name"), "is required (a text)")
+        if "note" in r:
+            r["note"] = _text(r["note"], f"{f}.note")
         cls = r.get("class", "other")
         if cls not in CLASSES:
             raise InputError(f"{f}.class", cls, f"must be one of {', '.join(CLASSES)}")
         kind = r.get("kind", "ductile")
         if kind not in ("ductile", "brittle"):
             raise InputError(f"{f}.kind", kind, "must be \"ductile\" or \"brittle\"")
-        m = Material(name=r["name"].strip(), kind=kind)
+        m = Material(name=escape_text(r["name"].strip()), kind=kind)
         for key, attr in (("yield", "yield_strength"), ("ultimate", "ultimate"),
                           ("compressive_ultimate", "compressive_ultimate"), ("endurance_limit", "endurance_limit")):
             if key in r:
@@ -98,21 +92,25 @@ def read_table(path: Path) -> tuple[dict, list[tuple[Material, dict]]]:
                 if not v > 0:
                     raise InputError(f"{f}.{key}", r[key], "must be positive")
                 setattr(m, attr, v)
+        check_strengths(m, r, f, units)
         if "surface" in r:
             if not isinstance(r["surface"], str):
                 raise InputError(f"{f}.surface", r["surface"], "must be a string")
+            check_surface(r["surface"], f"{f}.surface")
             m.surface = r["surface"]
         info = {"class": cls, "note": r.get("note")}
         if "max_service_temperature" in r:
             v = r["max_service_temperature"]
             if isinstance(v, bool) or not isinstance(v, (int, float)) or not math.isfinite(v):
                 raise InputError(f"{f}.max_service_temperature", v, "must be a plain number in °C")
+            if v < ABSOLUTE_ZERO_C:
+                raise InputError(f"{f}.max_service_temperature", v, "is below absolute zero (−273.15 °C)", "°C")
             info["max_service_temperature"] = float(v)
         if m.yield_strength is None and m.ultimate is None:
             raise InputError(f"{f}", m.name, "gives neither yield nor ultimate: nothing can be checked")
         out.append((m, info))
     return {"title": head.get("title"), "illustrative": bool(head.get("illustrative", False)),
-            "note": head.get("note"), "file": str(path)}, out
+            "note": head.get("note"), "file": escape_text(str(path))}, out
 
 
 def table_path(case) -> Path:

@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 import json
+import math
 import os
 import secrets
 import shutil
@@ -17,6 +18,7 @@ except ImportError:  # not POSIX: outputs are moved in without a lock (see _lock
     fcntl = None
 
 from ..case.case import load_case
+from ..checks.materials import read_table, table_path
 from ..output.report import summary
 from ..output.results import build_results
 from ..output.vtu import write_fields_vtu
@@ -28,7 +30,7 @@ def register(sub) -> None:
     p = sub.add_parser("run", help="analyse one case file")
     p.add_argument("case", help="case file (TOML)")
     p.add_argument("--out", default=None, help="output folder for results.json and section.vtu (default: out/<case name>)")
-    p.add_argument("--fineness", type=float, default=None, help="override analysis.fineness (mesh density)")
+    p.add_argument("--fineness", default=None, help="override analysis.fineness (mesh density)")
     p.add_argument("--no-vtu", action="store_true", help="do not write the VTU file")
     p.add_argument("--quiet", action="store_true", help="print nothing on success")
     p.set_defaults(func=run)
@@ -36,11 +38,14 @@ def register(sub) -> None:
 
 def run(args) -> int:
     case = load_case(args.case)
-    if args.fineness is not None and not args.fineness > 0:
+    fineness = option_number("--fineness", args.fineness)
+    if fineness is not None and not fineness > 0:
         raise InputError("--fineness", args.fineness, "must be positive")
+    if case.analysis.materials:  # a bad material table is refused before the long solve, not after it
+        read_table(table_path(case))
     out = Path(args.out) if args.out else Path("out") / Path(args.case).stem
     check_out(out)  # before the work, not after it
-    a = analyse(case, fineness=args.fineness)
+    a = analyse(case, fineness=fineness)
     res = build_results(a)
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
     write_outputs(out, files, None if args.no_vtu else a)
@@ -48,6 +53,20 @@ def run(args) -> int:
         print(summary(res, case.units))
         print(f"\nwritten: {out / 'results.json'}" + ("" if args.no_vtu else f", {out / 'section.vtu'}"))
     return res.get("exit_code", 0)
+
+
+def option_number(name: str, text: str | None) -> float | None:
+    """A number given on the command line, finite; a word, NaN or infinity is an InputError naming
+    the option and echoing what was typed."""
+    if text is None:
+        return None
+    try:
+        v = float(text)
+    except ValueError:
+        raise InputError(name, text, "must be a number") from None
+    if not math.isfinite(v):
+        raise InputError(name, text, "must be a finite number")
+    return v
 
 
 # The names shaftcheck writes into an output folder. A folder holding only these (as plain files) is
