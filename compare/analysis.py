@@ -111,6 +111,10 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         from .accuracy_step import accuracy_step  # noqa: PLC0415
 
         accuracy_step(a)
+    else:
+        from .selfchecks import self_checks  # noqa: PLC0415
+
+        a.extra["checks"] = self_checks(a, target=case.analysis.accuracy)
     from .combined import combined_step  # noqa: PLC0415
 
     t5 = time.perf_counter()

@@ -305,8 +305,9 @@ def parse_analysis(d: dict) -> Analysis:
     a = Analysis()
     if "fineness" in d:
         a.fineness = to_si(d["fineness"], "dimensionless", "analysis.fineness", None)
-        if not a.fineness > 0:
-            raise InputError("analysis.fineness", d["fineness"], "must be positive")
+        from .accuracy import check_fineness  # noqa: PLC0415
+
+        check_fineness("analysis.fineness", a.fineness, d["fineness"])
     if "accuracy" in d:
         a.accuracy = to_si(d["accuracy"], "dimensionless", "analysis.accuracy", None)
         if not 0 < a.accuracy < 0.5:

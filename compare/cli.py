@@ -1,14 +1,15 @@
 """The command line: ``shaftcheck <command> ...``. One entry point, one small module per command.
 
 Exit codes: 0 success, 2 bad input (one line on stderr naming the field and value), 3 the requested
-accuracy was not reached within the limits, 1 a verification check failed.
+accuracy was not reached within the limits, a self-check failed, a linear solve did not converge or a
+limit stopped the run (the last two: one line on stderr, nothing written), 1 a verification check failed.
 """
 from __future__ import annotations
 
 import argparse
 import sys
 
-from fem.errors import InputError
+from fem.errors import InputError, LimitError, SolveError
 
 from . import __version__
 
@@ -44,6 +45,12 @@ def main(argv: list[str] | None = None) -> int:
     except (InputError, OutOfRangeError) as exc:
         print(f"shaftcheck: error: {exc}", file=sys.stderr)
         return EXIT_INPUT
+    except SolveError as exc:
+        print(f"shaftcheck: solve failed: {exc}", file=sys.stderr)
+        return EXIT_ACCURACY
+    except LimitError as exc:
+        print(f"shaftcheck: stopped: {exc}", file=sys.stderr)
+        return EXIT_ACCURACY
     except KeyboardInterrupt:  # pragma: no cover
         print("shaftcheck: interrupted", file=sys.stderr)
         return 130

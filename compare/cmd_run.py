@@ -27,8 +27,10 @@ def run(args) -> int:
     from .report import summary  # noqa: PLC0415
 
     case = load_case(args.case)
-    if args.fineness is not None and not args.fineness > 0:
-        raise InputError("--fineness", args.fineness, "must be positive")
+    if args.fineness is not None:
+        from .accuracy import check_fineness  # noqa: PLC0415
+
+        check_fineness("--fineness", args.fineness)
     a = analyse(case, fineness=args.fineness)
     res = a.results()
     out = Path(args.out) if args.out else Path("out") / Path(args.case).stem
