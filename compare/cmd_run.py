@@ -21,8 +21,6 @@ def register(sub) -> None:
 
 
 def run(args) -> int:
-    from fem.errors import InputError  # noqa: PLC0415
-
     from .analysis import analyse  # noqa: PLC0415
     from .report import summary  # noqa: PLC0415
 

@@ -137,10 +137,11 @@ def accuracy_lines(res: dict) -> list[str]:
     tgt = f"{100 * acc['target']:.3g} %"
     bad_checks = [c for c in res.get("checks", []) if not c["passed"]]
     if acc["met"]:
-        head = (f"Accuracy: the results below are within {tgt} (target {tgt}); the largest estimated error is "
-                f"{100 * acc['achieved']:.2g} %, on {LABELS.get(acc['governing_quantity'], acc['governing_quantity'])}")
+        head = (f"Accuracy: target {tgt} reached — the numbers above are estimated to be within "
+                f"{100 * acc['achieved']:.2g} % of the exact solution of this 2-D model (largest on "
+                f"{LABELS.get(acc['governing_quantity'], acc['governing_quantity'])})")
     else:
-        head = f"Accuracy: NOT SHOWN to be within the target {tgt}: do not rely on these numbers to that accuracy"
+        head = f"Accuracy: NOT SHOWN to be within the target {tgt}: do not rely on the numbers above to that accuracy"
     out = [head]
     for c in bad_checks:
         out.append(f"  SELF-CHECK FAILED: {c['name']} = {c['value']!s} (limit {c['limit']!s}): the solution is wrong; "
@@ -163,5 +164,5 @@ def accuracy_lines(res: dict) -> list[str]:
         trust = "within the target" if ok else "ABOVE the target"
         if bad_checks or not acc.get("meshes_distinct", True):
             trust = "not to be trusted (see above)"
-        out.append(f"  {LABELS.get(key, key):<16} error at most about {100 * v['gci']:.2g} %{rel}: {trust}")
+        out.append(f"  {LABELS.get(key, key):<16} estimated error up to {100 * v['gci']:.2g} %{rel}: {trust}")
     return out
