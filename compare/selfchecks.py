@@ -12,13 +12,15 @@ import math
 import numpy as np
 
 #: The stress-function J is a lower bound and the warping J an upper bound of the exact J of the
-#: meshed domain (complementary and potential energy, Timoshenko & Goodier, Theory of Elasticity,
-#: 3rd ed., §§104–105, from memory for the section numbers). Both are compared on the mesh (before the
-#: boundary correction, which is an estimate and obeys no bound). Round-off allowance: the linear
-#: solves are checked to a relative residual of 1e-9 and the energies err by its square; the P2
-#: quadrature on curved elements is not exact, measured below 1e-10 relative on the verification
-#: cases. 1e-8 relative is far above both and far below any discretisation gap that matters.
-BRACKET_ROUNDOFF = 1e-8
+#: meshed domain (minimum complementary and minimum potential energy; Timoshenko & Goodier, Theory of
+#: Elasticity, 3rd ed., chapter 10, from memory for the section). Both are compared on the mesh
+#: (before the boundary correction, which is an estimate and obeys no bound). Round-off allowance:
+#: BRACKET_ROUNDOFF × max(1, Ip/J). The warping J is the polar moment Ip less a warping term; on an
+#: open thin-walled section Ip is thousands of times J, and the round-off, the quadrature error of
+#: curved elements and the solve tolerance (relative residual 1e-9) in that difference grow with the
+#: ratio (measured: −1.3e-8 on a half tube with t/R = 0.02, Ip/J ≈ 7500, every solve converged). The
+#: failures this check is for are per cent, not parts per billion.
+BRACKET_ROUNDOFF = 1e-9
 
 #: The two peak values (stress function, warping function) may each carry the estimated error of
 #: the peak (its GCI) and in opposite directions: they may part by twice it. Without a study the
@@ -56,8 +58,9 @@ def self_checks(a, estimates: dict | None = None, target: float | None = None, s
     # --- J bracket on the mesh: J_warping ≥ J (beyond round-off)
     if math.isfinite(tr.J_warping_mesh):
         gap = (tr.J_warping_mesh - tr.J_mesh) / abs(tr.J_mesh)
-        out.append(_check("J bracket: (J_warping − J_stress_function)/J on the mesh", gap, -BRACKET_ROUNDOFF,
-                          gap >= -BRACKET_ROUNDOFF,
+        allow = BRACKET_ROUNDOFF * max(1.0, abs(a.props.polar / tr.J_mesh))
+        out.append(_check("J bracket: (J_warping − J_stress_function)/J on the mesh", gap, -allow,
+                          gap >= -allow,
                           "the warping J is an upper bound and the stress-function J a lower bound of the exact J: "
                           "a negative gap beyond round-off means a failed solve"))
     # --- the two torsion peaks agree within the estimated error

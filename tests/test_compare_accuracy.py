@@ -175,7 +175,7 @@ def test_every_run_records_its_self_checks(tmp_path, run_cli):
 def test_a_failed_self_check_is_never_met(tmp_path, run_cli, monkeypatch):
     import compare.selfchecks as sc
 
-    monkeypatch.setattr(sc, "BRACKET_ROUNDOFF", -1.0)  # demand a gap of more than 100 %: must fail
+    monkeypatch.setattr(sc, "BRACKET_ROUNDOFF", -1.0)  # demand a gap of more than Ip/J: must fail
     code, out, err, res = run(tmp_path, run_cli, KEYED)
     assert code == 3
     assert res["accuracy"]["met"] is False and "self-check failed" in res["accuracy"]["not_met_because"][0]
