@@ -57,5 +57,30 @@ def main(targets):
                       flush=True)
 
 
+
+
+def keyed_runaway(rd=0.01, targets=("0.1 %",), reference="0.005 %"):
+    """A keyed shaft with fillet r/d = 0.01 (no exact value): the estimate at each target against the
+    difference from a much finer run (self-consistency only, not an outside value)."""
+    from compare.case import parse_case  # noqa: PLC0415
+
+    def case(acc):
+        return parse_case({"case": {"units": "mm-N-MPa"},
+                           "section": {"shape": "keyed", "diameter": 30,
+                                       "keyways": [{"width": 8, "depth": 4, "fillet": 30 * rd}]},
+                           "loads": {"torque": "100 N*m"}, "material": {"shear_modulus": "80 GPa"},
+                           "analysis": {"accuracy": acc, "max_seconds": 1200, "max_dofs": 1_000_000}})
+
+    ref = analyse(case(reference)).results()["torsion"]["tau_max"]
+    for acc in targets:
+        res = analyse(case(acc)).results()
+        c = res["convergence"]["tau_max"]
+        err = abs(res["torsion"]["tau_max"] - ref) / ref
+        print(f"keyed r/d={rd:<6} {acc:>7} tau_max  DOFs {res['mesh']['dofs']:7d}  difference from the {reference} run "
+              f"{err:9.2e}  GCI {c['gci']:9.2e}  p_obs {c['observed_order'] or float('nan'):6.2f}  "
+              f"{'covered' if c['gci'] >= err else 'NOT covered'}", flush=True)
+
+
 if __name__ == "__main__":
     main(sys.argv[1:] or ["0.1 %", "0.01 %"])
+    keyed_runaway()
