@@ -13,6 +13,7 @@ from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
 from .pairs.shear_step import shear_step
 from .solve.accuracy_step import accuracy_step
+from .solve.selfchecks import self_checks
 
 
 def analyse(case: Case, fineness: float | None = None, study: bool = True) -> Analysis:
@@ -24,6 +25,8 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     shear_step(a)
     if a.study is not None:
         accuracy_step(a)
+    else:
+        a.extra["checks"] = self_checks(a, target=case.analysis.accuracy)
     t5 = time.perf_counter()
     combined_step(a)
     a.seconds["combined"] = time.perf_counter() - t5

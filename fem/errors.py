@@ -61,3 +61,13 @@ class InputError(ValueError):
         if value is not None:
             head += f" = {show_value(value)}" + (f" {unit}" if unit and not isinstance(value, str) else "")
         super().__init__(f"{head}: {escape_text(str(reason))}")
+
+
+class SolveError(RuntimeError):
+    """A linear solve that did not reach its residual tolerance (never used silently). ``str()`` is
+    the one line the command line prints; the exit code is 3 (no trustworthy result)."""
+
+
+class LimitError(RuntimeError):
+    """A limit of the case (analysis.max_seconds, analysis.max_dofs) stopped the run before it had a
+    result it can stand behind. ``str()`` is the one line the command line prints; exit code 3."""

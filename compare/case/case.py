@@ -485,13 +485,34 @@ def _stress_unit(raw, units):
     return units.label("stress") if units is not None and isinstance(raw, (int, float)) else None
 
 
+#: Bounds of ``analysis.fineness`` / ``--fineness``. Below 0.25 the global size is more than a
+#: fifth of the section and the study's coarsest mesh (r² coarser) has under three elements across
+#: it: the boundary and curvature sizes then decide the mesh, and the study's meshes stop being
+#: refined by the ratio. Above 16 (over 300 elements across at the start, before any adaptive
+#: refinement) the first mesh alone passes the default max_dofs on a keyed section; the adaptive
+#: refinement, not the starting density, is the way to a finer answer.
+FINENESS_RANGE = (0.25, 16.0)
+
+
+def check_fineness(name: str, value, as_written=None) -> float:
+    """``value`` if it is within :data:`FINENESS_RANGE`, else an InputError naming ``name``."""
+    lo, hi = FINENESS_RANGE
+    try:
+        v = float(value)
+    except (TypeError, ValueError):
+        v = math.nan
+    if not (math.isfinite(v) and lo <= v <= hi):
+        raise InputError(name, value if as_written is None else as_written,
+                         f"must be between {lo:g} and {hi:g} (elements across the section relative to the default)")
+    return v
+
+
 def parse_analysis(d: dict) -> Analysis:
     _known(d, _ANALYSIS, "analysis")
     a = Analysis()
     if "fineness" in d:
         a.fineness = to_si(d["fineness"], "dimensionless", "analysis.fineness", None)
-        if not a.fineness > 0:
-            raise InputError("analysis.fineness", d["fineness"], "must be positive")
+        check_fineness("analysis.fineness", a.fineness, d["fineness"])
     if "accuracy" in d:
         a.accuracy = to_si(d["accuracy"], "dimensionless", "analysis.accuracy", None)
         if not 0 < a.accuracy < 0.5:

@@ -54,7 +54,7 @@ def findings_step(a) -> None:
     acc = a.extra.get("accuracy")
     if acc is not None and not acc.get("met"):
         out.append({"code": "accuracy_not_met", "target": acc.get("target"), "achieved": acc.get("achieved"),
-                    "limited_by": acc.get("limited_by")})
+                    "limited_by": acc.get("limited_by"), "because": list(acc.get("not_met_because") or [])})
     for ch in cut_connectivity(a.case.section):
         out.append({"code": "open_section", **ch})
     width = a.case.section.length_scale

@@ -23,6 +23,7 @@ from ..output.report import summary
 from ..output.results import build_results
 from ..output.vtu import write_fields_vtu
 from ..pipeline import analyse
+from ..case.case import check_fineness
 from .interrupt import Interrupted, held
 
 
@@ -39,8 +40,8 @@ def register(sub) -> None:
 def run(args) -> int:
     case = load_case(args.case)
     fineness = option_number("--fineness", args.fineness)
-    if fineness is not None and not fineness > 0:
-        raise InputError("--fineness", args.fineness, "must be positive")
+    if fineness is not None:
+        fineness = check_fineness("--fineness", fineness, as_written=args.fineness)
     if case.analysis.materials:  # a bad material table is refused before the long solve, not after it
         read_table(table_path(case))
     out = Path(args.out) if args.out else Path("out") / Path(args.case).stem

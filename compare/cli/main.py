@@ -1,9 +1,10 @@
 """The command line: ``shaftcheck <command> ...``. One entry point, one small module per command.
 
 Exit codes: 0 success, 2 bad input (one line on stderr naming the field and value), 3 the requested
-accuracy was not reached within the limits, 1 a verification check failed, 130 / 143 interrupted by
-SIGINT / SIGTERM (one line on stderr; see compare/cli/interrupt.py), 4 no verdict (a sharp re-entrant
-corner leaves the stress unbounded; compare/checks/findings.py).
+accuracy was not reached within the limits, a self-check failed, a linear solve did not converge or a
+limit stopped the run (the last two: one line on stderr, nothing written), 1 a verification check failed,
+130 / 143 interrupted by SIGINT / SIGTERM (one line on stderr; see compare/cli/interrupt.py), 4 no verdict
+(a sharp re-entrant corner leaves the stress unbounded; compare/checks/findings.py).
 """
 from __future__ import annotations
 
@@ -11,7 +12,7 @@ import argparse
 import sys
 
 from classic._validity import OutOfRangeError
-from fem.errors import InputError
+from fem.errors import InputError, LimitError, SolveError
 
 from .._version import __version__
 from . import cmd_run, cmd_verify
@@ -46,6 +47,12 @@ def main(argv: list[str] | None = None) -> int:
     except (InputError, OutOfRangeError) as exc:
         print(f"shaftcheck: error: {exc}", file=sys.stderr)
         return EXIT_INPUT
+    except SolveError as exc:
+        print(f"shaftcheck: solve failed: {exc}", file=sys.stderr)
+        return EXIT_ACCURACY
+    except LimitError as exc:
+        print(f"shaftcheck: stopped: {exc}", file=sys.stderr)
+        return EXIT_ACCURACY
     except Interrupted as exc:
         print(f"shaftcheck: interrupted by {exc.name}; no partial output was left", file=sys.stderr)
         return exc.exit_code

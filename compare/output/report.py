@@ -104,9 +104,10 @@ def warning_text(w: dict, f: Fmt) -> str:
                 "has detected its own failure; its numbers are not checked results.")
     if code == "accuracy_not_met":
         ach = "unknown" if w.get("achieved") is None else f"{100 * w['achieved']:.3g} %"
-        why = f" ({w['limited_by']})" if w.get("limited_by") else ""
-        return (f"ACCURACY NOT MET: target {100 * w['target']:.3g} %, estimated error {ach}{why}: the numbers carry "
-                "that error, not the target.")
+        reasons = list(w.get("because") or []) or ([w["limited_by"]] if w.get("limited_by") else [])
+        why = f" ({'; '.join(reasons)})" if reasons else ""
+        return (f"ACCURACY TARGET NOT SHOWN: target {100 * w['target']:.3g} %, estimated error {ach}{why}: the numbers "
+                "carry that error at best, not the target.")
     if code == "open_section":
         what = w.get("label") or f"cut step {w['step']}"
         return (f"OPEN SECTION: {what} joins a hole of the section to the outside (holes: "
@@ -215,21 +216,38 @@ LABELS = {"J": "J", "tau_max": "torsion τmax", "shear_tau_max": "shear τmax", 
 
 
 def accuracy_lines(res: dict) -> list[str]:
+    """What the designer needs: how big the error can be, and whether the numbers can be trusted to
+    the target. The technical terms (observed order, asymptotic range) stay in results.json."""
     acc, conv = res["accuracy"], res.get("convergence", {})
-    head = "MET" if acc["met"] else "NOT MET"
-    ach = f"{100 * acc['achieved']:.3g} %" if acc["achieved"] is not None else "unknown"
-    out = [f"Accuracy: target {100 * acc['target']:.3g} % — {head} (largest GCI {ach}, {acc['governing_quantity']})",
-           f"  meshes of the study: {', '.join(str(d) for d in acc['meshes'])} DOFs (ratio {acc['refinement_ratio']}), "
-           f"{acc['adaptive_steps']} adaptive step(s) before it"]
+    tgt = f"{100 * acc['target']:.3g} %"
+    bad_checks = [c for c in res.get("checks", []) if not c["passed"]]
+    if acc["met"]:
+        head = (f"Accuracy: target {tgt} reached — the numbers above are estimated to be within "
+                f"{100 * acc['achieved']:.2g} % of the exact solution of this 2-D model (largest on "
+                f"{LABELS.get(acc['governing_quantity'], acc['governing_quantity'])})")
+    else:
+        head = f"Accuracy: NOT SHOWN to be within the target {tgt}: do not rely on the numbers above to that accuracy"
+    out = [head]
+    for c in bad_checks:
+        out.append(f"  SELF-CHECK FAILED: {c['name']} = {c['value']!s} (limit {c['limit']!s}): the solution is wrong; "
+                   "no number above can be trusted")
+    if not acc.get("meshes_distinct", True):
+        out.append("  the meshes of the study are not refined by the stated ratio: the error is unknown")
     if acc.get("limited_by"):
-        out.append(f"  refinement stopped: {acc['limited_by']}; the results above carry the error shown, not the target")
+        out.append(f"  refinement stopped: {acc['limited_by']}; the errors below apply, not the target")
+    out.append(f"  meshes compared: {', '.join(str(d) for d in acc['meshes'])} unknowns; "
+               f"{acc['adaptive_steps']} adaptive step(s) before them")
     for key, v in conv.items():
-        gci = f"{100 * v['gci']:.2g} %" if v["gci"] is not None else "—"
-        p = f"{v['observed_order']:.2f}" if v["observed_order"] is not None else "—"
-        rel = " of √A" if v.get("relative_to", "").startswith("section") else ""
-        asym = "" if v.get("asymptotic") else ", not in the asymptotic range"
         if key == "tau_max_corner":
-            out.append(f"  {LABELS[key]:<16} {v['status']}: no value is given")
+            out.append(f"  {LABELS[key]:<16} grows without bound as the mesh is refined: no value is given")
             continue
-        out.append(f"  {LABELS.get(key, key):<16} GCI {gci}{rel}, observed order {p} ({v['status']}{asym})")
+        rel = " of the section size" if v.get("relative_to", "").startswith("section") else ""
+        if v["gci"] is None:
+            out.append(f"  {LABELS.get(key, key):<16} error unknown (the meshes do not converge on it)")
+            continue
+        ok = v["gci"] <= acc["target"]
+        trust = "within the target" if ok else "ABOVE the target"
+        if bad_checks or not acc.get("meshes_distinct", True):
+            trust = "not to be trusted (see above)"
+        out.append(f"  {LABELS.get(key, key):<16} estimated error up to {100 * v['gci']:.2g} %{rel}: {trust}")
     return out
