@@ -79,6 +79,18 @@ SYSTEMS = {
 }
 
 
+#: Significant digits a converted dimensional value keeps (lengths, forces, moments, stresses):
+#: far beyond any drawing or data sheet, and enough to give the same float for the same quantity in
+#: any unit system (0.6 in and 15.24 mm both become 0.01524 m), so the same shaft gets the same mesh.
+SIGNIFICANT_DIGITS = 12
+_ROUNDED = {"length", "area", "second_moment", "force", "moment", "stress"}
+
+
+def round_significant(x: float, digits: int = SIGNIFICANT_DIGITS) -> float:
+    """``x`` rounded to ``digits`` significant decimal digits (the nearest float to that decimal)."""
+    return float(f"{x:.{digits - 1}e}") if math.isfinite(x) and x != 0.0 else x
+
+
 def unit_system(name, field="case.units") -> UnitSystem | None:
     if name is None:
         return None
@@ -133,7 +145,8 @@ def _convert(text: str, dimension: str, field: str) -> float:
             return float(q.to("degC").magnitude)
         if dimension == "dimensionless":
             return float(q.to("dimensionless").magnitude)
-        return float(q.to(target).magnitude)
+        v = float(q.to(target).magnitude)
+        return round_significant(v) if dimension in _ROUNDED else v
     except Exception:
         raise InputError(field, text, f"is not a {dimension.replace('_', ' ')} (expected units like {target})") from None
 
