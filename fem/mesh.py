@@ -84,9 +84,10 @@ class Frame:
 
 
 def section_frame(section: Section) -> Frame:
-    """The section's own frame: origin at the centre of the bounding box of its added primitives
-    (the shaft axis for round and keyed sections), scale its length scale (the diameter, or the
-    largest extent of the added primitives). Both move and scale with the section."""
+    """The section's own frame: origin at the centre of the box around its added primitives
+    (disk and ellipse centres, polygon points; the shaft axis for round and keyed sections), scale
+    its length scale (the diameter, or the largest extent of the added primitives). Both move and
+    scale with the section."""
     lo, hi = [], []
     for op, p in section.steps:
         if op != "add":
