@@ -1,7 +1,7 @@
 """Same shaft, same answer: unit system, translation, uniform scale, rotation and mirroring.
 
 Unit conversions: 1 in = 25.4 mm and 1 lbf = 4.448 221 615 260 5 N, both exact by definition
-(NIST Special Publication 811, 2008 ed., Appendix B). A converted length keeps 12 significant
+(NIST Special Publication 811, 2008 ed., Appendix B). A converted length keeps 14 significant
 digits, so the same dimension written in inches or in millimetres is the same float, the same
 section, the same mesh and bit for bit the same result. A translation changes J and the peak only
 by round-off; a rotation or a mirror image gets a different mesh, so there the two answers need
@@ -36,10 +36,10 @@ def test_the_same_length_in_inches_and_millimetres_is_the_same_float():
         b = to_si(float(mm), "length", "x", SYSTEMS["mm-N-MPa"])
         c = to_si(f"{inches} in", "length", "x", None)
         assert a == b == c == float(Decimal(inches) * INCH), inches  # identical, not only close
-    # rounding to 12 significant digits keeps the conversion itself to 5e-13 relative
-    assert to_si("1450 lbf*in", "moment", "x", None) == pytest.approx(1450 * LBF * 0.0254, rel=5e-13)
+    # rounding to 14 significant digits changes a value by at most 5e-14 of itself
+    assert to_si("1450 lbf*in", "moment", "x", None) == pytest.approx(1450 * LBF * 0.0254, rel=1e-13)
     assert round_significant(0.015239999999999998) == 0.01524
-    assert round_significant(-3.0000000000004e-5) == -3e-5
+    assert round_significant(-3.00000000000004e-5) == -3e-5 and round_significant(1.0000000000001) == 1.0000000000001
     assert round_significant(0.0) == 0.0 and math.isinf(round_significant(math.inf))
     # angles are not rounded: 90° stays exactly a quarter turn
     assert math.degrees(to_si("90 deg", "angle", "x", None)) == 90.0
