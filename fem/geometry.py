@@ -3,8 +3,9 @@
 A :class:`Section` is a list of boolean steps ``(op, primitive)`` on 2-D primitives, SI lengths
 (metres) throughout. It checks itself when made (a keyway deeper than the shaft, a fillet wider
 than its keyway, a self-intersecting outline are refused with :class:`~fem.errors.InputError`),
-and builds itself into the current gmsh model on request. ``moved()`` returns a new section,
-translated and rotated, so invariance can be tested.
+and builds itself into the current gmsh model on request. ``moved()``, ``scaled()`` and
+``mirrored()`` return a new section, translated and rotated, scaled, or mirrored, so invariance
+can be tested (and :mod:`fem.mesh` meshes every section in a scale-free frame).
 
 After the booleans, :func:`analyse_boundary` chains the boundary curves into oriented loops (the
 section on the left: outer loop counter-clockwise, holes clockwise), classifies every curve (line,
@@ -44,6 +45,12 @@ class Disk:
         c = _rot(deg) @ np.asarray(self.center) + (dx, dy)
         return replace(self, center=(float(c[0]), float(c[1])))
 
+    def scaled(self, k: float):
+        return replace(self, center=(k * self.center[0], k * self.center[1]), radius=k * self.radius)
+
+    def mirrored(self):
+        return replace(self, center=(-self.center[0], self.center[1]))
+
     def build(self, occ) -> int:
         return occ.addDisk(self.center[0], self.center[1], 0.0, self.radius, self.radius)
 
@@ -64,6 +71,13 @@ class Ellipse:
     def moved(self, dx, dy, deg):
         c = _rot(deg) @ np.asarray(self.center) + (dx, dy)
         return replace(self, center=(float(c[0]), float(c[1])), rotation=self.rotation + deg)
+
+    def scaled(self, k: float):
+        return replace(self, center=(k * self.center[0], k * self.center[1]),
+                       semi_axes=(k * self.semi_axes[0], k * self.semi_axes[1]))
+
+    def mirrored(self):
+        return replace(self, center=(-self.center[0], self.center[1]), rotation=-self.rotation)
 
     def build(self, occ) -> int:
         a, b = self.semi_axes
@@ -111,6 +125,13 @@ class Polygon:
     def moved(self, dx, dy, deg):
         pts = (_rot(deg) @ np.asarray(self.points, float).T).T + (dx, dy)
         return replace(self, points=tuple(map(tuple, pts.tolist())))
+
+    def scaled(self, k: float):
+        return replace(self, points=tuple((k * x, k * y) for x, y in self.points),
+                       fillets=tuple(k * r for r in self.fillets))
+
+    def mirrored(self):
+        return replace(self, points=tuple((-x, y) for x, y in self.points))
 
     def build(self, occ) -> int:
         pts = np.asarray(self.points, float)
@@ -183,6 +204,22 @@ class Section:
         steps = tuple((op, prim.moved(dx, dy, rotation)) for op, prim in self.steps)
         o = _rot(rotation) @ np.asarray(self.origin) + (dx, dy)
         return replace(self, steps=steps, origin=(float(o[0]), float(o[1])), rotation=self.rotation + rotation)
+
+    def scaled(self, k: float) -> "Section":
+        """A new section ``k`` times the size (k > 0), scaled about the origin."""
+        if not (k > 0 and math.isfinite(k)):
+            raise InputError("scale", k, "must be a positive finite number")
+        return replace(self, steps=tuple((op, p.scaled(k)) for op, p in self.steps),
+                       diameter=self.diameter and k * self.diameter, bore=self.bore and k * self.bore,
+                       keyways=tuple(replace(w, width=k * w.width, depth=k * w.depth, fillet=k * w.fillet)
+                                     for w in self.keyways),
+                       origin=(k * self.origin[0], k * self.origin[1]))
+
+    def mirrored(self) -> "Section":
+        """A new section mirrored in the y axis (x -> -x)."""
+        return replace(self, steps=tuple((op, p.mirrored()) for op, p in self.steps),
+                       keyways=tuple(replace(w, angle=180.0 - w.angle) for w in self.keyways),
+                       origin=(-self.origin[0], self.origin[1]), rotation=-self.rotation)
 
     @property
     def length_scale(self) -> float:
@@ -358,8 +395,9 @@ def _end_tangent(gmsh, tag: int, sign: int, at_start: bool) -> np.ndarray:
     return d / np.linalg.norm(d)
 
 
-def analyse_boundary(gmsh, surfaces: list[int], length_scale: float) -> BoundaryInfo:
-    """Chain, orient and classify the boundary of the section; integrate it exactly."""
+def analyse_boundary(gmsh, surfaces: list[int], length_scale: float, to_metres=None) -> BoundaryInfo:
+    """Chain, orient and classify the boundary of the section; integrate it exactly. ``to_metres``
+    maps a point of the gmsh model to metres for messages (the model may be in a scale-free frame)."""
     bnd = gmsh.model.getBoundary([(2, s) for s in surfaces], combined=True, oriented=False)
     tags = sorted({abs(t) for d, t in bnd if d == 1})
     ends: dict[int, tuple[int, int] | None] = {}
@@ -382,6 +420,7 @@ def analyse_boundary(gmsh, surfaces: list[int], length_scale: float) -> Boundary
     for p, cs in touching.items():
         if len(cs) != 2:
             xy = gmsh.model.getValue(0, p, [])[:2]
+            xy = to_metres(np.asarray(xy)) if to_metres else xy
             raise InputError("section", f"point ({xy[0]:.6g}, {xy[1]:.6g})",
                              "the outline touches itself at a single point; a shaft section cannot be meshed there")
     loops: list[list[tuple[int, int]]] = []

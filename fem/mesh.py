@@ -5,18 +5,27 @@ the fineness, finer along small fillets and at re-entrant corners, or a size fie
 caller for adaptive refinement) and returns a :class:`SectionMesh`: the scikit-fem ``MeshTri2``
 with named boundaries ``outer``, ``hole1``, ``hole2``…, which exact curve every boundary facet
 lies on, and the :class:`~fem.geometry.BoundaryInfo` of the exact geometry.
+
+Same shaft, same mesh: the section is meshed in a scale-free :class:`Frame` (moved to a reference
+point of its own and divided by its own length scale, every length then rounded to a fixed binary
+grid, :data:`FRAME_QUANTUM`), and the mesh and the boundary data are mapped back to metres. A
+section that is only translated or uniformly scaled therefore reaches gmsh as the same numbers and
+gets the same mesh (same nodes and elements; coordinates equal after mapping back, up to
+round-off); gmsh's absolute geometric tolerances act on the same relative size for every shaft.
+Rotated or mirrored sections get a different (equally fine) mesh. The rounding changes the
+geometry by at most half a quantum of the length scale, far below any manufacturing tolerance.
 """
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from typing import Callable
 
 import numpy as np
 from skfem import MeshTri2
 
 from .errors import InputError
-from .geometry import BoundaryInfo, Section, analyse_boundary
+from .geometry import BoundaryInfo, Disk, Ellipse, Polygon, Section, analyse_boundary
 from .gmshload import initialize as initialize_gmsh, load_gmsh
 
 #: Default global fineness: elements across the section's characteristic size.
@@ -45,6 +54,107 @@ class MeshOptions:
             raise InputError("analysis.fineness", self.fineness, "must be a positive number")
 
 
+#: Grid on which every length of the section is rounded in the scale-free frame (relative to the
+#: section's length scale): 2⁻⁴⁰ ≈ 9.1e-13, a binary fraction, so the rounded values are exact and
+#: identical for a translated or scaled copy unless the round-off of the move itself (about 1e-16
+#: of the distance moved) happens to straddle a rounding boundary; then they differ by one step.
+#: Coarse enough to absorb that round-off, fine enough to stay far below the geometric tolerances
+#: of :mod:`fem.geometry` (1e-10 of a primitive's size and up).
+FRAME_QUANTUM = 2.0**-40
+
+
+@dataclass(frozen=True)
+class Frame:
+    """The scale-free frame a section is meshed in: ``x_frame = (x - origin) / scale``."""
+
+    origin: tuple[float, float]
+    scale: float
+
+    def to_frame(self, xy: np.ndarray) -> np.ndarray:
+        """Points of shape (2, ...) in metres to the frame."""
+        xy = np.asarray(xy, float)
+        o = np.reshape(self.origin, (2,) + (1,) * (xy.ndim - 1))
+        return (xy - o) / self.scale
+
+    def from_frame(self, xy: np.ndarray) -> np.ndarray:
+        """Points of shape (2, ...) in the frame back to metres."""
+        xy = np.asarray(xy, float)
+        o = np.reshape(self.origin, (2,) + (1,) * (xy.ndim - 1))
+        return xy * self.scale + o
+
+
+def section_frame(section: Section) -> Frame:
+    """The section's own frame: origin at the centre of the box around its added primitives
+    (disk and ellipse centres, polygon points; the shaft axis for round and keyed sections), scale
+    its length scale (the diameter, or the largest extent of the added primitives). Both move and
+    scale with the section."""
+    lo, hi = [], []
+    for op, p in section.steps:
+        if op != "add":
+            continue
+        if isinstance(p, Disk):
+            lo.append(p.center)
+            hi.append(p.center)
+        elif isinstance(p, Ellipse):
+            lo.append(p.center)
+            hi.append(p.center)
+        else:
+            pts = np.asarray(p.points, float)
+            lo.append(tuple(pts.min(axis=0)))
+            hi.append(tuple(pts.max(axis=0)))
+    lo, hi = np.min(np.asarray(lo), axis=0), np.max(np.asarray(hi), axis=0)
+    origin = (float((lo[0] + hi[0]) / 2), float((lo[1] + hi[1]) / 2))
+    return Frame(origin, float(section.length_scale))
+
+
+def _snap(v: float) -> float:
+    return round(v / FRAME_QUANTUM) * FRAME_QUANTUM
+
+
+def normalised_section(section: Section, frame: Frame | None = None) -> tuple[Section, Frame]:
+    """The section in its scale-free frame, every length rounded to :data:`FRAME_QUANTUM`."""
+    frame = frame or section_frame(section)
+    ox, oy = frame.origin
+    k = 1.0 / frame.scale
+
+    def pt(xy):
+        return (_snap((xy[0] - ox) * k), _snap((xy[1] - oy) * k))
+
+    def prim(p):
+        if isinstance(p, Disk):
+            return replace(p, center=pt(p.center), radius=_snap(p.radius * k))
+        if isinstance(p, Ellipse):
+            return replace(p, center=pt(p.center), semi_axes=(_snap(p.semi_axes[0] * k), _snap(p.semi_axes[1] * k)))
+        if isinstance(p, Polygon):
+            return replace(p, points=tuple(pt(q) for q in p.points), fillets=tuple(_snap(r * k) for r in p.fillets))
+        raise TypeError(f"unknown primitive {type(p).__name__}")
+
+    steps = tuple((op, prim(p)) for op, p in section.steps)
+    return replace(section, steps=steps, diameter=section.diameter and _snap(section.diameter * k),
+                   bore=section.bore and _snap(section.bore * k), keyways=(), origin=pt(section.origin)), frame
+
+
+def _info_from_frame(info: BoundaryInfo, frame: Frame) -> BoundaryInfo:
+    """Boundary data measured in the frame, in metres."""
+    s = frame.scale
+    ox, oy = frame.origin
+    curves = {t: replace(c, radius=None if c.radius is None else c.radius * s, length=c.length * s)
+              for t, c in info.curves.items()}
+    corners = [replace(c, point=tuple(float(v) for v in frame.from_frame(np.asarray(c.point)))) for c in info.corners]
+    e = info.integrals
+    A, Sx, Sy = e["A"], e["Sx"], e["Sy"]
+    s2 = s * s
+    integrals = dict(
+        A=s2 * A,
+        Sx=s2 * (ox * A + s * Sx),
+        Sy=s2 * (oy * A + s * Sy),
+        Ixx0=s2 * (oy * oy * A + 2 * oy * s * Sy + s2 * e["Ixx0"]),
+        Iyy0=s2 * (ox * ox * A + 2 * ox * s * Sx + s2 * e["Iyy0"]),
+        Ixy0=s2 * (ox * oy * A + s * (ox * Sy + oy * Sx) + s2 * e["Ixy0"]),
+    )
+    return BoundaryInfo(info.loops, curves, corners, [a * s2 for a in info.hole_areas], integrals)
+
+
 @dataclass
 class SectionMesh:
     mesh: MeshTri2
@@ -57,6 +167,7 @@ class SectionMesh:
     h_global: float
     seconds: float = 0.0
     info: dict = field(default_factory=dict)
+    frame: Frame | None = None  # the scale-free frame the section was meshed in
 
     @property
     def hole_names(self) -> list[str]:
@@ -94,13 +205,19 @@ def mesh_section(section: Section, options: MeshOptions | None = None,
     gmsh.clear()
     try:
         gmsh.model.add("section")
-        surfaces = section.build(gmsh)
-        info = analyse_boundary(gmsh, surfaces, section.length_scale)
+        # everything gmsh sees is in the section's scale-free frame (module docstring)
+        unit, frame = normalised_section(section)
+        surfaces = unit.build(gmsh)
+        info = analyse_boundary(gmsh, surfaces, unit.length_scale, frame.from_frame)
         # size from the hydraulic diameter 4A/P: the diameter for a round bar, about twice the
         # wall for thin-walled sections, so thin walls get enough elements across
         perimeter = sum(c.length for c in info.curves.values())
         L = 4.0 * info.integrals["A"] / perimeter
         h = L / (options.across * options.fineness)
+        if size_field is not None:
+            tri, sizes = size_field
+            tri = np.moveaxis(frame.to_frame(np.moveaxis(np.asarray(tri, float), -1, 0)), 0, -1)
+            size_field = (tri, np.asarray(sizes, float) / frame.scale)
         _set_sizes(gmsh, info, options, h, size_field)
         gmsh.model.addPhysicalGroup(2, surfaces, name="section")
         gmsh.option.setNumber("Mesh.ElementOrder", 2)
@@ -108,15 +225,16 @@ def mesh_section(section: Section, options: MeshOptions | None = None,
         gmsh.option.setNumber("Mesh.HighOrderOptimize", 0)
         gmsh.option.setNumber("Mesh.Algorithm", 6)
         gmsh.model.mesh.generate(2)
-        mesh, facet_curve = _to_skfem(gmsh, info)
-        bfacets, offset = _boundary_offsets(gmsh, mesh, facet_curve)
+        mesh, facet_curve = _to_skfem(gmsh, info, frame)
+        bfacets, offset = _boundary_offsets(gmsh, mesh, facet_curve, frame)
     except InputError:
         raise
     except Exception as exc:  # gmsh raises plain Exceptions with its own message
         raise InputError("section", section.kind, f"the geometry could not be built or meshed ({str(exc).splitlines()[0]})") from None
     finally:
         gmsh.clear()
-    sm = SectionMesh(mesh, section, info, facet_curve, bfacets, offset, options, h, time.perf_counter() - t0)
+    sm = SectionMesh(mesh, section, _info_from_frame(info, frame), facet_curve, bfacets, offset, options,
+                     h * frame.scale, time.perf_counter() - t0, frame=frame)
     sm.info["elements"] = int(mesh.t.shape[1])
     return sm
 
@@ -182,7 +300,7 @@ def _set_sizes(gmsh, info: BoundaryInfo, o: MeshOptions, h: float, size_field) -
         f.setAsBackgroundMesh(m)
 
 
-def _to_skfem(gmsh, info: BoundaryInfo):
+def _to_skfem(gmsh, info: BoundaryInfo, frame: Frame):
     tags, coords, _ = gmsh.model.mesh.getNodes()
     xy = np.reshape(coords, (-1, 3))[:, :2]
     index = np.full(int(tags.max()) + 1, -1, dtype=np.int64)
@@ -195,7 +313,7 @@ def _to_skfem(gmsh, info: BoundaryInfo):
     remap = np.full(len(xy), -1, dtype=np.int64)
     remap[used] = np.arange(len(used))
     t = remap[t]
-    p = xy[used].T
+    p = frame.from_frame(xy[used].T)  # back to metres
     # counter-clockwise vertices (the exact geometry is in the z = 0 plane, normal +z)
     a, b, c = p[:, t[0]], p[:, t[1]], p[:, t[2]]
     cw = ((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])) < 0
@@ -256,12 +374,13 @@ def _boundary_basis(mesh, facets, points):
     return FacetBasis(mesh, ElementTriP2(), facets=facets, quadrature=q, mapping=boundary_mapping(mesh))
 
 
-def _boundary_offsets(gmsh, mesh, facet_curve):
-    """Signed distance (outward positive) of the curved mesh boundary from the exact curves."""
+def _boundary_offsets(gmsh, mesh, facet_curve, frame: Frame):
+    """Signed distance [m] (outward positive) of the curved mesh boundary from the exact curves
+    (which gmsh holds in the scale-free frame)."""
 
     facets = mesh.boundary_facets()
     fb = _boundary_basis(mesh, facets, "gauss")
-    X = np.asarray(fb.global_coordinates())  # (2, nf, np)
+    X = frame.to_frame(np.asarray(fb.global_coordinates()))  # (2, nf, np), in the frame
     n = np.asarray(fb.normals)
     offset = np.zeros(X.shape[1:])
     curve_of = np.array([facet_curve[int(f)] for f in facets])
@@ -272,7 +391,7 @@ def _boundary_offsets(gmsh, mesh, facet_curve):
         d = pts - c
         nn = n[:, sel, :].reshape(2, -1)
         offset[sel, :] = (d[0] * nn[0] + d[1] * nn[1]).reshape(len(sel), -1)
-    return facets, offset
+    return facets, offset * frame.scale
 
 
 def _closest_on_curve(gmsh, tag: int, pts: np.ndarray, samples: int = 2048) -> np.ndarray:

@@ -80,6 +80,19 @@ SYSTEMS = {
 }
 
 
+#: Significant digits a converted dimensional value keeps (lengths, forces, moments, stresses):
+#: far beyond any drawing or data sheet (a change of at most 5e-14 of the value), yet few enough to
+#: wipe out the last-bit noise of a unit conversion, so the same quantity in any unit system is the
+#: same float (0.6 in and 15.24 mm both become 0.01524 m) and the same shaft gets the same mesh.
+SIGNIFICANT_DIGITS = 14
+_ROUNDED = {"length", "area", "second_moment", "force", "moment", "stress"}
+
+
+def round_significant(x: float, digits: int = SIGNIFICANT_DIGITS) -> float:
+    """``x`` rounded to ``digits`` significant decimal digits (the nearest float to that decimal)."""
+    return float(f"{x:.{digits - 1}e}") if math.isfinite(x) and x != 0.0 else x
+
+
 def unit_system(name, field="case.units") -> UnitSystem | None:
     if name is None:
         return None
@@ -155,7 +168,8 @@ def _convert(text: str, dimension: str, field: str) -> float:
             return float(q.to("degC").magnitude)
         if dimension == "dimensionless":
             return float(q.to("dimensionless").magnitude)
-        return float(q.to(target).magnitude)
+        v = float(q.to(target).magnitude)
+        return round_significant(v) if dimension in _ROUNDED else v
     except Exception:
         raise InputError(field, text, f"is not a {dimension.replace('_', ' ')} (expected units like {target})") from None
 
