@@ -101,7 +101,7 @@ def test_a_file_over_the_size_limit_is_refused_before_parsing(tmp_path, run_cli)
 
 
 @pytest.mark.parametrize("value,says", [("fine", "must be a number"), ("nan", "finite"), ("inf", "finite"),
-                                        ("-inf", "finite"), ("0", "positive"), ("1e999", "finite")])
+                                        ("-inf", "finite"), ("0", "between 0.25 and 16"), ("1e9", "between 0.25 and 16"), ("1e999", "finite")])
 def test_fineness_option_is_named(tmp_path, run_cli, value, says):
     case = tmp_path / "c.toml"
     case.write_text(GOOD)

@@ -68,12 +68,16 @@ def self_checks(a, estimates: dict | None = None, target: float | None = None, s
     if math.isfinite(tr.peak_warping_per_torque) and tr.peak_per_torque > 0:
         part = abs(tr.peak_warping_per_torque - tr.peak_per_torque) / tr.peak_per_torque
         est = (estimates or {}).get("tau_max", {}).get("gci")
-        base = est if est is not None else target
-        if base is not None:
-            limit = PEAK_PARTING_FACTOR * max(base, 1e-12)
-            out.append(_check("torsion peak: stress function against warping function (relative)", part, limit,
-                              part <= limit, "the two independent solutions of the same peak must agree within "
-                              "twice its estimated error"))
+        base = max(x for x in (est, target, 1e-12) if x is not None)
+        # The estimate is the stress-function peak's; the warping peak (a derivative of the warping
+        # function on the boundary) is the less accurate of the two and is not studied. Measured on the
+        # exact ellipse at 0.01 %: stress-function peak 7.7e-6 off, warping peak 6.7e-5 off, GCI 2.5e-5.
+        # So the pair must agree within twice the larger of the estimate and the requested accuracy: a
+        # parting beyond that is a failed solve (the defects this catches part by factors, not 1e-4).
+        limit = PEAK_PARTING_FACTOR * base
+        out.append(_check("torsion peak: stress function against warping function (relative)", part, limit,
+                          part <= limit, "the two independent solutions of the same peak must agree within "
+                          "twice the larger of its estimated error and the accuracy target"))
     # --- linear solves
     if solves:
         worst = max(s["residual"] for s in solves if s.get("residual") is not None)
