@@ -53,7 +53,8 @@ def findings_step(a) -> None:
                         "limit": c.get("limit")})
     acc = a.extra.get("accuracy")
     if acc is not None and not acc.get("met"):
-        out.append({"code": "accuracy_not_met", "target": acc.get("target"), "achieved": acc.get("achieved"),
+        known = acc.get("meshes_distinct", True)  # meshes not refined by the ratio: no estimate stands
+        out.append({"code": "accuracy_not_met", "target": acc.get("target"), "achieved": acc.get("achieved") if known else None,
                     "limited_by": acc.get("limited_by"), "because": list(acc.get("not_met_because") or [])})
     for ch in cut_connectivity(a.case.section):
         out.append({"code": "open_section", **ch})
