@@ -25,6 +25,7 @@ import copy
 import hashlib
 import itertools
 import json
+import logging
 import math
 import os
 import re
@@ -334,7 +335,8 @@ def open_client(workers: int, scheduler: str | None):
     import dask.config  # noqa: PLC0415  lazy import of a slow optional dependency (Dask, only for sweeps)
     from distributed import Client, LocalCluster  # noqa: PLC0415  lazy import of a slow dependency
 
-    dask.config.set({"distributed.worker.daemon": False, "logging.distributed": "error"})
+    dask.config.set({"distributed.worker.daemon": False})
+    logging.getLogger("distributed").setLevel(logging.CRITICAL)  # its own log lines are not our output
     if scheduler:
         if not re.fullmatch(r"(tcp|tls|inproc|ws|wss)://[^\s/]+(:\d+)?/?", scheduler):
             raise InputError("--scheduler", scheduler, "is not a scheduler address such as tcp://host:8786")
@@ -369,24 +371,26 @@ def run_sweep(sw: Sweep, case_path: str | Path, cache: Path, workers: int = 1, s
         if progress:
             progress(len(records), total, len(records) - (total - len(todo)), time.perf_counter() - t0)
 
-    if progress:
-        progress(len(records), total, 0, 0.0)
-    if todo and workers == 0 and not scheduler:
-        for v in todo:
-            done(v, run_variant(v.data, case_path, fineness))
-    elif todo:
-        from distributed import as_completed  # noqa: PLC0415  lazy import of a slow optional dependency
+    local = workers == 0 and not scheduler
+    client, cluster = open_client(workers, scheduler) if todo and not local else (None, None)
+    try:
+        if progress:
+            progress(len(records), total, 0, 0.0)
+        if local:
+            for v in todo:
+                done(v, run_variant(v.data, case_path, fineness))
+        elif todo:
+            from distributed import as_completed  # noqa: PLC0415  lazy import of a slow optional dependency
 
-        client, cluster = open_client(workers, scheduler)
-        try:
             futures = {client.submit(run_variant, v.data, case_path, fineness, key=f"shaftcheck-{v.key}",
                                      pure=False): v for v in todo}
-            for fut in as_completed(futures):
+            for fut in as_completed(futures, loop=client.loop):
                 done(futures[fut], fut.result())
-        finally:
+    finally:
+        if client is not None:
             client.close()
-            if cluster is not None:
-                cluster.close()
+        if cluster is not None:
+            cluster.close()
     sw.records = [records[v.index] for v in sw.variants]
     return sw
 
