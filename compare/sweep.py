@@ -384,8 +384,16 @@ def run_sweep(sw: Sweep, case_path: str | Path, cache: Path, workers: int = 1, s
 
             futures = {client.submit(run_variant, v.data, case_path, fineness, key=f"shaftcheck-{v.key}",
                                      pure=False): v for v in todo}
-            for fut in as_completed(futures, loop=client.loop):
-                done(futures[fut], fut.result())
+            try:
+                for fut in as_completed(futures, loop=client.loop):
+                    done(futures[fut], fut.result())
+            except RuntimeError as exc:
+                if not scheduler:
+                    raise
+                # e.g. the scheduler cannot unpickle the task: shaftcheck is missing from its environment
+                reason = str(exc).splitlines()[0] if str(exc) else type(exc).__name__
+                raise InputError("--scheduler", scheduler, f"the cluster could not run the variants ({reason[:160]}; "
+                                 "are the scheduler and every worker running this shaftcheck?)") from None
     finally:
         if client is not None:
             client.close()

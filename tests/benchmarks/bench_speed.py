@@ -126,8 +126,8 @@ def sweep(n):
     w2 = _sweep(case, n, ["--workers", "2"], "2 workers")
     print(f"speed-up on two workers: {w1 / w2:.2f}")
     port = 8786 + os.getpid() % 1000
-    sched = subprocess.Popen(["dask", "scheduler", "--port", str(port), "--no-dashboard"],
-                             stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL)
+    sched = subprocess.Popen(["dask", "scheduler", "--port", str(port), "--no-dashboard"], cwd=ROOT,
+                             env=dict(os.environ, PYTHONPATH=str(ROOT)), stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL)
     workers = []
     try:
         time.sleep(3)
