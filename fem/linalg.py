@@ -17,6 +17,7 @@ answer bit for bit.
 from __future__ import annotations
 
 import contextlib
+import hashlib
 
 import numpy as np
 import scipy.sparse as sp
@@ -73,9 +74,69 @@ def relative_residual(K, x, f) -> float:
     return r / nf if nf > 0 else r
 
 
-def _direct(K: sp.csr_matrix, f: np.ndarray) -> np.ndarray:
-    lu = spla.splu(K.tocsc(), permc_spec="MMD_AT_PLUS_A", diag_pivot_thresh=0.0,
-                   options=dict(SymmetricMode=True))
+#: Open factorisation caches (see :func:`reuse_factorisations`); the innermost one is used.
+_CACHES: list[_FactorCache] = []
+
+
+class _FactorCache:
+    def __init__(self, max_unknowns: int):
+        self.max_unknowns = max_unknowns
+        self.lus: dict = {}  # key -> factorisation, most recent last
+
+    def get(self, key):
+        lu = self.lus.pop(key, None)
+        if lu is not None:
+            self.lus[key] = lu
+        return lu
+
+    def put(self, key, lu) -> None:
+        self.lus[key] = lu
+        while len(self.lus) > 1 and sum(k[0][0] for k in self.lus) > self.max_unknowns:
+            self.lus.pop(next(iter(self.lus)))
+
+
+@contextlib.contextmanager
+def reuse_factorisations(max_unknowns: int = 2 * DIRECT_LIMIT):
+    """Inside the ``with`` block, a direct solve of a matrix equal entry for entry to one factorised
+    before reuses that factorisation (the warping function and both shear functions share one
+    stiffness matrix). Matrices are matched by a hash of their sorted CSR arrays, so only an
+    identical matrix is reused; the cache keeps the most recent factorisations up to
+    ``max_unknowns`` unknowns in total and is dropped when the block ends."""
+    cache = _FactorCache(max_unknowns)
+    _CACHES.append(cache)
+    try:
+        yield cache
+    finally:
+        _CACHES.remove(cache)
+        cache.lus.clear()
+
+
+def _matrix_key(K: sp.csr_matrix) -> tuple:
+    A = K.copy()
+    A.sum_duplicates()
+    A.sort_indices()
+    h = hashlib.blake2b(digest_size=20)
+    for arr in (A.indptr, A.indices, A.data):
+        h.update(np.ascontiguousarray(arr).tobytes())
+    return (A.shape, A.nnz, h.hexdigest())
+
+
+def _factorise(K: sp.csr_matrix):
+    return spla.splu(K.tocsc(), permc_spec="MMD_AT_PLUS_A", diag_pivot_thresh=0.0,
+                     options=dict(SymmetricMode=True))
+
+
+def _direct(K: sp.csr_matrix, f: np.ndarray, entry: dict | None = None) -> np.ndarray:
+    if not _CACHES:
+        return _factorise(K).solve(f)
+    cache = _CACHES[-1]
+    key = _matrix_key(K)
+    lu = cache.get(key)
+    if lu is None:
+        lu = _factorise(K)
+        cache.put(key, lu)
+    elif entry is not None:
+        entry["reused_factorisation"] = True
     return lu.solve(f)
 
 
@@ -121,7 +182,7 @@ def solve_spd(K: sp.spmatrix, f: np.ndarray, tol: float | None = None) -> np.nda
                              f"after {its} iterations (tolerance {tol:.0e}) and the system is too large "
                              f"for the direct retry ({RETRY_DIRECT_LIMIT} unknowns)")
         entry.update(retried=True, iterative_residual=r, method="direct (after AMG+CG failed)")
-    x = _direct(K, f)
+    x = _direct(K, f, entry)
     r = relative_residual(K, x, f)
     entry["residual"] = r
     _record(entry)

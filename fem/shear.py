@@ -169,7 +169,10 @@ def shear_peak(sm: SectionMesh, sr: ShearResult, Vx: float, Vy: float) -> ShearP
 
     xc, yc = sr.centroid
     cm = sr.basis.mesh
-    Gp, Gf = recovered_gradient(sr.basis, sr.psi), recovered_gradient(sr.basis, sr.phi)
+    rec = sr.__dict__.get("_recovered")
+    if rec is None:  # the recovered gradients depend on the solution only: computed once per result
+        rec = sr.__dict__["_recovered"] = (recovered_gradient(sr.basis, sr.psi), recovered_gradient(sr.basis, sr.phi))
+    Gp, Gf = rec
     xn = sr.basis.doflocs
     (ax, ay), (bx, by) = sr._unit_fields(Gp, Gf, xn)
     tn = np.hypot(Vx * ax + Vy * bx, Vx * ay + Vy * by)

@@ -193,11 +193,11 @@ def add_warping(sm: SectionMesh, tr: TorsionResult, centroid: tuple[float, float
     import time
 
     t0 = time.perf_counter()
-    K = getattr(tr, "_K", None)
-    if K is None:
-        K = forms.laplace.assemble(tr.basis)
     cmesh = sm.mesh.translated((-centroid[0], -centroid[1]))
     cbasis = Basis(cmesh, ElementTriP2(), intorder=4)
+    # the stiffness matrix on the centroidal mesh, as fem.shear.solve_shear assembles it: the same
+    # matrix with the same DOF fixed, so a factorisation kept by fem.linalg.reuse_factorisations serves both
+    K = forms.laplace.assemble(cbasis)
     g = forms.warping_load.assemble(cbasis)
     omega = np.zeros(tr.basis.N)
     Kc, gc, _, I = condense(K, g, D=np.array([0]))

@@ -25,6 +25,7 @@ RANKS = {
     "compare.checks": 4,
     "compare.pipeline": 5,
     "compare.output": 6,
+    "compare.sweep": 6,  # runs whole cases (pipeline, results) on Dask; below cli/ which calls it
     "compare.cli": 7,
     "compare.api": 8,
     "compare": 8,  # the package itself re-exports the API

@@ -106,7 +106,8 @@ class Case:
     expected: dict = field(default_factory=dict)  # [expected] of a verification case: {quantity: SI value}
 
 
-_TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue"}
+_TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue",
+        "sweep"}  # [sweep]: read by `shaftcheck sweep` (compare/sweep.py), not by a single run
 _CASE = {"title", "units", "description", "source"}
 _LOAD_SCALARS = {"torque": "moment", "axial": "force"}
 _LOAD_VECTORS = {"bending": "moment", "shear": "force"}

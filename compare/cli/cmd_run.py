@@ -72,7 +72,8 @@ def option_number(name: str, text: str | None) -> float | None:
 
 # The names shaftcheck writes into an output folder. A folder holding only these (as plain files) is
 # taken to be an earlier output and is replaced as a whole; anything else in it stops the run (exit 2).
-OUTPUT_NAMES = frozenset({"results.json", "section.vtu", "verify.json"})
+OUTPUT_NAMES = frozenset({"results.json", "section.vtu", "verify.json",
+                          "sweep.csv", "sweep.parquet", "sweep.png", "sweep.svg", "sweep.html"})
 
 # Test-only hook: seconds to pause after the results are written to the temporary folder and before
 # they are moved into place, so a test can send a signal or start a second run at that moment.
@@ -188,7 +189,10 @@ def write_outputs(out: Path, files: dict[str, str], analysis=None) -> None:
             made = _make_folders(parent)
             tmp = _fresh_folder(parent, ".shaftcheck-")
         for name, text in files.items():
-            (tmp / name).write_text(text, encoding="utf-8")
+            if isinstance(text, bytes):  # figures, parquet
+                (tmp / name).write_bytes(text)
+            else:
+                (tmp / name).write_text(text, encoding="utf-8")
         if analysis is not None:
             write_fields_vtu(tmp / "section.vtu", analysis)
         pause = os.environ.get(PAUSE_ENV)

@@ -15,7 +15,7 @@ from classic._validity import OutOfRangeError
 from fem.errors import InputError, LimitError, SolveError
 
 from .._version import __version__
-from . import cmd_run, cmd_verify
+from . import cmd_run, cmd_sweep, cmd_verify
 from .interrupt import Interrupted, install_handlers
 
 EXIT_OK, EXIT_FAILED, EXIT_INPUT, EXIT_ACCURACY = 0, 1, 2, 3
@@ -30,7 +30,7 @@ def build_parser() -> argparse.ArgumentParser:
     p = _Parser(prog="shaftcheck", description="FE cross-check of shaft sections against the hand formulas.")
     p.add_argument("--version", action="version", version=f"shaftcheck {__version__}")
     sub = p.add_subparsers(dest="command", parser_class=_Parser)
-    for mod in (cmd_run, cmd_verify):
+    for mod in (cmd_run, cmd_verify, cmd_sweep):
         mod.register(sub)
     return p
 

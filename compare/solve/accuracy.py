@@ -26,7 +26,7 @@ import numpy as np
 from classic.gci import convergence_study
 from fem.errors import LimitError
 from fem.estimate import adapted_sizes, element_sizes, near_points, recovery_indicator, triangles_xy
-from fem.linalg import record_solves
+from fem.linalg import record_solves, reuse_factorisations
 from fem.mesh import MeshOptions, mesh_section
 from fem.properties import area_moments
 from fem.shear import shear_peak, solve_shear
@@ -225,7 +225,7 @@ def refine_to_accuracy(case, target: float, max_dofs: int, fineness: float | Non
     if est0 > max_dofs:
         raise LimitError(f"the first mesh at fineness {f0:g} would have about {est0} unknowns, above "
                          f"analysis.max_dofs = {max_dofs}: lower the fineness or raise max_dofs")
-    with record_solves() as solves:
+    with record_solves() as solves, reuse_factorisations():
         study = _refine(case, target, max_dofs, f0, fits, LimitError, max_seconds)
     study.solves = solves
     study.seconds = time.perf_counter() - t0
