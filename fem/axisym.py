@@ -358,6 +358,8 @@ class ProfileResult:
     dofs: int
     h: float
     points: dict = field(default_factory=dict)
+    basis: object = field(default=None, repr=False)  # the P2 basis of the solution
+    x: np.ndarray | None = field(default=None, repr=False)  # its nodal values
 
 
 def nominal_stress(load_case: str, d: float, bore: float, load: float) -> float:
@@ -399,13 +401,8 @@ def solve_profile(mm: MeridianMesh, load_case: str, E: float = 2.0e11, nu: float
     inner = "bore" if prof.bore > 0 else "axis"
     e0, e1 = mm.facets("end0"), mm.facets("end1")
     if load_case == "torsion":
-        basis = CellBasis(mesh, ElementTriP2())
-        K = forms.axisym_torsion.assemble(basis, G=G)
-        d0, d1 = basis.get_dofs(e0).all(), basis.get_dofs(e1).all()
         delta = 1.0 / (G * prof.d)  # any twist: Kt is a ratio
-        fixed = np.concatenate([d0, d1])
-        vals = np.concatenate([np.zeros(len(d0)), np.full(len(d1), delta)])
-        x = _solve_constrained(K, np.zeros(K.shape[0]), fixed, vals)
+        basis, K, x = torsion_field(mm, G, lambda r, z: np.where(z > L / 2, delta, 0.0))
         load = float(x @ (K @ x)) / delta
     elif load_case == "tension":
         basis = CellBasis(mesh, ElementVector(ElementTriP2(), 2))
@@ -469,7 +466,28 @@ def solve_profile(mm: MeridianMesh, load_case: str, E: float = 2.0e11, nu: float
     peak, peak_vm, pts = _boundary_stresses(mm, basis, x, load_case, E, nu, G)
     far = _far_field(mm, basis, x, load_case, E, nu, G, load)
     return ProfileResult(load_case, load, nominal, peak, peak_vm, peak.value / nominal, far,
-                         int(K.shape[0]), mm.h, pts)
+                         int(K.shape[0]), mm.h, pts, basis, x)
+
+
+def torsion_field(mm: MeridianMesh, G: float, end_rotation):
+    """Torsion with the rotation ω = ``end_rotation(r, z)`` [rad] imposed on both end faces, the
+    lateral surface (and bore) traction-free. Returns (basis, K, x): the P2 basis, the stiffness of
+    :func:`fem.forms.axisym_torsion` and the nodal values of ω."""
+    basis = CellBasis(mm.mesh, ElementTriP2())
+    K = forms.axisym_torsion.assemble(basis, G=G)
+    fixed = basis.get_dofs(np.concatenate([mm.facets("end0"), mm.facets("end1")])).all()
+    r, z = basis.doflocs[:, fixed]
+    x = _solve_constrained(K, np.zeros(K.shape[0]), fixed, np.asarray(end_rotation(r, z), float))
+    return basis, K, x
+
+
+def surface_stress(mm: MeridianMesh, basis, x, load_case: str, name: str = "surface",
+                   E: float = 2.0e11, nu: float = 0.3):
+    """(max principal or shear stress, von Mises, r, z) at the sample points of the boundary
+    ``name`` for the solution ``x`` of ``load_case`` on ``basis``."""
+    G = E / (2 * (1 + nu))
+    fb = _facet_basis(mm, basis, mm.facets(name))
+    return _stress_at(fb, x, load_case, E, nu, G)
 
 
 def _match(basis, a: np.ndarray, b: np.ndarray):

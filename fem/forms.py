@@ -5,6 +5,7 @@ centroidal axes (warping and shear functions). Second-moment parameters arrive a
 """
 import math
 
+import numpy as np
 from skfem import BilinearForm, Functional, LinearForm
 from skfem.helpers import dot, grad
 
@@ -154,7 +155,8 @@ def _lame(E, nu):
 def axisym_n0_strains(u, r):
     """(ε_r, ε_θ, ε_z, γ_rz) of u = (u_r, u_z) on the meridian section (harmonic n = 0)."""
     g = u.grad
-    return g[0][0], u.value[0] / r, g[1][1], g[0][1] + g[1][0]
+    v = np.asarray(u)  # the value of the field (a DiscreteField is an array of its values)
+    return g[0][0], v[0] / r, g[1][1], g[0][1] + g[1][0]
 
 
 @BilinearForm
@@ -181,7 +183,7 @@ def axisym_n1_strains(u, r):
     ε_r = ∂U_r/∂r, ε_θ = (U_r + U_θ)/r, ε_z = ∂U_z/∂z, γ_rz = ∂U_r/∂z + ∂U_z/∂r,
     γ_rθ = ∂U_θ/∂r − (U_r + U_θ)/r, γ_θz = ∂U_θ/∂z − U_z/r."""
     g = u.grad
-    Ur, Ut, Uz = u.value[0], u.value[1], u.value[2]
+    Ur, Ut, Uz = np.asarray(u)  # the value of the field
     et = (Ur + Ut) / r
     return (g[0][0], et, g[2][1], g[0][1] + g[2][0]), (g[1][0] - et, g[1][1] - Uz / r)
 
