@@ -503,7 +503,7 @@ def _match(basis, a: np.ndarray, b: np.ndarray):
 def _stress_at(fb, x, load_case, E, nu, G):
     """(max principal, von Mises, r, z) at the facet basis points; torsion: (τ, √3·τ, r, z)."""
     u = fb.interpolate(x)
-    r, z = fb.global_coordinates().value
+    r, z = np.asarray(fb.global_coordinates())
     if load_case == "torsion":
         g = u.grad
         tau = G * r * np.sqrt(g[0] ** 2 + g[1] ** 2)
