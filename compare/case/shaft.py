@@ -13,7 +13,8 @@ Case-file schema (README, 'The shaft layout', is the reference)::
     speed = "1450 rpm"                   # optional operating speed
     rotating = true                      # optional; as loads.rotating (the loads are fixed in space)
     self_weight = true                   # optional, default true when density is given
-    supports = [{ at = 20 }, { at = 380, stiffness = 2e5 }]   # radial stiffness optional (rigid)
+    supports = [{ at = 20, bearing = "deep_groove_ball" }, { at = 380, stiffness = 2e5 }]
+                                         # radial stiffness optional (rigid); bearing type optional
     [[shaft.segments]]                   # optional; none: uniform with the case's [section]
     from = 0                             # the segments cover 0..length, in order, without gaps
     to = 120
@@ -50,7 +51,8 @@ Dataclasses (stable: later steps build on them; fields are added, never renamed)
 
 - :class:`Segment` (start, end, diameter, bore, fillet) [m]
 - :class:`Groove` (at, width, depth, radius) [m]
-- :class:`Support` (at [m], stiffness [N/m] or None = rigid, name)
+- :class:`Support` (at [m], stiffness [N/m] or None = rigid, name, bearing (type for the slope
+  limit, one of :data:`BEARING_TYPES`, or None))
 - :class:`ShaftLoad` (at, kind, name, force (Fx, Fy) [N], axial [N], moment (Mx, My) [N·m],
   torque [N·m], mass [kg], inertia [kg·m²], gear: :class:`Gear` | None, pulley: :class:`Pulley` | None)
 - :class:`Gear` (pitch_diameter [m], pressure_angle, helix_angle [deg], hand, mesh_angle [deg])
@@ -86,7 +88,9 @@ _SHAFT = {"length", "density", "speed", "rotating", "self_weight", "supports", "
           "sections"}
 _SEGMENT = {"from", "to", "diameter", "bore", "fillet"}
 _GROOVE = {"at", "width", "depth", "radius"}
-_SUPPORT = {"at", "stiffness", "name"}
+_SUPPORT = {"at", "stiffness", "name", "bearing"}
+#: Bearing types the slope check knows (classic.shaft.SLOPE_LIMITS, Shigley 9th ed., Table 7-2).
+BEARING_TYPES = ("tapered_roller", "cylindrical_roller", "deep_groove_ball", "spherical_ball", "self_aligning_ball")
 _COMMON = {"at", "kind", "name", "torque", "mass", "inertia"}
 _LOAD_KEYS = {
     "point": _COMMON | {"force", "axial", "moment"},
@@ -120,6 +124,7 @@ class Support:
     at: float
     stiffness: float | None = None  # radial [N/m]; None: rigid
     name: str = ""
+    bearing: str | None = None  # one of BEARING_TYPES; None: judged against the tightest limit
 
 
 @dataclass(frozen=True)
@@ -286,9 +291,12 @@ def _supports(d, length, units) -> list[Support]:
         at = _at(s, w, length, units)
         k = _pos(s, "stiffness", "stiffness", w, units) if "stiffness" in s else None
         name = _name(s, w)
+        bearing = s.get("bearing")
+        if bearing is not None and bearing not in BEARING_TYPES:
+            raise InputError(f"{w}.bearing", bearing, f"unknown bearing type; use one of {', '.join(BEARING_TYPES)}")
         if any(abs(at - o.at) <= GAP_TOL * length for o in out):
             raise InputError(f"{w}.at", s["at"], "is where another support already is", _unit(s["at"], units, "length"))
-        out.append(Support(at, k, name))
+        out.append(Support(at, k, name, bearing))
     return out
 
 
