@@ -11,6 +11,7 @@ from .case.case import Case
 from .checks.findings import findings_step
 from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
+from .pairs.feature_step import features_step
 from .pairs.shear_step import shear_step
 from .solve.accuracy_step import accuracy_step
 from .solve.selfchecks import self_checks
@@ -27,6 +28,7 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         accuracy_step(a)
     else:
         a.extra["checks"] = self_checks(a, target=case.analysis.accuracy)
+    features_step(a)  # shoulders and grooves of [shaft]: FE Kt for the station checks
     t5 = time.perf_counter()
     combined_step(a)
     a.seconds["combined"] = time.perf_counter() - t5
