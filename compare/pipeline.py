@@ -9,6 +9,7 @@ import time
 
 from .case.case import Case
 from .checks.findings import findings_step
+from .checks.shaft_stations import layout_step
 from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
 from .pairs.feature_step import features_step
@@ -21,6 +22,8 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     """Solve the case and run every later step. With ``study`` (the default, and what the command
     line does), refine to the case's accuracy target and run the convergence study; the results come
     from the finest mesh."""
+    if case.shaft is not None:  # the whole shaft, then each station through this same function
+        return layout_step(case, lambda c: analyse(c, fineness, study))
     t0 = time.perf_counter()
     a = solve_case(case, fineness, study)  # mesh, properties, torsion and its pairs
     shear_step(a)

@@ -13,7 +13,7 @@ BASE = {
 
 
 def shaft_case(**shaft):
-    d = {"length": 300, "supports": [{"at": 0}, {"at": 300, "stiffness": 2e5}],
+    d = {"length": 300, "sections": [{"at": 150}], "supports": [{"at": 0}, {"at": 300, "stiffness": 2e5}],
          "segments": [{"from": 0, "to": 100, "diameter": 30}, {"from": 100, "to": 300, "diameter": 35, "fillet": 1}]}
     d.update(shaft)
     return parse_case({**BASE, "shaft": d})
@@ -50,6 +50,7 @@ def test_layout_in_si():
 def test_loads_rotating_carries_over_and_sprocket_has_no_slack_side():
     d = {**BASE, "loads": {"rotating": True}, "section": {"shape": "round", "diameter": 30},
          "shaft": {"length": 300, "supports": [{"at": 0}, {"at": 300}],
+                   "sections": [{"at": 100}],
                    "loads": [{"at": 10, "kind": "sprocket", "torque": 5, "diameter": 60, "pull_angle": 90},
                              {"at": 290, "torque": -5}]}}
     s = parse_case(d).shaft
@@ -77,6 +78,7 @@ def test_loads_rotating_carries_over_and_sprocket_has_no_slack_side():
     ({"sections": [{"at": 50, "section": {"shape": "round", "diameter": -30}}]}, "shaft.sections[0].section.diameter"),
     ({"density": 0}, "shaft.density"),
     ({"rotating": "yes"}, "shaft.rotating"),
+    ({"sections": []}, "shaft.sections"),
 ])
 def test_refusals_name_the_field(change, field):
     with pytest.raises(InputError) as e:
@@ -88,3 +90,11 @@ def test_section_needed_without_segments():
     with pytest.raises(InputError) as e:
         parse_case({**BASE, "shaft": {"length": 300, "supports": [{"at": 0}, {"at": 300}]}})
     assert e.value.field == "section"
+
+
+def test_section_loads_come_from_the_layout():
+    d = {**BASE, "loads": {"torque": 10}, "section": {"shape": "round", "diameter": 30},
+         "shaft": {"length": 300, "supports": [{"at": 0}, {"at": 300}], "sections": [{"at": 100}]}}
+    with pytest.raises(InputError) as e:
+        parse_case(d)
+    assert e.value.field == "loads.torque"

@@ -28,7 +28,7 @@ from classic.fatigue import surface_factor
 from fem.errors import InputError, escape_text
 from fem.geometry import Disk, Ellipse, Keyway, Section, custom_section, keyed_section, polygon, rectangle, round_section
 
-from .shaft import Shaft, parse_shaft
+from .shaft import Shaft, check_with_case, parse_shaft
 from .units import UnitSystem, from_si, to_si, unit_system
 
 if sys.version_info >= (3, 11):
@@ -202,6 +202,8 @@ def parse_case(data: dict) -> Case:
     fatigue = parse_fatigue(data.get("fatigue", {}), units)
     expected = parse_expected(data["expected"], units) if "expected" in data else {}
     _fatigue_needs_ultimate(loads, material, data.get("material", {}))
+    if shaft is not None:
+        check_with_case(shaft, data.get("loads", {}), material)
     return Case(title, units, section, loads, material, analysis, fatigue=fatigue, expected=expected,
                 feature_lengths=parse_feature_lengths(data.get("section", {}), units), shaft=shaft)
 

@@ -400,6 +400,23 @@ def _station(s, i, sh: Shaft, units, parse_section) -> Station:
     return st
 
 
+def check_with_case(sh: Shaft, raw_loads: dict, material) -> None:
+    """What the layout asks of the rest of the case: section loads come from the layout, not from
+    [loads] (only ``rotating`` may be given there); at least one station is checked; a rotating shaft's
+    bending alternates, so the fatigue check needs the ultimate strength where strengths are given."""
+    for k, v in (raw_loads or {}).items():
+        if k != "rotating":
+            raise InputError(f"loads.{k}", v if not isinstance(v, dict) else None, "cannot be given with [shaft]: "
+                             "the layout gives each station its loads (put the load in [[shaft.loads]])")
+    if not sh.stations:
+        raise InputError("shaft.sections", None, "is required with [shaft]: name at least one station to check, "
+                         "e.g. [[shaft.sections]] at = ...")
+    gives_strength = material.yield_strength is not None or material.endurance_limit is not None
+    if sh.rotating and gives_strength and material.kind == "ductile" and material.ultimate is None:
+        raise InputError("material.ultimate", None, "is needed: the shaft rotates, so its bending alternates, and the "
+                         "fatigue check (Se' = 0.5·Sut, Goodman, Gerber) cannot be made without it")
+
+
 # ----------------------------------------------------------------------------- helpers
 
 

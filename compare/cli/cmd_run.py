@@ -21,6 +21,7 @@ from ..case.case import load_case
 from ..checks.materials import read_table, table_path
 from ..output.report import summary
 from ..output.results import build_results
+from ..output.results_shaft import shaft_summary
 from ..output.vtu import write_fields_vtu
 from ..pipeline import analyse
 from ..case.case import check_fineness
@@ -51,7 +52,7 @@ def run(args) -> int:
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
     write_outputs(out, files, None if args.no_vtu else a)
     if not args.quiet:
-        print(summary(res, case.units))
+        print("\n".join(x for x in (shaft_summary(res, case.units), summary(res, case.units)) if x))
         print(f"\nwritten: {out / 'results.json'}" + ("" if args.no_vtu else f", {out / 'section.vtu'}"))
     return res.get("exit_code", 0)
 

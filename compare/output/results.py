@@ -8,6 +8,7 @@ from .._version import __version__
 from ..pairs.analysis import Analysis
 from .report import CAUTION, Fmt, warning_text
 from .report_combined import governing_text
+from .results_shaft import add_shaft_results
 
 SCHEMA_VERSION = 1
 
@@ -91,6 +92,7 @@ def build_results(a: Analysis) -> dict:
         else:
             out["governing"] = _with_text(gov, governing_text(gov, out.get("fatigue", {}), Fmt(case.units)))
     out["warnings"] = warnings_out(a)
+    add_shaft_results(out, a, build_results)  # the shaft layout's blocks, if the case has one
     return _clean(out)
 
 
