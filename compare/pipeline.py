@@ -8,11 +8,12 @@ from __future__ import annotations
 import time
 
 from .case.case import Case
+from .checks.feature_findings import feature_findings
 from .checks.findings import findings_step
 from .checks.shaft_stations import layout_step
 from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
-from .pairs.feature_step import features_step
+from .pairs.feature_step import attach_features, shaft_features_step
 from .pairs.shear_step import shear_step
 from .solve.accuracy_step import accuracy_step
 from .solve.selfchecks import self_checks
@@ -23,7 +24,11 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     line does), refine to the case's accuracy target and run the convergence study; the results come
     from the finest mesh."""
     if case.shaft is not None:  # the whole shaft, then each station through this same function
-        return layout_step(case, lambda c: analyse(c, fineness, study))
+        feats = shaft_features_step(case)  # shoulders and grooves first: their FE Kt go to the stations
+        a = layout_step(case, lambda c: analyse(c, fineness, study))
+        attach_features(a, feats)
+        a.extra["warnings"] = feature_findings(a) + list(a.extra.get("warnings") or [])
+        return a
     t0 = time.perf_counter()
     a = solve_case(case, fineness, study)  # mesh, properties, torsion and its pairs
     shear_step(a)
@@ -31,7 +36,6 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         accuracy_step(a)
     else:
         a.extra["checks"] = self_checks(a, target=case.analysis.accuracy)
-    features_step(a)  # shoulders and grooves of [shaft]: FE Kt for the station checks
     t5 = time.perf_counter()
     combined_step(a)
     a.seconds["combined"] = time.perf_counter() - t5

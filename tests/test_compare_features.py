@@ -31,7 +31,8 @@ def test_features_in_order_along_the_shaft():
                     {"from": 200, "to": 300, "diameter": 30, "fillet": 1.5},
                     {"from": 300, "to": 400, "diameter": 34}],
                    grooves=[{"at": 150, "width": 2, "depth": 0.8, "radius": 0.3},
-                            {"at": 350, "width": 2, "depth": 0.3, "radius": 0.5}])
+                            {"at": 350, "width": 2, "depth": 0.3, "radius": 0.5}],
+                   sections=[{"at": 50}])
     fs = shaft_features(c.shaft)
     assert [(f.kind, round(f.at * 1e3)) for f in fs] == [("shoulder", 100), ("groove", 150), ("shoulder", 200),
                                                           ("shoulder", 300), ("groove", 350)]
@@ -57,8 +58,15 @@ def test_station_on_a_shoulder_uses_the_fe_factors(coarse):
     # D/d = 1.2, r/d = 0.1: inside the fits' range; the FE factors within 5 % of the Table 17.1
     # fits in torsion and bending (Roark's Formulas for Stress and Strain, 7th ed., Table 17.1,
     # cases 18b and 18c; coefficients from memory; see tests/test_fem_axisym.py for the choice).
-    c = shaft_case([{"from": 0, "to": 200, "diameter": 30}, {"from": 200, "to": 400, "diameter": 36, "fillet": 3},],
-                   sections=[{"at": 200, "name": "shoulder"}, {"at": 100, "name": "plain"}])
+    c = parse_case({"case": {"units": "mm-N-MPa"},
+                    "material": {"elastic_modulus": "205 GPa", "poisson": 0.3, "yield": 540, "ultimate": 760,
+                                 "surface": "machined"},
+                    "shaft": {"length": 400, "rotating": True, "supports": [{"at": 0}, {"at": 400}],
+                              "segments": [{"from": 0, "to": 200, "diameter": 30},
+                                           {"from": 200, "to": 400, "diameter": 36, "fillet": 3}],
+                              "loads": [{"at": 100, "force": [0, -2000], "torque": 100},
+                                        {"at": 300, "torque": -100}],
+                              "sections": [{"at": 200, "name": "shoulder"}, {"at": 100, "name": "plain"}]}})
     a = analyse(c, study=False)
     rec, = a.extra["shaft"]["features"]
     assert rec["kind"] == "shoulder" and rec["at"] == pytest.approx(0.2)
@@ -72,6 +80,13 @@ def test_station_on_a_shoulder_uses_the_fe_factors(coarse):
     assert shoulder.kt["kt_bending"][0] == rec["kt_bending"] and shoulder.kt["kts_torsion"][0] == rec["kts"]
     assert "FE" in shoulder.kt["kt_bending"][1] and shoulder.kt["notch_radius"][0] == pytest.approx(0.003)
     assert plain.kt == {}
+    # the station check: its hand path takes the FE factors with the notch sensitivity at the fillet
+    st = a.extra["shaft"]["stations"][0]
+    assert st["kt_from"] == {"kt_bending": "feature", "kts_torsion": "feature"}
+    hand = a.extra["shaft_stations"][0].extra["fatigue"]["hand"]
+    assert hand["Kt"] == rec["kt_bending"] and hand["Kts"] == rec["kts"]
+    assert hand["notch_radius"] == pytest.approx(0.003) and 0 < hand["q"] < 1
+    assert hand["Kf"] == pytest.approx(1 + hand["q"] * (rec["kt_bending"] - 1))  # Shigley 9th ed., eq. 6-32
     pairs = [p for p in a.pairs if "shaft.segments[1].fillet" in p.quantity]
     assert len(pairs) == 3 and all(p.ratio == pytest.approx(p.fe / p.classic) for p in pairs)
     res = build_results(a)
@@ -79,6 +94,7 @@ def test_station_on_a_shoulder_uses_the_fe_factors(coarse):
     assert out["kt_bending"] == rec["kt_bending"] and out["kts_peak"]["angle"] is not None
     text = summary(res, c.units)
     assert "Shoulders and grooves" in text and "Kts torsion" in text
+    assert any(w["code"] == "feature_station_fe_path" for w in res["warnings"])
 
 
 def test_sharp_shoulder_gets_a_warning_and_no_factor(coarse):

@@ -5,7 +5,9 @@
 - a feature the model cannot take (fillet larger than the step, groove radius larger than its depth);
 - the model's far-field check failed (the feature's disturbance reached the plain shaft);
 - a factor without an error estimate;
-- features closer together than the plain length each model assumes (they interact; modelled alone).
+- features closer together than the plain length each model assumes (they interact; modelled alone);
+- a station on a feature: its hand path carries the FE Kt, Kts, but its FE path is the plain round
+  section's local stresses, which do not see the shoulder or groove (not yet scaled by the FE factors).
 """
 from __future__ import annotations
 
@@ -30,4 +32,7 @@ def feature_findings(a) -> list[dict]:
             if isinstance(note, dict) and "neighbours" in note:
                 out.append({"code": "feature_neighbours", "field": rec["field"], "neighbours": note["neighbours"],
                             "length": note["modelled_alone_over"]})
+    for st in (a.extra.get("shaft") or {}).get("stations") or []:
+        if "feature" in (st.get("kt_from") or {}).values():
+            out.append({"code": "feature_station_fe_path", "at": st["at"], "name": st.get("name", "")})
     return out

@@ -16,8 +16,6 @@ import math
 
 from fem.topology import cut_connectivity
 
-from .feature_findings import feature_findings
-
 #: Exit code of a run that can give no verdict: the stress is unbounded at a sharp re-entrant corner.
 EXIT_NO_VERDICT = 4
 
@@ -63,7 +61,6 @@ def findings_step(a) -> None:
     for field, length in a.case.feature_lengths:
         if length < width:
             out.append({"code": "short_feature", "field": field, "length": length, "width": width})
-    out.extend(feature_findings(a))  # shoulders and grooves of [shaft]
     a.extra["warnings"] = out
     if tr.singular_corners:
         a.extra["exit_code"] = EXIT_NO_VERDICT

@@ -62,4 +62,9 @@ def feature_warning_text(w: dict, f) -> str | None:
     if code == "feature_neighbours":
         return (f"FEATURES INTERACT: {w['field']} has {', '.join(w['neighbours'])} within {f.q(w['length'], 'length', 3)}; "
                 "each is modelled alone on a plain shaft, so their factors ignore each other.")
+    if code == "feature_station_fe_path":
+        who = w.get("name") or f.q(w["at"], "length", 5)
+        return (f"STATION ON A SHOULDER OR GROOVE ({who}): its hand path uses the FE Kt and Kts of the feature with the notch "
+                "sensitivity at its radius; its FE path (local stresses) is that of the plain round section and does not "
+                "see the feature, so read that station's verdict from the hand path.")
     return None

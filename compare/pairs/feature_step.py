@@ -102,16 +102,26 @@ def station_factors(shaft, records: list[dict]) -> None:
                 break
 
 
-def features_step(a) -> None:
-    """``a.extra['shaft']['features']``: one record per shoulder or groove, in order along the shaft."""
-    shaft = a.case.shaft
+def shaft_features_step(case) -> dict | None:
+    """Solve every shoulder and groove of ``case.shaft`` and fill the ``kt`` of the stations on them.
+    Returns {"records": [...] in order along the shaft, "pairs": [...]}, or None without [shaft].
+    Runs before the stations are checked (compare/pipeline.py)."""
+    shaft = case.shaft
     if shaft is None:
-        return
-    nu = a.case.material.poisson
-    records, cache = [], {}
+        return None
+    nu = case.material.poisson
+    records, pairs, cache = [], [], {}
     for f in shaft_features(shaft):
         rec = feature_record(f, study_feature(f, nu, cache=cache))
         records.append(rec)
-        a.pairs.extend(feature_pairs(rec))
+        pairs.extend(feature_pairs(rec))
     station_factors(shaft, records)
-    a.extra.setdefault("shaft", {})["features"] = records
+    return {"records": records, "pairs": pairs}
+
+
+def attach_features(a, feats: dict | None) -> None:
+    """Put the records in ``a.extra['shaft']['features']`` and the pairs in ``a.pairs``."""
+    if feats is None:
+        return
+    a.extra.setdefault("shaft", {})["features"] = feats["records"]
+    a.pairs.extend(feats["pairs"])
