@@ -200,3 +200,5 @@ name = "gear seat"
                                    "deflection_x", "deflection_y"}
     assert sh["critical_speeds"]["values"] == sorted(sh["critical_speeds"]["values"])
     assert "Shaft layout" in stdout and "gear seat" in stdout
+    svg = (out / "shaft.svg").read_text()
+    assert svg.lstrip().startswith("<?xml") and "</svg>" in svg  # the diagrams with the stations marked
