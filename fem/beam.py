@@ -20,6 +20,8 @@ from dataclasses import dataclass
 
 import numpy as np
 import scipy.linalg
+import scipy.sparse
+import scipy.sparse.linalg
 
 _GAUSS = np.polynomial.legendre.leggauss(5)  # exact to degree 9: products of cubics (6) with a linear weight
 
@@ -138,11 +140,14 @@ def solve_static(beam: Beam, supports, forces=(), moments=(), q=None) -> StaticR
             Ks[2 * node, 2 * node] += k
     free = np.setdiff1d(np.arange(n), fixed)
     u = np.zeros(n)
-    Kff = Ks[np.ix_(free, free)]
-    cond = np.linalg.cond(Kff)
-    if not np.isfinite(cond) or cond > 1e14:
+    Kff = scipy.sparse.csc_matrix(Ks[np.ix_(free, free)])  # banded: a sparse factorisation is linear in n
+    try:
+        u[free] = scipy.sparse.linalg.splu(Kff).solve(f[free])
+    except RuntimeError:  # exactly singular
+        raise ValueError("the supports leave the beam free to move (a mechanism)") from None
+    if not np.all(np.isfinite(u)) or np.linalg.norm(Ks[np.ix_(free, free)] @ u[free] - f[free]) > 1e-8 * max(
+            np.linalg.norm(f), 1e-300):
         raise ValueError("the supports leave the beam free to move (a mechanism)")
-    u[free] = scipy.linalg.solve(Kff, f[free], assume_a="pos")
     r_all = Ks @ u - f  # force the constraints must add at each unknown (zero at free ones)
     reactions = []
     for node, k in supports:

@@ -101,7 +101,8 @@ def shaft_summary(res: dict, system) -> str:
         lines.append(f"  WARNING: {_warning_line(w, f)}")
     for r in sh["reactions"]:
         lines.append(f"  reaction {r['name'] or ''} at {f.q(r['at'], 'length', 4)}: Fx {f.q(r['Fx'], 'force', 4)}, "
-                     f"Fy {f.q(r['Fy'], 'force', 4)}, |F| {f.q(r['F'], 'force', 4)}")
+                     f"Fy {f.q(r['Fy'], 'force', 4)}, |F| {f.q(r['F'], 'force', 4)}"
+                     + (f", axial {f.q(r['Fz'], 'force', 4)} (locating bearing)" if r.get("Fz") else ""))
     md = sh["max_deflection"]
     lines.append(f"  largest deflection {f.q(md['value'], 'length', 3)} at {f.q(md['at'], 'length', 4)}; largest bending "
                  f"moment {f.q(sh['max_moment']['value'], 'moment', 4)} at {f.q(sh['max_moment']['at'], 'length', 4)}")
