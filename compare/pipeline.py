@@ -8,9 +8,12 @@ from __future__ import annotations
 import time
 
 from .case.case import Case
+from .checks.feature_findings import feature_findings
 from .checks.findings import findings_step
+from .checks.shaft_stations import layout_step
 from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
+from .pairs.feature_step import attach_features, shaft_features_step
 from .pairs.shear_step import shear_step
 from .solve.accuracy_step import accuracy_step
 from .solve.selfchecks import self_checks
@@ -20,6 +23,12 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     """Solve the case and run every later step. With ``study`` (the default, and what the command
     line does), refine to the case's accuracy target and run the convergence study; the results come
     from the finest mesh."""
+    if case.shaft is not None:  # the whole shaft, then each station through this same function
+        feats = shaft_features_step(case)  # shoulders and grooves first: their FE Kt go to the stations
+        a = layout_step(case, lambda c: analyse(c, fineness, study))
+        attach_features(a, feats)
+        a.extra["warnings"] = feature_findings(a) + list(a.extra.get("warnings") or [])
+        return a
     t0 = time.perf_counter()
     a = solve_case(case, fineness, study)  # mesh, properties, torsion and its pairs
     shear_step(a)

@@ -3,6 +3,9 @@
 Coordinates ``w.x`` are those of the mesh; the solvers pass centroidal meshes where a form needs
 centroidal axes (warping and shear functions). Second-moment parameters arrive as ``w.Ixx`` etc.
 """
+import math
+
+import numpy as np
 from skfem import BilinearForm, Functional, LinearForm
 from skfem.helpers import dot, grad
 
@@ -119,3 +122,83 @@ def shear_load_y(v, w):
     src = 2.0 * (Ixy * x - Iyy * y)
     gv = grad(v)
     return -src * v + h0 * gv[0] + h1 * gv[1] + div_h * v
+
+
+# ----------------------------------------------------------------------------- shafts of revolution
+# The meridian section of a shaft of revolution: mesh coordinates w.x = (r, z), r ≥ 0 the distance
+# from the axis, z along it. The θ-integral is done by hand, so every form below is the full 3-D
+# energy of a shaft of revolution (per radian factors 2π or π included), and ½·xᵀKx is the strain
+# energy of the solid.
+#   Torsion: Timoshenko & Goodier, Theory of Elasticity, 3rd ed., §119 (section number from memory) "Torsion of circular shafts
+#   of variable diameter": u_θ = r·ω(r, z), equilibrium ∂/∂r(r³ ∂ω/∂r) + ∂/∂z(r³ ∂ω/∂z) = 0,
+#   τ_rθ = G·r·∂ω/∂r, τ_θz = G·r·∂ω/∂z; lateral surface traction-free (natural condition).
+#   Axisymmetric and first-harmonic elasticity: Zienkiewicz & Taylor, The Finite Element Method,
+#   vol. 1, 6th ed., the sections on axisymmetric stress analysis and on axisymmetric solids under
+#   non-symmetric loads by Fourier series (cited from memory, section numbers not given); the strain
+#   definitions below were derived here from
+#   the cylindrical-coordinate strains and checked on the exact straight-bar fields (tests).
+
+
+@BilinearForm
+def axisym_torsion(u, v, w):
+    """2π·G ∫ r³ ∇ω·∇v dr dz (G passed as ``w.G``): the energy of u_θ = r·ω(r, z)."""
+    r = w.x[0]
+    return 2.0 * math.pi * w.G * r**3 * dot(grad(u), grad(v))
+
+
+def _lame(E, nu):
+    lam = E * nu / ((1 + nu) * (1 - 2 * nu))
+    mu = E / (2 * (1 + nu))
+    return lam, mu
+
+
+def axisym_n0_strains(u, r):
+    """(ε_r, ε_θ, ε_z, γ_rz) of u = (u_r, u_z) on the meridian section (harmonic n = 0)."""
+    g = u.grad
+    v = np.asarray(u)  # the value of the field (a DiscreteField is an array of its values)
+    return g[0][0], v[0] / r, g[1][1], g[0][1] + g[1][0]
+
+
+@BilinearForm
+def axisym_elasticity_n0(u, v, w):
+    """2π ∫ σ(u):ε(v) r dr dz, u = (u_r, u_z): axisymmetric elasticity (axial load).
+
+    ε_r = ∂u_r/∂r, ε_θ = u_r/r, ε_z = ∂u_z/∂z, γ_rz = ∂u_r/∂z + ∂u_z/∂r; isotropic, E = ``w.E``,
+    ν = ``w.nu``. u_r = 0 on the axis is imposed by the solver."""
+    r = w.x[0]
+    lam, mu = _lame(w.E, w.nu)
+    er, et, ez, grz = axisym_n0_strains(u, r)
+    fr, ft, fz, frz = axisym_n0_strains(v, r)
+    tr_u = er + et + ez
+    tr_v = fr + ft + fz
+    s = lam * tr_u * tr_v + 2 * mu * (er * fr + et * ft + ez * fz) + mu * grz * frz
+    return 2.0 * math.pi * s * r
+
+
+def axisym_n1_strains(u, r):
+    """Strain amplitudes of the first circumferential harmonic, u = (U_r, U_θ, U_z) with
+    u_r = U_r cos θ, u_θ = U_θ sin θ, u_z = U_z cos θ:
+    (ε_r, ε_θ, ε_z, γ_rz) multiply cos θ, (γ_rθ, γ_θz) multiply sin θ.
+
+    ε_r = ∂U_r/∂r, ε_θ = (U_r + U_θ)/r, ε_z = ∂U_z/∂z, γ_rz = ∂U_r/∂z + ∂U_z/∂r,
+    γ_rθ = ∂U_θ/∂r − (U_r + U_θ)/r, γ_θz = ∂U_θ/∂z − U_z/r."""
+    g = u.grad
+    Ur, Ut, Uz = np.asarray(u)  # the value of the field
+    et = (Ur + Ut) / r
+    return (g[0][0], et, g[2][1], g[0][1] + g[2][0]), (g[1][0] - et, g[1][1] - Uz / r)
+
+
+@BilinearForm
+def axisym_elasticity_n1(u, v, w):
+    """π ∫ σ(u):ε(v) r dr dz for the first circumferential harmonic (bending).
+
+    The θ-integrals of cos²θ and sin²θ over a turn are both π; the cos-group and the sin-group of
+    strains do not couple in an isotropic material. On the axis the solver imposes U_z = 0 and
+    U_r + U_θ = 0 (regularity)."""
+    r = w.x[0]
+    lam, mu = _lame(w.E, w.nu)
+    (er, et, ez, grz), (grt, gtz) = axisym_n1_strains(u, r)
+    (fr, ft, fz, frz), (frt, ftz) = axisym_n1_strains(v, r)
+    s = (lam * (er + et + ez) * (fr + ft + fz) + 2 * mu * (er * fr + et * ft + ez * fz)
+         + mu * (grz * frz + grt * frt + gtz * ftz))
+    return math.pi * s * r

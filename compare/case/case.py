@@ -28,6 +28,7 @@ from classic.fatigue import surface_factor
 from fem.errors import InputError, escape_text
 from fem.geometry import Disk, Ellipse, Keyway, Section, custom_section, keyed_section, polygon, rectangle, round_section
 
+from .shaft import Shaft, check_with_case, parse_shaft
 from .units import UnitSystem, from_si, to_si, unit_system
 
 if sys.version_info >= (3, 11):
@@ -104,9 +105,10 @@ class Case:
     #: (case-file field, length along the shaft [m]) of the features given a ``length``
     feature_lengths: list = field(default_factory=list)
     expected: dict = field(default_factory=dict)  # [expected] of a verification case: {quantity: SI value}
+    shaft: Shaft | None = None  # the [shaft] layout (compare/case/shaft.py), if the case gives one
 
 
-_TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue",
+_TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue", "shaft",
         "sweep"}  # [sweep]: read by `shaftcheck sweep` (compare/sweep.py), not by a single run
 _CASE = {"title", "units", "description", "source"}
 _LOAD_SCALARS = {"torque": "moment", "axial": "force"}
@@ -189,17 +191,29 @@ def parse_case(data: dict) -> Case:
     for key in ("description", "source"):
         if key in c:
             _text(c[key], f"case.{key}")
-    if "section" not in data:
-        raise InputError("section", None, "is missing: every case describes a section")
-    section = parse_section(data["section"], units)
+    section = parse_section(data["section"], units) if "section" in data else None
     loads = parse_loads(data.get("loads", {}), units)
+    shaft = parse_shaft(data["shaft"], units, parse_section, loads.rotating) if "shaft" in data else None
+    if "section" not in data and not (shaft is not None and shaft.segments):
+        raise InputError("section", None, "is missing: every case describes a section (a [shaft] without "
+                         "segments takes its diameter from [section])")
+    section = section if section is not None else _shaft_section(shaft)
     material = parse_material(data.get("material", {}), units)
     analysis = parse_analysis(data.get("analysis", {}))
     fatigue = parse_fatigue(data.get("fatigue", {}), units)
     expected = parse_expected(data["expected"], units) if "expected" in data else {}
     _fatigue_needs_ultimate(loads, material, data.get("material", {}))
+    if shaft is not None:
+        check_with_case(shaft, data.get("loads", {}), material)
     return Case(title, units, section, loads, material, analysis, fatigue=fatigue, expected=expected,
-                feature_lengths=parse_feature_lengths(data["section"], units))
+                feature_lengths=parse_feature_lengths(data.get("section", {}), units), shaft=shaft)
+
+
+def _shaft_section(shaft: Shaft) -> Section:
+    """The case's section when [shaft] has segments and no [section]: the plain round of the first
+    segment (each station is checked on its own section; see compare/case/shaft.py)."""
+    seg = shaft.segments[0]
+    return round_section(seg.diameter, seg.bore)
 
 
 def parse_expected(d, units) -> dict:

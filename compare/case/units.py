@@ -33,7 +33,21 @@ SI = {
     "twist": "rad/m",
     "temperature": "degC",
     "dimensionless": "",
+    "density": "kg/m**3",
+    "mass": "kg",
+    "mass_inertia": "kg*m**2",
+    "stiffness": "N/m",
+    "angular_speed": "rad/s",
 }
+#: Default units of the shaft-layout dimensions for a plain number, per length unit of the system.
+_LAYOUT_UNITS = {
+    "mm": {"density": "kg/m**3", "mass": "kg", "mass_inertia": "kg*m**2", "stiffness": "N/mm", "angular_speed": "rpm"},
+    "m": {"density": "kg/m**3", "mass": "kg", "mass_inertia": "kg*m**2", "stiffness": "N/m", "angular_speed": "rpm"},
+    "inch": {"density": "lb/inch**3", "mass": "lb", "mass_inertia": "lb*inch**2", "stiffness": "lbf/inch",
+             "angular_speed": "rpm"},
+}
+_LAYOUT_LABELS = {"kg/m**3": "kg/m³", "kg*m**2": "kg·m²", "N/mm": "N/mm", "N/m": "N/m", "lb/inch**3": "lb/in³",
+                  "lb*inch**2": "lb·in²", "lbf/inch": "lbf/in", "rpm": "rpm", "kg": "kg", "lb": "lb"}
 
 
 @dataclass(frozen=True)
@@ -44,6 +58,8 @@ class UnitSystem:
     stress: str
 
     def unit(self, dimension: str) -> str:
+        if dimension in _LAYOUT_UNITS["m"]:
+            return _LAYOUT_UNITS[self.length][dimension]
         return {
             "length": self.length,
             "area": f"{self.length}**2",
@@ -58,6 +74,8 @@ class UnitSystem:
         }[dimension]
 
     def label(self, dimension: str) -> str:
+        if dimension in _LAYOUT_UNITS["m"]:
+            return _LAYOUT_LABELS[_LAYOUT_UNITS[self.length][dimension]]
         return {
             "length": self.length,
             "area": f"{self.length}²",

@@ -21,6 +21,8 @@ from ..case.case import load_case
 from ..checks.materials import read_table, table_path
 from ..output.report import summary
 from ..output.results import build_results
+from ..output.figure_shaft import shaft_figure_svg
+from ..output.results_shaft import shaft_summary
 from ..output.vtu import write_fields_vtu
 from ..pipeline import analyse
 from ..case.case import check_fineness
@@ -49,9 +51,11 @@ def run(args) -> int:
     a = analyse(case, fineness=fineness)
     res = build_results(a)
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
+    if res.get("shaft"):  # the layout's diagrams and deflected shape
+        files["shaft.svg"] = shaft_figure_svg(res, case.units)
     write_outputs(out, files, None if args.no_vtu else a)
     if not args.quiet:
-        print(summary(res, case.units))
+        print("\n".join(x for x in (shaft_summary(res, case.units), summary(res, case.units)) if x))
         print(f"\nwritten: {out / 'results.json'}" + ("" if args.no_vtu else f", {out / 'section.vtu'}"))
     return res.get("exit_code", 0)
 
@@ -72,7 +76,7 @@ def option_number(name: str, text: str | None) -> float | None:
 
 # The names shaftcheck writes into an output folder. A folder holding only these (as plain files) is
 # taken to be an earlier output and is replaced as a whole; anything else in it stops the run (exit 2).
-OUTPUT_NAMES = frozenset({"results.json", "section.vtu", "verify.json",
+OUTPUT_NAMES = frozenset({"results.json", "section.vtu", "verify.json", "shaft.svg",
                           "sweep.csv", "sweep.parquet", "sweep.png", "sweep.svg", "sweep.html"})
 
 # Test-only hook: seconds to pause after the results are written to the temporary folder and before

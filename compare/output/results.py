@@ -8,6 +8,8 @@ from .._version import __version__
 from ..pairs.analysis import Analysis
 from .report import CAUTION, Fmt, warning_text
 from .report_combined import governing_text
+from .results_features import add_feature_results
+from .results_shaft import add_shaft_results
 
 SCHEMA_VERSION = 1
 
@@ -91,6 +93,8 @@ def build_results(a: Analysis) -> dict:
         else:
             out["governing"] = _with_text(gov, governing_text(gov, out.get("fatigue", {}), Fmt(case.units)))
     out["warnings"] = warnings_out(a)
+    add_shaft_results(out, a, build_results)  # the shaft layout's blocks, if the case has one
+    add_feature_results(out, a)  # shaft.features: shoulders and grooves
     return _clean(out)
 
 

@@ -1,0 +1,38 @@
+"""Warnings about the shoulders and grooves of ``[shaft]`` (records; output/ words them):
+
+- a shoulder without a fillet radius: its elastic stress is unbounded, so it has no Kt and a
+  station there no fatigue verdict from these factors;
+- a feature the model cannot take (fillet larger than the step, groove radius larger than its depth);
+- the model's far-field check failed (the feature's disturbance reached the plain shaft);
+- a factor without an error estimate;
+- features closer together than the plain length each model assumes (they interact; modelled alone);
+- a station on a feature: its hand path carries the FE Kt, Kts, but its FE path is the plain round
+  section's local stresses, which do not see the shoulder or groove (not yet scaled by the FE factors).
+"""
+from __future__ import annotations
+
+
+def feature_findings(a) -> list[dict]:
+    out: list[dict] = []
+    feats = (a.extra.get("shaft") or {}).get("features") or []
+    for rec in feats:
+        if rec.get("skipped"):
+            out.append({"code": f"feature_{rec['skipped']}", "field": rec["field"], "at": rec["at"],
+                        "radius": rec.get("radius")})
+            continue
+        for key in ("kt_bending", "kt_axial", "kts"):
+            ff = rec.get(f"{key}_far_field")
+            if ff is not None and not ff["passed"]:
+                out.append({"code": "feature_far_field", "field": rec["field"], "factor": key,
+                            "fem": ff["fem"], "exact": ff["exact"], "tolerance": ff["tolerance"]})
+            if rec.get(key) is not None and rec.get(f"{key}_gci") is None:
+                out.append({"code": "feature_no_gci", "field": rec["field"], "factor": key,
+                            "values": rec.get(f"{key}_values_coarse_to_fine")})
+        for note in rec.get("notes", []):
+            if isinstance(note, dict) and "neighbours" in note:
+                out.append({"code": "feature_neighbours", "field": rec["field"], "neighbours": note["neighbours"],
+                            "length": note["modelled_alone_over"]})
+    for st in (a.extra.get("shaft") or {}).get("stations") or []:
+        if "feature" in (st.get("kt_from") or {}).values():
+            out.append({"code": "feature_station_fe_path", "at": st["at"], "name": st.get("name", "")})
+    return out

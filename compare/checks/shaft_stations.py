@@ -1,0 +1,170 @@
+"""From the layout to every checked station: the whole-shaft beam step, the loads at each station
+(both sides of a jump, the larger used), one section check per station (the ordinary section
+analysis, handed in as ``analyse`` so this room does not import the pipeline), the beam solved again
+with each station's FE section over its feature length, and the governing station.
+
+Kt hook for shoulders and grooves: a station's fatigue factors come, in this order, from the
+station's own ``fatigue`` table in the case file, from ``Station.kt`` (filled by a feature step that
+computes shoulder and groove factors, {"kt_bending": (value, source), "kts_torsion": (value, source)}),
+and from the case's [fatigue] table. A station at a shoulder or groove with none of these gets a
+warning: a 2-D section cannot see a shoulder or a groove, so its fatigue check leaves that factor out.
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import replace
+
+from fem.geometry import round_section
+
+from ..case.case import Case, Fatigue, Loads, parse_feature_lengths
+from ..case.shaft import Segment, Shaft, Station
+from ..case.units import from_si
+from .shaft_beam import SIDE, loads_at, solve_layout
+
+#: Relative change of a station's loads between the round-bar beam and the beam with the stations'
+#: FE sections above which the station is checked again (only an indeterminate shaft can change).
+RELOAD_TOL = 1e-3
+LOAD_KEYS = ("N", "Vx", "Vy", "Mx", "My", "T")
+
+
+def station_diameter(shaft: Shaft, segs, at: float):
+    """(diameter, bore, at_step) of the plain shaft at ``at``: at a step, the smaller side."""
+    left = next((s for s in segs if s.start < at <= s.end), None)
+    right = next((s for s in segs if s.start <= at < s.end), None)
+    cands = [s for s in (left, right) if s is not None]
+    s = min(cands, key=lambda s: s.diameter)
+    step = left is not None and right is not None and left is not right and left.diameter != right.diameter
+    return s.diameter, s.bore, step
+
+
+def nominal_equivalent(ld: dict, d: float) -> float:
+    """Nominal von Mises stress of a plain round under the loads (used only to pick the side of a jump):
+    σ = 4N/(πd²) + 32M/(πd³), τ = 16T/(πd³), √(σ² + 3τ²)."""
+    M = math.hypot(ld["Mx"], ld["My"])
+    s = 4 * abs(ld["N"]) / (math.pi * d**2) + 32 * M / (math.pi * d**3)
+    t = 16 * abs(ld["T"]) / (math.pi * d**3)
+    return math.hypot(s, math.sqrt(3) * t)
+
+
+def station_loads(layout: dict, st: Station, d: float) -> dict:
+    """Loads just left and just right of the station; the larger (by the nominal equivalent stress) is
+    used. Away from a jump both are the same."""
+    L = layout["z"][-1]
+    left = loads_at(layout["items"], layout["z"], layout["qy"], max(st.at - SIDE * L, 0.0) if st.at > 0 else 0.0)
+    right = loads_at(layout["items"], layout["z"], layout["qy"], st.at if st.at < L else L * (1 - SIDE))
+    if st.at <= 0.0:
+        left = right
+    if st.at >= L:
+        right = left
+    scale = max(max(abs(v) for v in left.values()), max(abs(v) for v in right.values()), 1e-300)
+    jump = any(abs(left[k] - right[k]) > 1e-9 * scale for k in LOAD_KEYS)
+    use = "right" if nominal_equivalent(right, d) > nominal_equivalent(left, d) else "left"
+    return {"left": left, "right": right, "jump": jump, "used_side": use if jump else None,
+            "used": right if use == "right" else left}
+
+
+def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tuple[Case, dict]:
+    """The ordinary section case of one station with its loads, and a record of what it is made of."""
+    d, bore, step = station_diameter(shaft, segs, st.at)
+    section = st.section if st.section is not None else round_section(d, bore)
+    fat = replace(case.fatigue) if case.fatigue else Fatigue()
+    kt_from = {}
+    for key in ("kt_bending", "kts_torsion"):
+        if key in st.fatigue:
+            setattr(fat, key, st.fatigue[key])
+            setattr(fat, f"{key}_source", st.fatigue[f"{key}_source"])
+            kt_from[key] = "station"
+        elif key in st.kt:
+            setattr(fat, key, st.kt[key][0])
+            setattr(fat, f"{key}_source", st.kt[key][1])
+            kt_from[key] = "feature"
+        elif getattr(fat, key) is not None:
+            kt_from[key] = "case"
+    if "notch_radius" in st.fatigue:
+        fat.notch_radius = st.fatigue["notch_radius"]
+    elif "notch_radius" in st.kt and "feature" in kt_from.values():  # the fillet / groove radius
+        fat.notch_radius = st.kt["notch_radius"][0]
+    lo = Loads(torque=loads["T"], bending=(loads["Mx"], loads["My"]), shear=(loads["Vx"], loads["Vy"]),
+               axial=loads["N"], rotating=shaft.rotating)
+    where = (f"{from_si(st.at, 'length', case.units):.6g} {case.units.label('length')}" if case.units
+             else f"{st.at:.6g} m")
+    title = f"{case.title} — station at z = {where}" + (f" ({st.name})" if st.name else "")
+    sc = Case(title, case.units, section, lo, case.material, case.analysis, path=case.path, fatigue=fat,
+              feature_lengths=parse_feature_lengths(st.raw.get("section", {}), case.units) if st.section else [])
+    near = [g for g in shaft.grooves if abs(g.at - st.at) <= g.width / 2 + 1e-12]
+    features = (["shoulder"] if step else []) + (["groove"] * bool(near))
+    rec = {"at": st.at, "name": st.name, "diameter": d, "bore": bore, "features": features,
+           "section_kind": section.kind, "kt_from": kt_from}
+    if features and not {"kt_bending", "kts_torsion"} & set(kt_from):
+        rec["warning"] = "kt_missing"
+    return sc, rec
+
+
+def layout_step(case: Case, analyse):
+    """The whole shaft, then every station through ``analyse(case) -> Analysis``. Returns the
+    governing station's Analysis, with ``extra['shaft']`` holding the layout record and
+    ``extra['shaft_stations']`` the station analyses (governing included)."""
+    shaft = case.shaft
+    layout = solve_layout(shaft, case.section, case.material)
+    segs = shaft.segments or _uniform(shaft, case)
+    stations, analyses = [], []
+    for st in shaft.stations:
+        d, _, _ = station_diameter(shaft, segs, st.at)
+        sl = station_loads(layout, st, d)
+        sc, rec = station_case(case, shaft, st, segs, sl["used"])
+        rec.update(loads=sl)
+        stations.append(rec)
+        analyses.append(analyse(sc))
+    overrides = _fe_overrides(shaft, stations, analyses)
+    if overrides:
+        layout2 = solve_layout(shaft, case.section, case.material, overrides=overrides)
+        for i, st in enumerate(shaft.stations):
+            d = stations[i]["diameter"]
+            sl = station_loads(layout2, st, d)
+            old = stations[i]["loads"]["used"]
+            scale = max(max(abs(v) for v in old.values()), 1e-300)
+            if any(abs(sl["used"][k] - old[k]) > RELOAD_TOL * scale for k in LOAD_KEYS):
+                sc, rec = station_case(case, shaft, st, segs, sl["used"])
+                rec.update(loads=sl, checked_again=True)
+                stations[i] = rec
+                analyses[i] = analyse(sc)
+            else:
+                stations[i]["loads"] = sl
+        layout = layout2
+    layout["fe_sections"] = [{"from": o[0], "to": o[1], "Ixx": o[2], "Iyy": o[3], "area": o[4], "kappa": o[5]}
+                             for o in overrides]
+    for rec, a in zip(stations, analyses):
+        gov = a.extra.get("governing") or {}
+        rec["governing"] = gov or None
+        rec["exit_code"] = a.extra.get("exit_code")
+    factors = [((rec["governing"] or {}).get("factor"), i) for i, rec in enumerate(stations)]
+    known = [(n, i) for n, i in factors if n is not None and math.isfinite(n)]
+    g = min(known)[1] if known else 0
+    a = analyses[g]
+    layout["governing_station"] = g
+    worst = max((rec["exit_code"] or 0 for rec in stations), default=0)
+    if worst:  # a station without a supported verdict makes the whole run one
+        a.extra["exit_code"] = max(worst, a.extra.get("exit_code") or 0)
+    a.extra["shaft"] = {"layout": layout, "stations": stations}
+    a.extra["shaft_stations"] = analyses
+    return a
+
+
+def _uniform(shaft: Shaft, case: Case):
+    return [Segment(0.0, shaft.length, case.section.diameter, case.section.bore)]
+
+
+def _fe_overrides(shaft: Shaft, stations, analyses) -> list:
+    """(z0, z1, Ixx, Iyy, A, κ) over the feature length of every station whose own section gives one."""
+    out = []
+    for st, rec, a in zip(shaft.stations, stations, analyses):
+        if st.section is None:
+            continue
+        lengths = [ln for _, ln in a.case.feature_lengths]
+        if not lengths or a.shear is None:
+            continue
+        ell = max(lengths)
+        kappa = min(a.shear.kappa_x, a.shear.kappa_y)
+        out.append((max(st.at - ell / 2, 0.0), min(st.at + ell / 2, shaft.length), a.props.Ixx, a.props.Iyy,
+                    a.props.area, kappa))
+    return out

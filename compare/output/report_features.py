@@ -1,0 +1,70 @@
+"""The summary lines and warning texts of the shoulders and grooves along the shaft
+(``shaft.features`` of results.json; compare/pairs/feature_step.py)."""
+from __future__ import annotations
+
+_NAMES = {"kts": "Kts torsion", "kt_bending": "Kt bending", "kt_axial": "Kt axial"}
+
+
+def _pct(v) -> str:
+    return "—" if v is None else f"{100 * v:.2g} %"
+
+
+def feature_lines(res: dict, f) -> list[str]:
+    """Summary block: each feature, its FE factors with their error bounds, the chart beside them."""
+    feats = (res.get("shaft") or {}).get("features") or []
+    if not feats:
+        return []
+    lines = ["Shoulders and grooves (axisymmetric FE of the meridian section; chart: Roark 7th ed., Table 17.1)"]
+    for r in feats:
+        size = (f"d {f.q(r['d'], 'length', 4)}, D {f.q(r['D'], 'length', 4)}" if r["kind"] == "shoulder" else
+                f"D {f.q(r['D'], 'length', 4)}, depth {f.q(r['depth'], 'length', 3)}, width {f.q(r['width'], 'length', 3)}")
+        rad = f", radius {f.q(r['radius'], 'length', 3)}" if r.get("radius") else ""
+        lines.append(f"  {r['kind']} at {f.q(r['at'], 'length', 5)} ({r['field']}): {size}{rad}")
+        if r.get("skipped"):
+            lines.append(f"      no factors: {_SKIP.get(r['skipped'], r['skipped'])}")
+            continue
+        for key, name in _NAMES.items():
+            ch = r.get(f"{key}_chart") or {}
+            chart = (f"chart {ch['value']:.3f}, FE/chart {r[key] / ch['value']:.3f}" if ch.get("value") is not None
+                     else f"no chart value ({_WHY.get(ch.get('why'), ch.get('why'))})")
+            pk = r.get(f"{key}_peak") or {}
+            ang = f", {pk['angle']:.0f}° round the arc" if pk.get("angle") is not None else ""
+            bound = "GCI" if r.get(f"{key}_gci_kind") == "gci" else "error bound"
+            lines.append(f"      {name:<12} FE {r[key]:.3f} ({bound} {_pct(r.get(f'{key}_gci'))}), {chart}; "
+                         f"peak at {f.q(pk.get('at'), 'length', 5)}{ang}")
+    return lines
+
+
+_SKIP = {"sharp_shoulder": "no fillet radius given; a sharp shoulder has an unbounded elastic stress",
+         "fillet_beyond_step": "the fillet is larger than the step (not a tangent quarter arc)",
+         "groove_radius_beyond_depth": "the bottom radius is larger than the depth (not modelled)"}
+_WHY = {"outside_range": "geometry outside the fit's h/r range; not extrapolated",
+        "bored_shaft": "the fit is for solid shafts"}
+
+
+def feature_warning_text(w: dict, f) -> str | None:
+    """The words of a ``feature_*`` warning record (compare/checks/feature_findings.py)."""
+    code = w["code"]
+    if code == "feature_sharp_shoulder":
+        return (f"NO FACTOR AT A SHARP SHOULDER: {w['field']} (at {f.q(w['at'], 'length', 5)}) gives no fillet radius. The "
+                "elastic stress in a sharp corner is unbounded, so no Kt, Kts or fatigue verdict can be given there; "
+                "give the fillet radius.")
+    if code in ("feature_fillet_beyond_step", "feature_groove_radius_beyond_depth"):
+        return (f"FEATURE NOT MODELLED: {w['field']} (at {f.q(w['at'], 'length', 5)}): "
+                f"{_SKIP[code[len('feature_'):]]}; no factors are given for it.")
+    if code == "feature_far_field":
+        return (f"MODEL TOO SHORT: {w['field']}, {_NAMES.get(w['factor'], w['factor'])}: away from the feature the surface "
+                f"stress is {w['fem']:.6g} of nominal, not {w['exact']:.6g} (tolerance {w['tolerance']:.0e}); the end "
+                "conditions may reach the feature.")
+    if code == "feature_no_gci":
+        return (f"NO ERROR ESTIMATE: {w['field']}, {_NAMES.get(w['factor'], w['factor'])}: the three meshes gave "
+                f"{w['values']}; the factor carries an unknown discretisation error.")
+    if code == "feature_neighbours":
+        return (f"FEATURES INTERACT: {w['field']} has {', '.join(w['neighbours'])} within {f.q(w['length'], 'length', 3)}; "
+                "each is modelled alone on a plain shaft, so their factors ignore each other.")
+    if code == "feature_station_fe_path":
+        who = w.get("name") or f.q(w["at"], "length", 5)
+        return (f"STATION ON A SHOULDER OR GROOVE ({who}): its hand path uses the FE Kt and Kts of the feature with the notch "
+                "sensitivity at its radius; its FE path (local stresses) is that of the plain round section and does not "
+                "see the feature, so read that station's verdict from the hand path.")
+    return None

@@ -1,0 +1,149 @@
+"""The shaft layout's part of ``results.json``: ``shaft`` (reactions, diagrams, deflections, slopes,
+critical speeds, stations) and ``section_loads`` (one entry per checked station with its section
+results beside it), and the terminal lines of the layout. SI in the results; the case's units on
+the terminal. README ('The shaft layout') documents the keys.
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import replace
+
+from .report import Fmt
+
+_STATION_KEYS = ("governing", "warnings", "static", "fatigue", "torsion", "section", "exit_code")
+
+
+def add_shaft_results(out: dict, a, build_results) -> None:
+    """Replace the raw layout records a.extra put in ``out`` by the ``shaft`` and ``section_loads``
+    blocks (``build_results`` of each station's analysis is handed in: same room, no circle)."""
+    out.pop("shaft_stations", None)
+    rec = a.extra.get("shaft")
+    if rec is None:
+        out.pop("shaft", None)
+        return
+    lay, stations = rec["layout"], rec["stations"]
+    analyses = a.extra["shaft_stations"]
+    cs = lay["critical_speeds"]
+    d = lay["diagrams"]
+    out["shaft"] = {
+        "parts": lay["parts"],
+        "reactions": lay["reactions"],
+        "axial_reaction_note": lay["axial_reaction_note"],
+        "diagrams": d["columns"],
+        "max_deflection": d["max_deflection"],
+        "max_moment": d["max_moment"],
+        "slopes": lay["slopes"],
+        "gear_deflections": lay["gear_deflections"],
+        "critical_speeds": cs,
+        "equilibrium_residual": lay["equilibrium_residual"],
+        "beam_solve_residual": lay["fe_residual"],
+        "fe_sections": lay["fe_sections"],
+        "beam": {"elements": len(lay["z"]) - 1, "theory": "Timoshenko (shear deformation; rotary inertia in the "
+                 "critical speeds)", "stiffness": "round-bar E·I and κ·G·A per segment; a station's FE section over "
+                 "its feature length where given (fe_sections)"},
+        "governing_station": lay["governing_station"],
+        "warnings": shaft_warnings(lay, stations),
+    }
+    loads = []
+    for rec_st, sa in zip(stations, analyses):
+        r = build_results(replace(sa, extra={k: v for k, v in sa.extra.items() if k not in ("shaft", "shaft_stations")}))
+        entry = {"at": rec_st["at"], "name": rec_st["name"], **rec_st["loads"]["used"],
+                 "left": rec_st["loads"]["left"], "right": rec_st["loads"]["right"],
+                 "jump": rec_st["loads"]["jump"], "used_side": rec_st["loads"]["used_side"],
+                 "diameter": rec_st["diameter"], "features": rec_st["features"], "kt_from": rec_st["kt_from"],
+                 "checked_again": rec_st.get("checked_again", False),
+                 "results": {k: r[k] for k in _STATION_KEYS if k in r}}
+        loads.append(entry)
+    out["section_loads"] = loads
+    # the layout's warnings first, beside the governing station's own
+    out["warnings"] = [{"code": w["code"], "text": w["text"], "data": {k: v for k, v in w.items() if k not in ("code", "text")}}
+                       for w in out["shaft"]["warnings"]] + out.get("warnings", [])
+
+
+def shaft_warnings(lay: dict, stations: list) -> list[dict]:
+    """Records with a sentence each (SI numbers in the data; the terminal writes its own units)."""
+    out = []
+    for st in stations:
+        if st.get("warning") == "kt_missing":
+            out.append({"code": "station_kt_missing", "at": st["at"], "name": st["name"], "features": st["features"],
+                        "text": f"station {st['name'] or st['at']}: at a {' and '.join(st['features'])}, which a 2-D "
+                                "section cannot see; its fatigue check leaves the stress concentration out (give "
+                                "fatigue.kt_bending / kts_torsion for the station with their source). Its factors are "
+                                "not a verdict for the shoulder."})
+        code = st.get("exit_code")
+        if code:
+            out.append({"code": "station_without_verdict", "at": st["at"], "name": st["name"], "exit_code": code,
+                        "text": f"station {st['name'] or st['at']}: its section check has no supported verdict "
+                                f"(exit code {code}; see its warnings in section_loads)"})
+    for s in lay["slopes"]:
+        if not s["ok"]:
+            out.append({"code": "slope_above_limit", "at": s["at"], "name": s["name"], "slope": s["slope"],
+                        "limit": s["limit"], "text": f"slope at {s['kind']} {s['name'] or s['at']} is {s['slope']:.3g} "
+                        f"rad, above {s['limit']:.3g} rad ({s['basis']})"})
+    for g in lay["gear_deflections"]:
+        if not g["ok"]:
+            out.append({"code": "gear_deflection_above_limit", "at": g["at"], "name": g["name"],
+                        "text": f"deflection at gear {g['name']} above the common-practice limit"})
+    cs = lay["critical_speeds"]
+    if cs.get("ok") is False:
+        out.append({"code": "critical_speed_margin", "text": "operating speed above half the first critical speed"})
+    return out
+
+
+def shaft_summary(res: dict, system) -> str:
+    """The layout block of the terminal summary (empty for a section-only case)."""
+    sh = res.get("shaft")
+    if not sh:
+        return ""
+    f = Fmt(system)
+    lines = ["Shaft layout (beam in two planes, Timoshenko)"]
+    for w in sh["warnings"]:
+        lines.append(f"  WARNING: {_warning_line(w, f)}")
+    for r in sh["reactions"]:
+        lines.append(f"  reaction {r['name'] or ''} at {f.q(r['at'], 'length', 4)}: Fx {f.q(r['Fx'], 'force', 4)}, "
+                     f"Fy {f.q(r['Fy'], 'force', 4)}, |F| {f.q(r['F'], 'force', 4)}"
+                     + (f", axial {f.q(r['Fz'], 'force', 4)} (locating bearing)" if r.get("Fz") else ""))
+    md = sh["max_deflection"]
+    lines.append(f"  largest deflection {f.q(md['value'], 'length', 3)} at {f.q(md['at'], 'length', 4)}; largest bending "
+                 f"moment {f.q(sh['max_moment']['value'], 'moment', 4)} at {f.q(sh['max_moment']['at'], 'length', 4)}")
+    for s in sh["slopes"]:
+        lines.append(f"  slope at {s['kind']} {s['name'] or ''} ({f.q(s['at'], 'length', 4)}): {s['slope']:.3g} rad, "
+                     f"limit {s['limit']:.3g} rad — {'ok' if s['ok'] else 'ABOVE'}")
+    for g in sh["gear_deflections"]:
+        lines.append(f"  deflection at gear {g['name']}: {f.q(g['deflection'], 'length', 3)}, limit "
+                     f"{f.q(g['limit'], 'length', 3)} (common practice) — {'ok' if g['ok'] else 'ABOVE'}")
+    cs = sh["critical_speeds"]
+    if "skipped" in cs:
+        lines.append(f"  critical speed: not computed ({cs['skipped']})")
+    else:
+        w1 = cs["values"][0] if cs["values"] else None
+        text = f"  first critical speed {_rpm(w1)} (beam model), Rayleigh {_rpm(cs['rayleigh'])}"
+        if cs.get("speed"):
+            text += (f"; operating {_rpm(cs['speed'])}, ratio {cs['ratio']:.3g} (need ≥ {cs['margin']:g}, common "
+                     f"practice) — {'ok' if cs['ok'] else 'TOO CLOSE'}")
+        lines.append(text)
+    lines.append("  stations:")
+    for st in res.get("section_loads", []):
+        gov = (st["results"].get("governing") or {})
+        n = gov.get("factor")
+        verdict = "no verdict" if gov.get("no_verdict") or n is None else f"n = {n:.3g} ({gov.get('criterion')})"
+        M = math.hypot(st["Mx"], st["My"])
+        side = f", {st['used_side']} side of a jump" if st["jump"] else ""
+        lines.append(f"    {f.q(st['at'], 'length', 4)} {st['name'] or ''}: M {f.q(M, 'moment', 4)}, T "
+                     f"{f.q(st['T'], 'moment', 4)}, N {f.q(st['N'], 'force', 4)}{side} — {verdict}")
+    g = sh["governing_station"]
+    lines.append(f"  the section summary below is the governing station's ({_station_name(res, g, f)})")
+    return "\n".join(lines)
+
+
+def _station_name(res, g, f) -> str:
+    st = res.get("section_loads", [])[g]
+    return st["name"] or f.q(st["at"], "length", 4)
+
+
+def _rpm(w) -> str:
+    return "—" if w is None else f"{w:.4g} rad/s ({w * 60 / (2 * math.pi):.4g} rpm)"
+
+
+def _warning_line(w: dict, f: Fmt) -> str:
+    return w["text"]

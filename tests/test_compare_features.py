@@ -1,0 +1,109 @@
+"""Shoulders and grooves of [shaft]: features found along the shaft, the FE factors beside the
+Table 17.1 fits, handed to the stations on them, written to results and the summary."""
+import pytest
+
+from compare.case.case import parse_case
+from compare.output.report import summary
+from compare.output.results import build_results
+from compare.pairs.feature_step import chart_value
+from compare.pipeline import analyse
+from compare.solve import features
+from compare.solve.features import Feature, shaft_features
+
+BASE = {"case": {"units": "mm-N-MPa"}, "material": {"elastic_modulus": "205 GPa", "poisson": 0.3}}
+
+
+def shaft_case(segments, **extra):
+    d = {"length": 400, "supports": [{"at": 0}, {"at": 400}], "segments": segments}
+    d.update(extra)
+    return parse_case({**BASE, "shaft": d})
+
+
+@pytest.fixture
+def coarse(monkeypatch):
+    """Coarser study meshes (fineness 0.5, 1, 2) so the pipeline test takes seconds."""
+    monkeypatch.setattr(features, "FINENESS", (0.5, 1.0, 2.0))
+
+
+def test_features_in_order_along_the_shaft():
+    c = shaft_case([{"from": 0, "to": 100, "diameter": 30},
+                    {"from": 100, "to": 200, "diameter": 36, "fillet": 3},
+                    {"from": 200, "to": 300, "diameter": 30, "fillet": 1.5},
+                    {"from": 300, "to": 400, "diameter": 34}],
+                   grooves=[{"at": 150, "width": 2, "depth": 0.8, "radius": 0.3},
+                            {"at": 350, "width": 2, "depth": 0.3, "radius": 0.5}],
+                   sections=[{"at": 50}])
+    fs = shaft_features(c.shaft)
+    assert [(f.kind, round(f.at * 1e3)) for f in fs] == [("shoulder", 100), ("groove", 150), ("shoulder", 200),
+                                                          ("shoulder", 300), ("groove", 350)]
+    up, g, down, sharp, shallow = fs
+    assert (up.d, up.D, up.radius, up.step_down) == pytest.approx((0.030, 0.036, 0.003, False))
+    assert down.step_down and down.d == pytest.approx(0.030) and down.D == pytest.approx(0.036)
+    assert g.d == pytest.approx(0.036 - 2 * 0.0008) and g.depth == pytest.approx(0.0008)
+    assert sharp.skipped == "sharp_shoulder"  # no fillet: the corner stress is unbounded, no factor
+    assert shallow.skipped == "groove_radius_beyond_depth"
+    # the groove at 150 is 50 mm from both shoulders: within 1.5 D = 54 mm, so reported as neighbours
+    assert any(isinstance(n, dict) and "shaft.segments[1].fillet" in n["neighbours"] for n in g.notes)
+
+
+def test_chart_value_refuses_to_extrapolate():
+    # h/r = 100 lies outside every Table 17.1 range (Roark 7th ed.): no chart value, the reason recorded
+    f = Feature("groove", 0.1, 0.03 - 2 * 0.005, 0.03, 0.00005, "shaft.grooves[0]", depth=0.005, width=0.001)
+    for load in ("torsion", "bending", "tension"):
+        ch = chart_value(f, load)
+        assert ch["value"] is None and ch["why"] == "outside_range" and ch["h_over_r"] == pytest.approx(100)
+
+
+def test_station_on_a_shoulder_uses_the_fe_factors(coarse):
+    # D/d = 1.2, r/d = 0.1: inside the fits' range; the FE factors within 5 % of the Table 17.1
+    # fits in torsion and bending (Roark's Formulas for Stress and Strain, 7th ed., Table 17.1,
+    # cases 18b and 18c; coefficients from memory; see tests/test_fem_axisym.py for the choice).
+    c = parse_case({"case": {"units": "mm-N-MPa"},
+                    "material": {"elastic_modulus": "205 GPa", "poisson": 0.3, "yield": 540, "ultimate": 760,
+                                 "surface": "machined"},
+                    "shaft": {"length": 400, "rotating": True, "supports": [{"at": 0}, {"at": 400}],
+                              "segments": [{"from": 0, "to": 200, "diameter": 30},
+                                           {"from": 200, "to": 400, "diameter": 36, "fillet": 3}],
+                              "loads": [{"at": 100, "force": [0, -2000], "torque": 100},
+                                        {"at": 300, "torque": -100}],
+                              "sections": [{"at": 200, "name": "shoulder"}, {"at": 100, "name": "plain"}]}})
+    a = analyse(c, study=False)
+    rec, = a.extra["shaft"]["features"]
+    assert rec["kind"] == "shoulder" and rec["at"] == pytest.approx(0.2)
+    for key in ("kts", "kt_bending", "kt_axial"):
+        assert rec[key] > 1.0 and rec[f"{key}_gci"] is not None and rec[f"{key}_gci"] < 0.05
+        assert rec[f"{key}_far_field"]["passed"]
+        assert rec[f"{key}_chart"]["valid"] and "Table 17.1" in rec[f"{key}_chart"]["source"]
+    assert rec["kts"] == pytest.approx(rec["kts_chart"]["value"], rel=0.05)
+    assert rec["kt_bending"] == pytest.approx(rec["kt_bending_chart"]["value"], rel=0.05)
+    shoulder, plain = c.shaft.stations
+    assert shoulder.kt["kt_bending"][0] == rec["kt_bending"] and shoulder.kt["kts_torsion"][0] == rec["kts"]
+    assert "FE" in shoulder.kt["kt_bending"][1] and shoulder.kt["notch_radius"][0] == pytest.approx(0.003)
+    assert plain.kt == {}
+    # the station check: its hand path takes the FE factors with the notch sensitivity at the fillet
+    st = a.extra["shaft"]["stations"][0]
+    assert st["kt_from"] == {"kt_bending": "feature", "kts_torsion": "feature"}
+    hand = a.extra["shaft_stations"][0].extra["fatigue"]["hand"]
+    assert hand["Kt"] == rec["kt_bending"] and hand["Kts"] == rec["kts"]
+    assert hand["notch_radius"] == pytest.approx(0.003) and 0 < hand["q"] < 1
+    assert hand["Kf"] == pytest.approx(1 + hand["q"] * (rec["kt_bending"] - 1))  # Shigley 9th ed., eq. 6-32
+    pairs = [p for p in a.pairs if "shaft.segments[1].fillet" in p.quantity]
+    assert len(pairs) == 3 and all(p.ratio == pytest.approx(p.fe / p.classic) for p in pairs)
+    res = build_results(a)
+    out = res["shaft"]["features"][0]
+    assert out["kt_bending"] == rec["kt_bending"] and out["kts_peak"]["angle"] is not None
+    text = summary(res, c.units)
+    assert "Shoulders and grooves" in text and "Kts torsion" in text
+    assert any(w["code"] == "feature_station_fe_path" for w in res["warnings"])
+
+
+def test_sharp_shoulder_gets_a_warning_and_no_factor(coarse):
+    c = shaft_case([{"from": 0, "to": 200, "diameter": 30}, {"from": 200, "to": 400, "diameter": 36}],
+                   sections=[{"at": 200}])
+    a = analyse(c, study=False)
+    rec, = a.extra["shaft"]["features"]
+    assert rec["skipped"] == "sharp_shoulder" and rec["kts"] is None and rec["kt_bending"] is None
+    assert c.shaft.stations[0].kt == {}
+    res = build_results(a)
+    w = [x for x in res["warnings"] if x["code"] == "feature_sharp_shoulder"]
+    assert len(w) == 1 and "unbounded" in w[0]["text"] and "shaft.segments[1].fillet" in w[0]["text"]
