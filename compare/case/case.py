@@ -261,7 +261,7 @@ def parse_section(s: dict, units: UnitSystem | None, geometry: dict | None = Non
         found, raw = _lookup(s, exc.field[len("section."):])
         if not found:
             raise
-        unit = units.label("length") if units is not None and isinstance(raw, (int, float)) else None
+        unit = units.label("length") if units is not None and isinstance(raw, (int, float)) and not exc.field.endswith("angle") else None
         raise InputError(exc.field, raw, _lengths_in(exc.reason, units), unit) from None
 
 
