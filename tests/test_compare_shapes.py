@@ -81,3 +81,18 @@ def test_hex_drive_run_gives_kts_a_hand_path_and_the_geometry(run_cli, tmp_path)
     bound = q["J against the round bar of the same area"]
     # bracket: inscribed round bar below (membrane analogy), equal-area round bar above (Pólya 1948)
     assert inscribed["ratio"] > 1.0 > bound["ratio"]
+
+
+def test_cases_readme_indexes_every_case_and_the_new_demos_parse():
+    from pathlib import Path
+
+    from compare.case.case import load_case
+
+    root = Path(__file__).resolve().parents[1] / "cases"
+    index = (root / "README.md").read_text(encoding="utf-8")
+    for p in sorted(root.rglob("*.toml")):
+        assert p.name in index, f"cases/README.md does not list {p.relative_to(root)}"
+    kinds = {n: load_case(root / n).section.kind for n in
+             ("motor_dcut_shaft.toml", "coupling_double_keyed.toml", "hex_drive_end.toml")}
+    assert kinds == {"motor_dcut_shaft.toml": "flatted", "coupling_double_keyed.toml": "keyed",
+                     "hex_drive_end.toml": "hexagon"}
