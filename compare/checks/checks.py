@@ -238,7 +238,7 @@ def hand_path(a, fld: Field, cyc: Cycle, Se, Sut, Sy, kt2d: dict | None) -> dict
         Kt, Kt_src = 1.0, "plain round section: no notch in bending"
     else:
         Kt = max(1.0, kt2d["value"]) if kt2d else 1.0
-        Kt_src = ("FE 2-D ratio σmax/(32M/πd³) of the prismatic section — NOT the 3-D keyseat-end factor, which is "
+        Kt_src = ("FE 2-D ratio σmax/(32M/πd³) of the prismatic section — NOT the 3-D factor where the feature ends (a keyseat end, a flat's runout), which is "
                   "larger; give fatigue.kt_bending from a chart")
         notes.append("Kt for bending is the 2-D section ratio; " + (KEYSEAT_CONTEXT if s.kind == "keyed" else
                      "the 3-D concentration where the feature ends along the shaft is not in it"))
