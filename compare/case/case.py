@@ -298,7 +298,7 @@ def _parse_section(s: dict, units: UnitSystem | None) -> tuple[Section, dict]:
     shape = s.get("shape")
     if shape == "keyed":
         return parse_keyed(s, units)
-    if shape in SHAPE_KEYS:
+    if isinstance(shape, str) and shape in SHAPE_KEYS:
         return parse_shape(s, units)
     sec = _parse_plain(s, units)
     geo = {"diameter": {"value": sec.diameter, "from": "given"}} if sec.diameter else {}
