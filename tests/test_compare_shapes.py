@@ -96,3 +96,16 @@ def test_cases_readme_indexes_every_case_and_the_new_demos_parse():
              ("motor_dcut_shaft.toml", "coupling_double_keyed.toml", "hex_drive_end.toml")}
     assert kinds == {"motor_dcut_shaft.toml": "flatted", "coupling_double_keyed.toml": "keyed",
                      "hex_drive_end.toml": "hexagon"}
+
+
+def test_summary_names_the_key_table_and_a_row_from_memory():
+    # ISO/R773, DIN 6885-1: 60 mm lies in the row over 58 up to 65 mm, which the data file marks as
+    # from memory; the summary must say so
+    from compare.case.units import unit_system
+    from compare.output.report import Fmt
+    from compare.output.report_geometry import geometry_lines
+
+    c = parse_case(case({"shape": "keyed", "diameter": 60, "keyways": [{"standard": "metric"}]}))
+    lines = geometry_lines(c.geometry, Fmt(unit_system("mm-N-MPa")))
+    assert lines[0].startswith("  keyway 1: width 18 mm, depth 7 mm, fillet 0.325 mm from ISO/R773")
+    assert any("CAUTION" in ln and "from memory" in ln for ln in lines)
