@@ -109,3 +109,23 @@ def test_summary_names_the_key_table_and_a_row_from_memory():
     lines = geometry_lines(c.geometry, Fmt(unit_system("mm-N-MPa")))
     assert lines[0].startswith("  keyway 1: width 18 mm, depth 7 mm, fillet 0.325 mm from ISO/R773")
     assert any("CAUTION" in ln and "from memory" in ln for ln in lines)
+
+
+@pytest.mark.parametrize("section, want", [
+    ({"shape": "keyed", "diameter": 30, "keyways": [{"standard": "metric", "angle": 90},
+                                                    {"standard": "metric", "angle": 270}]}, ("point", None)),
+    ({"shape": "keyed", "diameter": 30, "keyways": [{"standard": "metric", "angle": 90},
+                                                    {"standard": "metric", "angle": 210}]}, ("axis", 150.0)),
+    ({"shape": "flatted", "diameter": 20, "flats": [{"depth": 2, "angle": 30}]}, ("axis", 30.0)),
+    ({"shape": "flatted", "diameter": 20, "flats": [{"depth": 2, "angle": 0}, {"depth": 2, "angle": 180}]}, ("point", None)),
+    ({"shape": "hexagon", "across_flats": 12}, ("point", None)),
+])
+def test_symmetry_tells_where_the_shear_centre_must_be(section, want):
+    # a section with an axis of symmetry has its shear centre on that axis; with two, at the centroid
+    # (common practice); two equal keyways at 120° are symmetric about their bisector
+    from types import SimpleNamespace
+
+    from compare.pairs.hand_shapes import symmetry
+
+    got = symmetry(SimpleNamespace(case=parse_case(case(section))))
+    assert got == (pytest.approx(want) if want and want[1] is not None else want)

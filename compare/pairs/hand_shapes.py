@@ -83,3 +83,54 @@ def hand_pairs(a) -> list[Pair]:
         out.append(Pair("J against the round bar of the same area", tr.J, equal_area_round_torsion_constant(a.props.area),
                         POLYA, "factor", "second_moment", note="an upper bound: the ratio must be below 1"))
     return out
+
+
+# ----------------------------------------------------------------------------- shear centre by symmetry
+SYMMETRY_SOURCE = "a section with an axis of symmetry has its shear centre on that axis (common practice)"
+
+
+def _same_angle(a: float, b: float) -> bool:
+    return abs((a - b + 180.0) % 360.0 - 180.0) < 1e-9
+
+
+def symmetry(a):
+    """What symmetry puts the shear centre where, for the shapes of this module and for keyways:
+    ``('point', None)`` for two axes of symmetry (the centre is the centroid), ``('axis', deg)`` for
+    one axis through the shaft axis at ``deg``, ``None`` when none is known."""
+    s, geo = a.case.section, a.case.geometry
+    if s.kind in ("square", "hexagon", "cross_slot"):
+        return ("point", None)
+    if s.kind == "keyed" and len(s.keyways) == 2:
+        k1, k2 = s.keyways
+        if (k1.width, k1.depth, k1.fillet) == (k2.width, k2.depth, k2.fillet):
+            if _same_angle(k1.angle + 180.0, k2.angle):
+                return ("point", None)
+            return ("axis", _bisector(k1.angle, k2.angle) + s.rotation)
+    if s.kind == "flatted" and geo.get("flats"):
+        fl = [(f["depth"]["value"], f["angle_deg"]["value"]) for f in geo["flats"]]
+        if len(fl) == 1:
+            return ("axis", fl[0][1] + s.rotation)
+        if len(fl) == 2 and fl[0][0] == fl[1][0] and _same_angle(fl[0][1] + 180.0, fl[1][1]):
+            return ("point", None)
+        if len(fl) == 2 and fl[0][0] == fl[1][0]:  # two equal flats: symmetric about their bisector
+            return ("axis", _bisector(fl[0][1], fl[1][1]) + s.rotation)
+    return None
+
+
+def _bisector(d1: float, d2: float) -> float:
+    """Direction [deg] halfway between two directions (not opposite)."""
+    a1, a2 = math.radians(d1), math.radians(d2)
+    return math.degrees(math.atan2(math.sin(a1) + math.sin(a2), math.cos(a1) + math.cos(a2)))
+
+
+def symmetry_centre_pairs(a, off, L: float, tol) -> list[Pair]:
+    """The shear centre against what symmetry says (``off`` = centre − centroid, ``L`` the size)."""
+    kind, deg = symmetry(a)
+    if kind == "point":
+        return [Pair("shear-centre offset from the centroid / size", float(math.hypot(*off)) / L, 0.0,
+                     "a doubly symmetric section has its shear centre at the centroid (common practice)", "check",
+                     "dimensionless", *tol)]
+    ang = math.radians(deg)
+    perp = abs(-math.sin(ang) * off[0] + math.cos(ang) * off[1])
+    return [Pair("shear centre off the symmetry line / size", float(perp) / L, 0.0, SYMMETRY_SOURCE, "check",
+                 "dimensionless", *tol)]
