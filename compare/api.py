@@ -103,6 +103,20 @@ class Case:
         return cls.from_dict(_tables(section, torque, material, loads, analysis, fatigue, title, units))
 
     @classmethod
+    def flatted(cls, diameter, flats, torque=None, material=None, *, bore=None, loads=None, analysis=None,
+                fatigue=None, title=None, units=None) -> Case:
+        """A round shaft with flats (a D-cut, a double-D): ``flats`` is a list of dicts with ``depth``
+        and ``angle`` (the entries of ``section.flats``); the other arguments as :meth:`keyed`.
+
+        >>> Case.flatted("12 mm", [dict(depth="1 mm")], "9 N*m", dict(shear_modulus="80 GPa")).section.kind
+        'flatted'
+        """
+        section = {"shape": "flatted", "diameter": diameter, "flats": flats}
+        if bore is not None:
+            section["bore"] = bore
+        return cls.from_dict(_tables(section, torque, material, loads, analysis, fatigue, title, units))
+
+    @classmethod
     def round(cls, diameter, torque=None, material=None, *, bore=None, loads=None, analysis=None,
               fatigue=None, title=None, units=None) -> Case:
         """A plain round shaft (or a tube with ``bore``); the other arguments as :meth:`keyed`."""

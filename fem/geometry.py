@@ -198,6 +198,14 @@ class Section:
     keyways: tuple[Keyway, ...] = ()
     origin: tuple[float, float] = (0.0, 0.0)  # where the shaft axis is (moves with moved())
     rotation: float = 0.0  # degrees the section was turned by moved()
+    #: d of the hand nominals 16T/(πd³) and 32M/(πd³) where it is not ``diameter`` (flats, drives,
+    #: a custom section given one); see :attr:`nominal`
+    nominal_diameter: float | None = None
+
+    @property
+    def nominal(self) -> float | None:
+        """The diameter the handbook nominal stresses use: ``nominal_diameter``, else ``diameter``."""
+        return self.nominal_diameter or self.diameter
 
     def moved(self, dx: float = 0.0, dy: float = 0.0, rotation: float = 0.0) -> "Section":
         """A new section turned ``rotation`` degrees about the origin, then shifted by (dx, dy)."""
@@ -211,6 +219,7 @@ class Section:
             raise InputError("scale", k, "must be a positive finite number")
         return replace(self, steps=tuple((op, p.scaled(k)) for op, p in self.steps),
                        diameter=self.diameter and k * self.diameter, bore=self.bore and k * self.bore,
+                       nominal_diameter=self.nominal_diameter and k * self.nominal_diameter,
                        keyways=tuple(replace(w, width=k * w.width, depth=k * w.depth, fillet=k * w.fillet)
                                      for w in self.keyways),
                        origin=(k * self.origin[0], k * self.origin[1]))

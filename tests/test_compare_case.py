@@ -56,7 +56,7 @@ def test_strings_carry_their_own_unit():
     ({"material__poisson": 0.7}, "material.poisson"),
     ({"material__shear_modulus": "-79 GPa"}, "material.shear_modulus"),
     ({"loads__torqe": 5}, "loads.torqe"),                                    # a misspelt key
-    ({"section__shape": "square"}, "section.shape"),
+    ({"section__shape": "octagon"}, "section.shape"),
     ({"case__units": "furlongs"}, "case.units"),
 ])
 def test_bad_fields_are_named(change, field):

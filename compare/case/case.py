@@ -20,15 +20,16 @@ import os
 import re
 import stat
 import sys
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from pathlib import Path
 
 from classic._validity import OutOfRangeError
 from classic.fatigue import surface_factor
 from fem.errors import InputError, escape_text
-from fem.geometry import Disk, Ellipse, Keyway, Section, custom_section, keyed_section, polygon, rectangle, round_section
+from fem.geometry import Disk, Ellipse, Section, custom_section, polygon, rectangle, round_section
 
 from .shaft import Shaft, check_with_case, parse_shaft
+from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
 from .units import UnitSystem, from_si, to_si, unit_system
 
 if sys.version_info >= (3, 11):
@@ -106,6 +107,8 @@ class Case:
     feature_lengths: list = field(default_factory=list)
     expected: dict = field(default_factory=dict)  # [expected] of a verification case: {quantity: SI value}
     shaft: Shaft | None = None  # the [shaft] layout (compare/case/shaft.py), if the case gives one
+    #: every resolved section dimension (SI) with where it came from: results.json section.geometry
+    geometry: dict = field(default_factory=dict)
 
 
 _TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue", "shaft",
@@ -191,7 +194,8 @@ def parse_case(data: dict) -> Case:
     for key in ("description", "source"):
         if key in c:
             _text(c[key], f"case.{key}")
-    section = parse_section(data["section"], units) if "section" in data else None
+    geometry: dict = {}
+    section = parse_section(data["section"], units, geometry) if "section" in data else None
     loads = parse_loads(data.get("loads", {}), units)
     shaft = parse_shaft(data["shaft"], units, parse_section, loads.rotating) if "shaft" in data else None
     if "section" not in data and not (shaft is not None and shaft.segments):
@@ -206,7 +210,8 @@ def parse_case(data: dict) -> Case:
     if shaft is not None:
         check_with_case(shaft, data.get("loads", {}), material)
     return Case(title, units, section, loads, material, analysis, fatigue=fatigue, expected=expected,
-                feature_lengths=parse_feature_lengths(data.get("section", {}), units), shaft=shaft)
+                feature_lengths=parse_feature_lengths(data.get("section", {}), units), shaft=shaft,
+                geometry=geometry)
 
 
 def _shaft_section(shaft: Shaft) -> Section:
@@ -247,20 +252,32 @@ def _nonzero(v) -> bool:
 # ----------------------------------------------------------------------------- section
 
 
-def parse_section(s: dict, units: UnitSystem | None) -> Section:
+def parse_section(s: dict, units: UnitSystem | None, geometry: dict | None = None) -> Section:
     """The section, checked. A value refused by the geometry (which works in metres) is echoed as the
-    user wrote it, with its unit, and lengths in the reason are given in the case's units."""
+    user wrote it, with its unit, and lengths in the reason are given in the case's units.
+    ``geometry``, if given, is filled with every resolved dimension (SI) and where it came from."""
     if not isinstance(s, dict):
         raise InputError("section", s, "must be a table: [section] with shape = \"round\", \"keyed\" or \"custom\"")
     try:
-        return _parse_section(s, units)
+        section, geo = _parse_section({k: v for k, v in s.items() if k != "nominal_diameter"}, units)
+        if "nominal_diameter" in s:
+            nd = to_si(s["nominal_diameter"], "length", "section.nominal_diameter", units)
+            if not nd > 0:
+                raise InputError("section.nominal_diameter", nd, "must be a positive length")
+            section = replace(section, nominal_diameter=nd)
+        if section.nominal:
+            geo["nominal_diameter"] = {"value": section.nominal, "from": "given" if "nominal_diameter" in s else
+                                       _NOMINAL_DEFAULT.get(section.kind, "the shaft diameter")}
+        if geometry is not None:
+            geometry.update({"shape": section.kind, **geo})
+        return section
     except InputError as exc:
         if not exc.field.startswith("section."):
             raise
         found, raw = _lookup(s, exc.field[len("section."):])
         if not found:
             raise
-        unit = units.label("length") if units is not None and isinstance(raw, (int, float)) else None
+        unit = units.label("length") if units is not None and isinstance(raw, (int, float)) and not exc.field.endswith("angle") else None
         raise InputError(exc.field, raw, _lengths_in(exc.reason, units), unit) from None
 
 
@@ -287,37 +304,38 @@ def _lengths_in(reason: str, units: UnitSystem | None) -> str:
     return re.sub(r"(-?\d+(?:\.\d*)?(?:e[-+]?\d+)?) m\b", conv, reason)
 
 
-def _parse_section(s: dict, units: UnitSystem | None) -> Section:
+_NOMINAL_DEFAULT = {"round": "the shaft diameter", "keyed": "the shaft diameter", "flatted": "the round diameter",
+                    "cross_slot": "the shaft diameter", "square": "the size across flats (largest round bar inside)",
+                    "hexagon": "the size across flats (largest round bar inside)"}
+
+
+def _parse_section(s: dict, units: UnitSystem | None) -> tuple[Section, dict]:
+    """The section and the record of its resolved dimensions (SI, with where each came from)."""
+    shape = s.get("shape")
+    if shape == "keyed":
+        return parse_keyed(s, units)
+    if isinstance(shape, str) and shape in SHAPE_KEYS:
+        return parse_shape(s, units)
+    sec = _parse_plain(s, units)
+    geo = {"diameter": {"value": sec.diameter, "from": "given"}} if sec.diameter else {}
+    if sec.bore:
+        geo["bore"] = {"value": sec.bore, "from": "given"}
+    return sec, geo
+
+
+def _parse_plain(s: dict, units: UnitSystem | None) -> Section:
     shape = s.get("shape")
     L = lambda key, v: to_si(v, "length", f"section.{key}", units)  # noqa: E731
     if shape == "round":
         _known(s, {"shape", "diameter", "bore"}, "section")
         return round_section(L("diameter", _req(s, "diameter", "section")), _opt_len(s, "bore", units))
-    if shape == "keyed":
-        _known(s, {"shape", "diameter", "bore", "keyways"}, "section")
-        d = L("diameter", _req(s, "diameter", "section"))
-        kws = s.get("keyways")
-        if not isinstance(kws, list) or not kws:
-            raise InputError("section.keyways", kws, "a keyed section needs at least one [[section.keyways]] table")
-        keyways = []
-        for i, k in enumerate(kws):
-            f = f"keyways[{i}]"
-            if not isinstance(k, dict):
-                raise InputError(f"section.{f}", k, "must be a table with width, depth, fillet, angle")
-            _known(k, {"width", "depth", "fillet", "angle", "length"}, f"section.{f}")
-            keyways.append(Keyway(
-                width=L(f"{f}.width", _req(k, "width", f"section.{f}")),
-                depth=L(f"{f}.depth", _req(k, "depth", f"section.{f}")),
-                fillet=L(f"{f}.fillet", k.get("fillet", 0.0)) if "fillet" in k else 0.0,
-                angle=_angle(k.get("angle", 90.0), f"section.{f}.angle"),
-            ))
-        return keyed_section(d, keyways, _opt_len(s, "bore", units))
     if shape == "custom":
         _known(s, {"shape", "add", "cut"}, "section")
         add = [_primitive(p, f"add[{i}]", units) for i, p in enumerate(_list(s.get("add"), "section.add"))]
         cut = [_primitive(p, f"cut[{i}]", units) for i, p in enumerate(_list(s.get("cut", []), "section.cut"))]
         return custom_section(add, cut)
-    raise InputError("section.shape", shape, "must be \"round\", \"keyed\" or \"custom\"")
+    raise InputError("section.shape", shape, "must be \"round\", \"keyed\", \"flatted\", \"square\", \"hexagon\", "
+                     "\"cross_slot\" or \"custom\"")
 
 
 def parse_feature_lengths(s: dict, units) -> list:

@@ -123,8 +123,8 @@ def _length_text(d: float, units) -> str:
 
 def shaft_diameter(a, fld: Field) -> tuple[float, str]:
     s = a.case.section
-    if s.diameter:
-        return s.diameter, "the shaft diameter"
+    if s.nominal:
+        return s.nominal, "the shaft diameter" if s.nominal == s.diameter else "the nominal diameter (section.geometry)"
     ox, oy = s.origin
     r = float(np.max(np.hypot(fld.xy[0][fld.on_boundary] - ox, fld.xy[1][fld.on_boundary] - oy)))
     return 2 * r, "twice the largest distance of the boundary from the shaft axis (custom section; conservative for kb)"
@@ -217,13 +217,19 @@ def fe_fatigue(a, fld: Field, cyc: Cycle, fs: FatigueStresses, Se, Sut, Sy, with
 
 
 # ====================================================================================== fatigue, hand path
+#: Shapes whose stress raiser is no small notch (flats, drives) or whose radius the section does not
+#: carry (the cross-slot): without fatigue.notch_radius the hand path takes q = 1.
+FULL_SENSITIVITY_KINDS = ("flatted", "square", "hexagon", "cross_slot")
+
+
 def hand_path(a, fld: Field, cyc: Cycle, Se, Sut, Sy, kt2d: dict | None) -> dict:
     """Shigley's shaft equations (eqs. 7-7 to 7-16) on the nominal stresses with Kf, Kfs from
     Kt, Kts and the notch sensitivity; also with Kf = Kt, Kfs = Kts (q = 1), the like-for-like
     companion of the FE path."""
     s, fi = a.case.section, a.case.fatigue
-    if not s.diameter:
-        return {"skipped": "custom section: the shaft equations need a round shaft of known diameter; the FE path stands alone"}
+    if not s.nominal:
+        return {"skipped": "custom section: the shaft equations need a round shaft of known diameter (give "
+                           "section.nominal_diameter); the FE path stands alone"}
     notes: list[str] = []
     # --- Kt (bending)
     if fi.kt_bending is not None:
@@ -232,9 +238,10 @@ def hand_path(a, fld: Field, cyc: Cycle, Se, Sut, Sy, kt2d: dict | None) -> dict
         Kt, Kt_src = 1.0, "plain round section: no notch in bending"
     else:
         Kt = max(1.0, kt2d["value"]) if kt2d else 1.0
-        Kt_src = ("FE 2-D ratio σmax/(32M/πd³) of the prismatic section — NOT the 3-D keyseat-end factor, which is "
+        Kt_src = ("FE 2-D ratio σmax/(32M/πd³) of the prismatic section — NOT the 3-D factor where the feature ends (a keyseat end, a flat's runout), which is "
                   "larger; give fatigue.kt_bending from a chart")
-        notes.append("Kt for bending is the 2-D section ratio; " + KEYSEAT_CONTEXT)
+        notes.append("Kt for bending is the 2-D section ratio; " + (KEYSEAT_CONTEXT if s.kind == "keyed" else
+                     "the 3-D concentration where the feature ends along the shaft is not in it"))
     # --- Kts (torsion)
     if fi.kts_torsion is not None:
         Kts, Kts_src = fi.kts_torsion, f"given: {fi.kts_torsion_source}"
@@ -253,7 +260,11 @@ def hand_path(a, fld: Field, cyc: Cycle, Se, Sut, Sy, kt2d: dict | None) -> dict
         k = (a.where(a.torsion.peak_at).get("keyway") or 1) - 1
         r, r_src = s.keyways[k].fillet, f"the fillet radius of keyway {k + 1}"
     w_msgs: list[str] = []
-    if Kt > 1 or Kts > 1:
+    if (Kt > 1 or Kts > 1) and r is None and s.kind in FULL_SENSITIVITY_KINDS:
+        q = qs = 1.0  # flats and drives: no small notch radius to lower q; Kf = Kt is the safe side
+        r_src = "none: q = 1 (Kf = Kt, Kfs = Kts), the conservative choice without a notch radius (common practice)"
+        Kf, Kfs = Kt, Kts
+    elif Kt > 1 or Kts > 1:
         if r is None or r <= 0:
             return {"skipped": "a notch radius is needed for the notch sensitivity (fatigue.notch_radius)", "Kt": Kt, "Kts": Kts}
         if Sut is None:
@@ -280,13 +291,13 @@ def hand_path(a, fld: Field, cyc: Cycle, Se, Sut, Sy, kt2d: dict | None) -> dict
         notes.append("the axial load is not in the shaft equations 7-7 to 7-16: the hand path leaves it out")
     if np.any(cyc.mean[4:]) or "shear" in cyc.alt or np.any(cyc.Lc[4:]):
         notes.append("the shaft equations neglect transverse shear: the hand path leaves it out (the FE path has it)")
-    d = s.diameter
+    d = s.nominal
     out = {"path": "nominal stresses × Kf, Kfs (Shigley's shaft equations)",
            "equations": f"{SHIGLEY}, Sec. 7-4, eqs. 7-7 to 7-16" + (" (solid round, d-form)" if not s.bore else
                                                                       " in stress form with the hollow-round nominals Mc/I and 16TD/(π(D⁴−d⁴))"),
            "Kt": Kt, "Kt_source": Kt_src, "Kts": Kts, "Kts_source": Kts_src,
            "notch_radius": r if (Kt > 1 or Kts > 1) else None, "notch_radius_source": r_src if (Kt > 1 or Kts > 1) else None,
-           "q": q, "qs": qs, "q_source": f"{SHIGLEY}, eqs. 6-34, 6-35a/b (steels)" if q is not None else None,
+           "q": q, "qs": qs, "q_source": (f"{SHIGLEY}, eqs. 6-34, 6-35a/b (steels)" if r is not None else r_src) if q is not None else None,
            "Kf": Kf, "Kfs": Kfs, "Kf_source": f"{SHIGLEY}, eq. 6-32: Kf = 1 + q(Kt − 1)",
            "Ma": Ma, "Mm": Mm, "Ta": Ta, "Tm": Tm, "d": d, "bore": s.bore,
            "notes": notes, "warnings": w_msgs}
@@ -297,7 +308,7 @@ def hand_path(a, fld: Field, cyc: Cycle, Se, Sut, Sy, kt2d: dict | None) -> dict
 
 
 def _hand_factors(s, Kf, Kfs, Ma, Mm, Ta, Tm, Se, Sut, Sy) -> dict:
-    d = s.diameter
+    d = s.nominal
     out = {}
     if not s.bore:
         sa, sm = cf.shaft_von_mises_stresses(d, Kf, Kfs, Ma, Mm, Ta, Tm)

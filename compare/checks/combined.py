@@ -584,15 +584,15 @@ def kt_bending_2d(a, fld: Field) -> dict | None:
     """σmax of the section per unit bending moment, over the worst moment direction, relative to the
     plain-shaft nominal 32M/(πd³) (Mc/I of the hollow round with a bore)."""
     s = a.case.section
-    if not s.diameter:
+    if not s.nominal:
         return None
     usable = ~fld.excluded
     per_moment = float(np.max(np.where(usable, np.hypot(fld.S[1], fld.S[2]), -np.inf)))
     if s.bore:
-        nominal = cp.tube_extreme_fibre(s.diameter, s.bore) / cp.tube_second_moment(s.diameter, s.bore)
+        nominal = cp.tube_extreme_fibre(s.nominal, s.bore) / cp.tube_second_moment(s.nominal, s.bore)
         formula = "M·(D/2)/I of the hollow round (full diameter and bore)"
     else:
-        nominal = cs.bending_stress_round(1.0, s.diameter)
+        nominal = cs.bending_stress_round(1.0, s.nominal)
         formula = "32·M/(π·d³) on the full diameter"
     return {"value": per_moment / nominal, "nominal_per_moment": nominal, "fe_per_moment": per_moment,
             "formula": formula,

@@ -6,6 +6,7 @@ import numpy as np
 from ..case.units import SYSTEMS, UnitSystem, from_si
 from .report_combined import combined_lines
 from .report_features import feature_lines, feature_warning_text
+from .report_geometry import geometry_lines
 
 CAUTION = ("shaftcheck is a cross-check aid for the designer. It does not replace the governing codes and "
            "standards, the full design calculation, or the judgement of a licensed engineer, who decide.")
@@ -153,6 +154,7 @@ def summary(res: dict, system: UnitSystem | None) -> str:
         f"{f.q0(s['Ixy'], 'second_moment', max(s['Ixx'], s['Iyy']))}",
         f"  I1, I2 at {s['principal_angle_deg']:.2f}°   {f.q(s['I1'], 'second_moment')}, {f.q(s['I2'], 'second_moment')}",
         f"  FE vs exact boundary integral: largest relative difference {max(s['fe_vs_boundary_integral'].values()):.1e}",
+        *geometry_lines(s.get("geometry"), f),
         "",
         "Torsion (Saint-Venant)",
         f"  J (stress function, lower bound)   {f.q(t['J'], 'second_moment', 7)}",

@@ -59,6 +59,7 @@ def build_results(a: Analysis) -> dict:
         "caution": CAUTION,
         "section": {
             "kind": case.section.kind,
+            "geometry": case.geometry,  # every resolved dimension (SI) and where it came from
             "area": pr.area,
             "centroid": list(pr.centroid),
             "Ixx": pr.Ixx, "Iyy": pr.Iyy, "Ixy": pr.Ixy,

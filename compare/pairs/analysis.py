@@ -24,6 +24,7 @@ from fem.torsion import TorsionResult
 from ..case.case import Case
 from ..solve.accuracy import refine_to_accuracy, solve_on
 from .counterparts import recognise
+from .hand_shapes import HAND_KINDS, NOMINAL_OF, hand_pairs
 from .pairs import Pair, not_applicable
 
 #: Accepted FE-vs-exact tolerances in 'check' pairs, each with its reason.
@@ -55,15 +56,17 @@ class Analysis:
         return abs(self.torque) * self.torsion.peak_per_torque
 
     def nominal_shear(self) -> tuple[float, str, str] | None:
-        """Handbook nominal for Kts: 16T/(πd³) on the full diameter (16TD/(π(D⁴−d⁴)) with a bore)."""
+        """Handbook nominal for Kts: 16T/(πd³) on the nominal diameter (16TD/(π(D⁴−d⁴)) with a bore);
+        the nominal diameter is the full diameter unless the section names another (Section.nominal)."""
         s = self.case.section
-        if not s.diameter:
+        if not s.nominal:
             return None
         T = abs(self.torque) or 1.0
+        on = "the full diameter" if s.nominal == s.diameter else f"the nominal diameter ({NOMINAL_OF.get(s.kind, 'given')})"
         if s.bore:
-            return (ct.tube_peak_shear(T, s.diameter, s.bore), "16·T·D/(π(D⁴−d⁴)) on the full diameter and the bore",
+            return (ct.tube_peak_shear(T, s.nominal, s.bore), f"16·T·D/(π(D⁴−d⁴)) on {on} and the bore",
                     "elementary torsion of a tube; the handbook convention for Kts (Peterson's Stress Concentration Factors)")
-        return (ct.keyed_nominal_shear(T, s.diameter), "16·T/(π·d³) on the full diameter",
+        return (ct.keyed_nominal_shear(T, s.nominal), f"16·T/(π·d³) on {on}",
                 "elementary torsion of a round bar; the handbook convention for Kts (Peterson's Stress Concentration Factors)")
 
     @property
@@ -132,6 +135,8 @@ def torsion_pairs(a: Analysis) -> list[Pair]:
         out.append(not_applicable("Tc/J with the round-bar J", tr.peak_per_torque,
                                   "the round-bar Tc/J does not describe a keyed section; the Kts below uses the handbook nominal instead",
                                   "per_cubic"))
+    elif s.kind in HAND_KINDS:
+        out.extend(hand_pairs(a))
     else:
         out.append(not_applicable("torsion constant J", tr.J, "no published closed form for this section", "second_moment"))
     nom = a.nominal_shear()
@@ -141,7 +146,7 @@ def torsion_pairs(a: Analysis) -> list[Pair]:
                                   "the section has sharp re-entrant corners, where the stress is unbounded: no Kts exists "
                                   "until the real fillet radius is modelled", "stress"))
     elif nom is not None:
-        kind = "check" if s.kind == "round" else "factor"
+        kind = "check" if s.kind == "round" and s.nominal == s.diameter else "factor"
         tol = TOL_PEAK if kind == "check" else (None, "")
         out.append(Pair("Kts = τmax,FE / τnominal", T * tr.peak_per_torque, nom[0], f"nominal {nom[1]}: {nom[2]}",
                         kind, "stress", *tol,

@@ -44,6 +44,10 @@ def recognise(section: Section) -> Counterpart | None:
         I = cp.round_second_moment(d)
         return Counterpart("solid round", ct.round_torsion_constant(d), ct.round_peak_shear(1.0, d),
                            ROUND_SOURCE, cp.round_area(d), I, I)
+    if section.kind == "square" and not section.bore and not any(section.steps[0][1].fillets):
+        w = float(np.ptp(np.asarray(section.steps[0][1].points)[:, 0]))  # sharp square: side = width
+        return Counterpart("square drive (sharp)", ct.rectangle_torsion_constant(w, w), ct.rectangle_peak_shear(1.0, w, w),
+                           SERIES, w * w)
     if section.kind != "custom":
         return None
     adds = [p for op, p in section.steps if op == "add"]

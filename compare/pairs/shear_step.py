@@ -12,6 +12,7 @@ from fem.errors import InputError
 from fem.shear import ShearResult, shear_peak, solve_shear
 
 from .counterparts import recognise
+from .hand_shapes import symmetry, symmetry_centre_pairs
 from .pairs import Pair, not_applicable
 
 TOL_SHEAR_PEAK = (1e-2, "default mesh targets 1 % on peak stresses")
@@ -138,6 +139,8 @@ def shear_pairs(a, sr: ShearResult, out: dict, L: float) -> list[Pair]:
                           "a section with an axis of symmetry has its shear centre on that axis (common practice)", "check",
                           "dimensionless", *TOL_CENTRE))
         pairs.append(not_applicable("shear-centre offset from the centroid along the symmetry line", float(off @ axis), "no hand formula for a keyed section: a shear force through the centroid also twists the section", "length"))
+    elif symmetry(a) is not None:
+        pairs.extend(symmetry_centre_pairs(a, off, L, TOL_CENTRE))
     else:
         pairs.append(not_applicable("shear-centre offset from the centroid", float(np.hypot(*off)),
                                     "no hand formula for this section", "length"))
