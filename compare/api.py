@@ -256,6 +256,10 @@ UNITS = {
                      "margin", "value"], ""),
     "principal_angle_deg": "deg", "angle_deg": "deg",
 }
+#: Units of keys whose name alone is ambiguous, by their path in the results (the shaft layout's).
+PATH_UNITS = {".shaft.max_deflection.value": "m", ".shaft.max_moment.value": "N*m",
+              ".shaft.critical_speeds.rayleigh": "rad/s", ".shaft.critical_speeds.values": "rad/s",
+              ".shaft.critical_speeds.speed": "rad/s"}
 _PAIR_DIMENSIONS = {"second_moment": "m**4", "area": "m**2", "stress": "Pa", "length": "m",
                     "per_cubic": "Pa/(N*m)", "dimensionless": ""}
 
@@ -277,7 +281,7 @@ class QuantityRecord:
             return QuantityRecord(v, path)
         if isinstance(v, list) and v and all(isinstance(x, dict) for x in v):
             return [QuantityRecord(x, f"{path}[{i}]") for i, x in enumerate(v)]
-        unit = UNITS.get(name)
+        unit = PATH_UNITS.get(path, UNITS.get(name))
         if name in ("fe", "classic") and "dimension" in self._d:
             unit = _PAIR_DIMENSIONS.get(self._d["dimension"])
         if unit is None:
