@@ -30,6 +30,7 @@ from .case.case import Case as CaseSpec
 from .case.case import load_case, parse_case
 from .case.units import ureg
 from .cli.cmd_run import write_outputs
+from .output.figure_shaft import shaft_figure_svg
 from .output.report import summary
 from .output.results import build_results
 from .pipeline import analyse as _analyse
@@ -223,9 +224,12 @@ class Result(Record):
 
     def save(self, out: str | Path, vtu: bool = True) -> Path:
         """Write the files ``shaftcheck run --out`` writes (``results.json`` and, with ``vtu``,
-        ``section.vtu``) into the folder ``out``; nothing is half-written. Returns the folder."""
+        ``section.vtu``; ``shaft.svg`` for a layout) into the folder ``out``; nothing is half-written.
+        Returns the folder."""
         out = Path(out)
         files = {"results.json": json.dumps(self._d, indent=2, ensure_ascii=False) + "\n"}
+        if self._d.get("shaft"):  # a layout case: its diagrams too, as the command line writes them
+            files["shaft.svg"] = shaft_figure_svg(self._d, self.analysis.case.units)
         write_outputs(out, files, self.analysis if vtu else None)
         return out
 
