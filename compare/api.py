@@ -30,6 +30,7 @@ from .case.case import Case as CaseSpec
 from .case.case import load_case, parse_case
 from .case.units import ureg
 from .cli.cmd_run import write_outputs
+from .output.figure_shaft import shaft_figure_svg
 from .output.report import summary
 from .output.results import build_results
 from .pipeline import analyse as _analyse
@@ -237,9 +238,12 @@ class Result(Record):
 
     def save(self, out: str | Path, vtu: bool = True) -> Path:
         """Write the files ``shaftcheck run --out`` writes (``results.json`` and, with ``vtu``,
-        ``section.vtu``) into the folder ``out``; nothing is half-written. Returns the folder."""
+        ``section.vtu``; ``shaft.svg`` for a layout) into the folder ``out``; nothing is half-written.
+        Returns the folder."""
         out = Path(out)
         files = {"results.json": json.dumps(self._d, indent=2, ensure_ascii=False) + "\n"}
+        if self._d.get("shaft"):  # a layout case: its diagrams too, as the command line writes them
+            files["shaft.svg"] = shaft_figure_svg(self._d, self.analysis.case.units)
         write_outputs(out, files, self.analysis if vtu else None)
         return out
 
@@ -270,6 +274,10 @@ UNITS = {
                      "margin", "value"], ""),
     "principal_angle_deg": "deg", "angle_deg": "deg",
 }
+#: Units of keys whose name alone is ambiguous, by their path in the results (the shaft layout's).
+PATH_UNITS = {".shaft.max_deflection.value": "m", ".shaft.max_moment.value": "N*m",
+              ".shaft.critical_speeds.rayleigh": "rad/s", ".shaft.critical_speeds.values": "rad/s",
+              ".shaft.critical_speeds.speed": "rad/s"}
 _PAIR_DIMENSIONS = {"second_moment": "m**4", "area": "m**2", "stress": "Pa", "length": "m",
                     "per_cubic": "Pa/(N*m)", "dimensionless": ""}
 
@@ -291,7 +299,7 @@ class QuantityRecord:
             return QuantityRecord(v, path)
         if isinstance(v, list) and v and all(isinstance(x, dict) for x in v):
             return [QuantityRecord(x, f"{path}[{i}]") for i, x in enumerate(v)]
-        unit = UNITS.get(name)
+        unit = PATH_UNITS.get(path, UNITS.get(name))
         if name in ("fe", "classic") and "dimension" in self._d:
             unit = _PAIR_DIMENSIONS.get(self._d["dimension"])
         if unit is None:

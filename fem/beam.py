@@ -181,13 +181,13 @@ def natural_frequencies(beam: Beam, supports, masses=(), inertias=(), count: int
         T = -np.linalg.solve(Kf[np.ix_(s, s)], Kf[np.ix_(s, m)])
         Kc = Kf[np.ix_(m, m)] + Kf[np.ix_(m, s)] @ T
         Mc = Mf[np.ix_(m, m)]
-        lam, vec = scipy.linalg.eigh(Kc, Mc)
+        lam, vec = scipy.linalg.eigh(Kc, Mc, subset_by_index=[0, min(count, len(Mc)) - 1])
         full = np.zeros((len(free), vec.shape[1]))
         full[m] = vec
         full[s] = T @ vec
         vec = full
     else:
-        lam, vec = scipy.linalg.eigh(Kf, Mf)
+        lam, vec = scipy.linalg.eigh(Kf, Mf, subset_by_index=[0, min(count, len(Mf)) - 1])
     keep = lam > 0
     lam, vec = lam[keep][:count], vec[:, keep][:, :count]
     u = np.zeros((beam.ndof, vec.shape[1]))

@@ -202,3 +202,39 @@ name = "gear seat"
     assert "Shaft layout" in stdout and "gear seat" in stdout
     svg = (out / "shaft.svg").read_text()
     assert svg.lstrip().startswith("<?xml") and "</svg>" in svg  # the diagrams with the stations marked
+
+
+def test_api_reads_layout_results_with_units(tmp_path):
+    from compare import Case, analyse
+    case = tmp_path / "api.toml"
+    case.write_text("""
+[case]
+units = "mm-N-MPa"
+[material]
+elastic_modulus = "205 GPa"
+poisson = 0.29
+[analysis]
+accuracy = "1 %"
+[shaft]
+length = 200
+supports = [{ at = 0 }, { at = 200 }]
+[[shaft.segments]]
+from = 0
+to = 200
+diameter = 25
+[[shaft.loads]]
+at = 100
+force = [0, -1000]
+[[shaft.sections]]
+at = 50
+""")
+    r = analyse(Case.load(case))
+    # Roark Table 8.1, case 1e at mid-span with the shear deflection P·L/(4κGA) added
+    E, G = 205e9, 205e9 / 2.58
+    Ir, Ar = math.pi * 0.025**4 / 64, math.pi * 0.025**2 / 4
+    exact = 1000 * 0.2**3 / (48 * E * Ir) + 1000 * 0.2 / (4 * energy_round(0.29) * G * Ar)
+    res = {"fem": r.q.shaft.max_deflection.value.to("mm").magnitude, "exact": exact * 1e3}
+    assert res["fem"] == pytest.approx(res["exact"], rel=1e-9)
+    assert r.section_loads[0]["Mx"] == pytest.approx(-25.0)  # R1·a = 500 N × 0.05 m, sagging
+    out = r.save(tmp_path / "out", vtu=False)
+    assert sorted(p.name for p in out.iterdir()) == ["results.json", "shaft.svg"]

@@ -411,6 +411,12 @@ def check_with_case(sh: Shaft, raw_loads: dict, material) -> None:
     if not sh.stations:
         raise InputError("shaft.sections", None, "is required with [shaft]: name at least one station to check, "
                          "e.g. [[shaft.sections]] at = ...")
+    if material.elastic_modulus is None:
+        raise InputError("material.elastic_modulus", None, "is needed with [shaft]: the beam's deflections, slopes "
+                         "and critical speeds depend on it")
+    if material.shear_modulus is None:
+        raise InputError("material.poisson", None, "is needed with [shaft] (or give shear_modulus): the beam's shear "
+                         "deformation depends on it")
     gives_strength = material.yield_strength is not None or material.endurance_limit is not None
     if sh.rotating and gives_strength and material.kind == "ductile" and material.ultimate is None:
         raise InputError("material.ultimate", None, "is needed: the shaft rotates, so its bending alternates, and the "

@@ -189,7 +189,7 @@ def _convert(text: str, dimension: str, field: str) -> float:
         v = float(q.to(target).magnitude)
         return round_significant(v) if dimension in _ROUNDED else v
     except Exception:
-        raise InputError(field, text, f"is not a {dimension.replace('_', ' ')} (expected units like {target})") from None
+        raise InputError(field, text, f"is not a{'n' if dimension[0] in 'aeiou' else ''} {dimension.replace('_', ' ')} (expected units like {target})") from None
 
 
 def from_si(value: float, dimension: str, system: UnitSystem) -> float:

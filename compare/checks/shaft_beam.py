@@ -332,6 +332,8 @@ def critical_speeds(shaft: Shaft, model: BeamModel, sup, rho) -> dict:
     out = {"values": [float(w) for w in omega], "method": "eigenvalues of the Timoshenko beam model (shear "
            "deformation, rotary inertia of shaft and parts, part masses); gyroscopic effects not included",
            "rayleigh": ray, "rayleigh_source": "Shigley's Mechanical Engineering Design, 9th ed., eq. (7-23)",
+           "rayleigh_note": "lumped weights on the Timoshenko beam's static deflection, without rotary inertia: usually above "
+                            "the beam model's value, most where parts with large inertia sit on an overhang",
            "margin": cs.CRITICAL_SPEED_MARGIN,
            "margin_basis": "operating speed at most half the first critical speed (common practice)"}
     if shaft.speed:
