@@ -198,6 +198,9 @@ class Section:
     keyways: tuple[Keyway, ...] = ()
     origin: tuple[float, float] = (0.0, 0.0)  # where the shaft axis is (moves with moved())
     rotation: float = 0.0  # degrees the section was turned by moved()
+    #: resolved dimensions for results.json, as (name, value, where it came from); lengths in metres
+    #: (set by fem.splines and fem.outline_import)
+    geometry: tuple = field(default=(), compare=False)
 
     def moved(self, dx: float = 0.0, dy: float = 0.0, rotation: float = 0.0) -> "Section":
         """A new section turned ``rotation`` degrees about the origin, then shifted by (dx, dy)."""
@@ -213,7 +216,8 @@ class Section:
                        diameter=self.diameter and k * self.diameter, bore=self.bore and k * self.bore,
                        keyways=tuple(replace(w, width=k * w.width, depth=k * w.depth, fillet=k * w.fillet)
                                      for w in self.keyways),
-                       origin=(k * self.origin[0], k * self.origin[1]))
+                       origin=(k * self.origin[0], k * self.origin[1]),
+                       geometry=tuple((n, k * v if n in SCALED_GEOMETRY else v, src) for n, v, src in self.geometry))
 
     def mirrored(self) -> "Section":
         """A new section mirrored in the y axis (x -> -x)."""
@@ -501,6 +505,10 @@ def analyse_boundary(gmsh, surfaces: list[int], length_scale: float, to_metres=N
 
 
 # ----------------------------------------------------------------------------- helpers
+
+#: Entries of Section.geometry that are lengths (scaled by Section.scaled()).
+SCALED_GEOMETRY = {"module", "pitch_diameter", "base_diameter", "major_diameter", "minor_diameter", "fillet",
+                   "tooth_thickness", "width", "bore"}
 
 #: Walls, ligaments and keyway sizes thinner than this fraction of the diameter are refused: at
 #: 1e-3·d the sliver is far below any real feature and near the geometry kernel's tolerances.
