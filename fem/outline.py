@@ -73,40 +73,43 @@ class Outline:
 
     # ------------------------------------------------------------------ primitive protocol
     def validate(self, name: str) -> None:
-        where = f"{name} ({self.entity})" if self.entity else name
+        prefix = f"{self.entity}: " if self.entity else ""  # the drawing entity, named in every reason
+
+        def err(value, reason):
+            return InputError(name, value, prefix + reason)
         if len(self.segments) < 1:
-            raise InputError(where, None, "the outline has no segments")
+            raise err(None, "the outline has no segments")
         for i, (kind, pts, tans) in enumerate(self.segments):
             arr = np.asarray(pts, float)
             if not np.all(np.isfinite(arr)) or (tans and not np.all(np.isfinite(np.asarray(tans, float)))):
-                raise InputError(where, None, f"segment {i} holds a value that is not a finite number")
+                raise err(None, f"segment {i} holds a value that is not a finite number")
             if kind not in ("line", "arc", "spline"):
-                raise InputError(where, kind, "unknown segment kind")
+                raise err(kind, "unknown segment kind")
         scale = float(np.max(np.ptp(np.asarray(self.points, float), axis=0))) if len(self.points) > 1 else 0.0
         if not scale > 0:
-            raise InputError(where, None, "the outline encloses no area (all its points coincide)")
+            raise err(None, "the outline encloses no area (all its points coincide)")
         n = len(self.segments)
         for i, (kind, pts, tans) in enumerate(self.segments):
             a, b = self.ends(i)
             if kind != "arc" and n == 1:
-                raise InputError(where, None, "the outline encloses no area (a single straight or spline segment)")
+                raise err(None, "the outline encloses no area (a single straight or spline segment)")
             if np.linalg.norm(b - a) <= 1e-12 * scale and not (n == 1):
-                raise InputError(where, None, f"segment {i} has zero length (its ends coincide)")
+                raise err(None, f"segment {i} has zero length (its ends coincide)")
             if kind == "arc":
                 c = np.asarray(pts[1], float)
                 ra, rb = np.linalg.norm(a - c), np.linalg.norm(b - c)
                 if abs(ra - rb) > 1e-9 * max(ra, rb) or ra <= 1e-12 * scale:
-                    raise InputError(where, None, f"arc segment {i}: its ends are not on one circle about its centre")
+                    raise err(None, f"arc segment {i}: its ends are not on one circle about its centre")
                 if _arc_sweep(a, c, b) >= math.pi * (1 - 1e-9):
-                    raise InputError(where, None, f"arc segment {i} turns 180° or more; split it")
+                    raise err(None, f"arc segment {i} turns 180° or more; split it")
             if kind == "spline" and len(tans) != len(pts) + 1:
-                raise InputError(where, None, f"spline segment {i} needs one tangent per point")
+                raise err(None, f"spline segment {i} needs one tangent per point")
         poly = self.polyline()
         if abs(_shoelace(poly)) <= 1e-9 * scale**2:
-            raise InputError(where, None, "the outline encloses no area")
+            raise err(None, "the outline encloses no area")
         hit = crossing(poly)
         if hit is not None:
-            raise InputError(where, None, f"the outline crosses or touches itself near ({hit[0]:.6g}, {hit[1]:.6g})")
+            raise err(None, f"the outline crosses or touches itself near ({hit[0]:.6g}, {hit[1]:.6g})")
 
     def _map(self, f_point, f_dir):
         segs = tuple((k, tuple(f_point(p) for p in pts), tuple(f_dir(t) for t in tans))
