@@ -3,7 +3,7 @@
 Schema (README, 'Case files', is the reference)::
 
     [case]      title, units ("mm-N-MPa" | "in-lbf-psi" | "in-lbf-ksi" | "m-N-Pa")
-    [section]   shape = "round" | "keyed" | "custom", and its dimensions
+    [section]   shape = "round" | "keyed" | "custom" | "spline" | "dxf" | "step" | "brep" | "mesh", and its dimensions
     [loads]     torque, bending = [Mx, My], shear = [Vx, Vy], axial, the *_mean / *_alternating
                 parts of each, rotating
     [material]  shear_modulus | elastic_modulus, poisson, yield, ultimate, ...
@@ -28,6 +28,7 @@ from classic.fatigue import surface_factor
 from fem.errors import InputError, escape_text
 from fem.geometry import Disk, Ellipse, Keyway, Section, custom_section, keyed_section, polygon, rectangle, round_section
 
+from .shapes import parse_file_shape, parse_spline
 from .units import UnitSystem, from_si, to_si, unit_system
 
 if sys.version_info >= (3, 11):
@@ -174,12 +175,14 @@ def parse_toml(text: str, field: str, shown: str) -> dict:
 def load_case(path: str | Path) -> Case:
     path = Path(path)
     data = parse_toml(read_input_file(path, "case file"), "case file", str(path))
-    case = parse_case(data)
+    case = parse_case(data, base_dir=path.parent)
     case.path = path
     return case
 
 
-def parse_case(data: dict) -> Case:
+def parse_case(data: dict, base_dir: Path | None = None) -> Case:
+    """A case from its TOML data; files the section names (``section.file``) are taken relative to
+    ``base_dir`` (the case file's folder; the working directory when None)."""
     _known(data, _TOP, "")
     c = data.get("case", {})
     _known(c, _CASE, "case")
@@ -190,7 +193,7 @@ def parse_case(data: dict) -> Case:
             _text(c[key], f"case.{key}")
     if "section" not in data:
         raise InputError("section", None, "is missing: every case describes a section")
-    section = parse_section(data["section"], units)
+    section = parse_section(data["section"], units, base_dir)
     loads = parse_loads(data.get("loads", {}), units)
     material = parse_material(data.get("material", {}), units)
     analysis = parse_analysis(data.get("analysis", {}))
@@ -232,13 +235,13 @@ def _nonzero(v) -> bool:
 # ----------------------------------------------------------------------------- section
 
 
-def parse_section(s: dict, units: UnitSystem | None) -> Section:
+def parse_section(s: dict, units: UnitSystem | None, base_dir: Path | None = None) -> Section:
     """The section, checked. A value refused by the geometry (which works in metres) is echoed as the
     user wrote it, with its unit, and lengths in the reason are given in the case's units."""
     if not isinstance(s, dict):
         raise InputError("section", s, "must be a table: [section] with shape = \"round\", \"keyed\" or \"custom\"")
     try:
-        return _parse_section(s, units)
+        return _parse_section(s, units, base_dir)
     except InputError as exc:
         if not exc.field.startswith("section."):
             raise
@@ -272,7 +275,7 @@ def _lengths_in(reason: str, units: UnitSystem | None) -> str:
     return re.sub(r"(-?\d+(?:\.\d*)?(?:e[-+]?\d+)?) m\b", conv, reason)
 
 
-def _parse_section(s: dict, units: UnitSystem | None) -> Section:
+def _parse_section(s: dict, units: UnitSystem | None, base_dir: Path | None = None) -> Section:
     shape = s.get("shape")
     L = lambda key, v: to_si(v, "length", f"section.{key}", units)  # noqa: E731
     if shape == "round":
@@ -302,7 +305,12 @@ def _parse_section(s: dict, units: UnitSystem | None) -> Section:
         add = [_primitive(p, f"add[{i}]", units) for i, p in enumerate(_list(s.get("add"), "section.add"))]
         cut = [_primitive(p, f"cut[{i}]", units) for i, p in enumerate(_list(s.get("cut", []), "section.cut"))]
         return custom_section(add, cut)
-    raise InputError("section.shape", shape, "must be \"round\", \"keyed\" or \"custom\"")
+    if shape == "spline":
+        return parse_spline(s, units)
+    if shape in ("dxf", "step", "brep", "mesh"):
+        return parse_file_shape(s, units, base_dir, read_input_file)
+    raise InputError("section.shape", shape, "must be \"round\", \"keyed\", \"custom\", \"spline\", \"dxf\", "
+                     "\"step\", \"brep\" or \"mesh\"")
 
 
 def parse_feature_lengths(s: dict, units) -> list:
