@@ -5,6 +5,7 @@ import numpy as np
 
 from ..case.units import SYSTEMS, UnitSystem, from_si
 from .report_combined import combined_lines
+from .section_geometry import SECTION_WARNINGS, section_warning_text
 
 CAUTION = ("shaftcheck is a cross-check aid for the designer. It does not replace the governing codes and "
            "standards, the full design calculation, or the judgement of a licensed engineer, who decide.")
@@ -78,6 +79,8 @@ _CRIT = {"von_mises": "static yield, von Mises", "tresca": "static yield, Tresca
 def warning_text(w: dict, f: Fmt) -> str:
     """One warning record of :mod:`compare.findings` in words, in the case's units."""
     code = w["code"]
+    if code in SECTION_WARNINGS:
+        return section_warning_text(w)
     if code == "sharp_corner_no_verdict":
         where = []
         for c in w["corners"]:

@@ -8,6 +8,7 @@ from .._version import __version__
 from ..pairs.analysis import Analysis
 from .report import CAUTION, Fmt, warning_text
 from .report_combined import governing_text
+from .section_geometry import geometry_record
 
 SCHEMA_VERSION = 1
 
@@ -57,6 +58,7 @@ def build_results(a: Analysis) -> dict:
         "caution": CAUTION,
         "section": {
             "kind": case.section.kind,
+            "geometry": geometry_record(case.section),  # resolved dimensions of a spline or an imported outline
             "area": pr.area,
             "centroid": list(pr.centroid),
             "Ixx": pr.Ixx, "Iyy": pr.Iyy, "Ixy": pr.Ixy,
