@@ -230,7 +230,7 @@ def cad_section(text: str, suffix: str, scale: float) -> Section:
             raise InputError("section.file", None, f"holds {len(faces)} faces; give a file with exactly one planar face")
         xmin, ymin, zmin, xmax, ymax, zmax = gmsh.model.getBoundingBox(2, faces[0])
         ext = max(xmax - xmin, ymax - ymin)
-        if not ext > 0 or (zmax - zmin) > 1e-9 * ext or abs(zmin) > 1e-9 * ext:
+        if not ext > 0 or (zmax - zmin) > 1e-5 * ext or abs(zmax + zmin) / 2 > 1e-5 * ext:  # OCC pads boxes by its tolerance
             raise InputError("section.file", None, "the face is not in the plane z = 0 (draw the section in the x-y plane)")
         pieces = []
         bnd = gmsh.model.getBoundary([(2, faces[0])], combined=False, oriented=False)
@@ -243,25 +243,25 @@ def cad_section(text: str, suffix: str, scale: float) -> Section:
             closed = np.linalg.norm(ends[0] - ends[1]) <= 1e-12 * ext
             if typ == "Line":
                 pieces.append(Piece("line", ends * scale, name))
-            elif typ == "Circle":
-                mid = np.reshape(gmsh.model.getValue(1, c, [(lo + hi) / 2, lo + (hi - lo) / 4]), (-1, 3))[:, :2]
-                cen = _circumcentre(ends[0], mid[0], mid[1])
-                if closed:
-                    pieces.append(Piece("circle", np.array([cen]) * scale, name, centre=cen * scale,
-                                        radius=float(np.linalg.norm(ends[0] - cen)) * scale))
-                else:
-                    sweep = _arc_sweep(ends[0], cen, mid[0]) * 2
-                    pc = _arc_piece(ends[0] * scale, cen * scale, sweep, name)
-                    pc.pts[-1] = ends[1] * scale
-                    pieces.append(pc)
             else:
                 ts = np.linspace(lo, hi, CURVE_POINTS)
                 pts = np.reshape(gmsh.model.getValue(1, c, ts.tolist()), (-1, 3))[:, :2]
                 der = np.reshape(gmsh.model.getDerivative(1, c, ts.tolist()), (-1, 3))[:, :2]
-                if closed:
-                    pts, der = pts[:-1], der[:-1]
-                    segs = [Piece("curve", np.vstack([pts, pts[:1]]) * scale, name, tangents=np.vstack([der, der[:1]]))]
-                    pieces.append(Piece("loop", pts * scale, name, segments=tuple(segs)))
+                cen = _circumcentre(pts[0], pts[CURVE_POINTS // 3], pts[2 * CURVE_POINTS // 3])
+                rad = np.linalg.norm(pts - cen, axis=1) if np.all(np.isfinite(cen)) else np.array([0.0, 1.0])
+                if np.ptp(rad) <= 1e-9 * np.max(rad):  # a circle or an arc of one (OCC may call it an ellipse)
+                    if closed:
+                        pieces.append(Piece("circle", np.array([cen]) * scale, name, centre=cen * scale,
+                                            radius=float(np.mean(rad)) * scale))
+                    else:
+                        sweep = _arc_sweep(pts[0], cen, pts[CURVE_POINTS // 2]) + _arc_sweep(pts[CURVE_POINTS // 2], cen, pts[-1])
+                        pc = _arc_piece(ends[0] * scale, cen * scale, sweep, name)
+                        pc.pts[-1] = ends[1] * scale
+                        pieces.append(pc)
+                elif closed:  # one smooth closed curve: two halves
+                    h = CURVE_POINTS // 2
+                    pieces.append(Piece("curve", pts[:h + 1] * scale, name, tangents=der[:h + 1]))
+                    pieces.append(Piece("curve", pts[h:] * scale, name, tangents=der[h:]))
                 else:
                     pieces.append(Piece("curve", pts * scale, name, tangents=der))
         for p in pieces:
@@ -431,12 +431,15 @@ def section_from_pieces(pieces: list[Piece], source: str, curved: bool = True, e
         prim, poly, who = _loop_outline(lp)
         ext = float(np.max(np.ptp(poly, axis=0))) if len(poly) > 1 else 0.0
         area = abs(_shoelace(poly)) if len(poly) > 2 else 0.0
-        if not ext > 0 or area <= 1e-9 * ext * ext:
+        if not ext > 0:
             raise InputError("section.file", None, f"{lp[0].entity}: the loop encloses no area")
         hit = crossing(poly)
-        if hit is not None:
+        if hit is not None and area > 1e-9 * ext * ext:
             raise InputError("section.file", None, f"{lp[0].entity}: the loop crosses or touches itself near "
                              f"({hit[0]:.6g}, {hit[1]:.6g}) m")
+        if area <= 1e-9 * ext * ext:
+            raise InputError("section.file", None, f"{lp[0].entity}: the loop encloses no area"
+                             + (" (it crosses itself: its parts cancel)" if hit is not None else ""))
         prims.append(prim)
         polys.append(poly)
         whos.append(who)
