@@ -193,7 +193,7 @@ def dxf_section(text: str, layer: str | None = None, scale: float | None = None)
     """The section a DXF drawing shows (model space, or one layer)."""
     given = scale is not None
     pieces, scale = dxf_pieces(text, layer, scale)
-    return section_from_pieces(pieces, source="DXF drawing",
+    return section_from_pieces(pieces, source="DXF drawing", scale=scale,
                                extra=(("length_unit", scale, "section.units" if given else "the drawing's $INSUNITS"),))
 
 
@@ -268,7 +268,7 @@ def cad_section(text: str, suffix: str, scale: float) -> Section:
             p.pts = _round14(p.pts)
             if p.centre is not None:
                 p.centre = _round14(p.centre)
-        return section_from_pieces(pieces, source=f"{suffix[1:].upper()} face")
+        return section_from_pieces(pieces, source=f"{suffix[1:].upper()} face", scale=scale)
     finally:
         gmsh.clear()
         os.unlink(tmp)
@@ -315,13 +315,13 @@ def mesh_file_section(text: str, suffix: str, scale: float) -> Section:
         raise InputError("section.file", None, "an edge is shared by more than two triangles (overlapping triangles)")
     bnd = uniq[count == 1]
     pieces = [Piece("line", _round14(p[[a, b]]), f"boundary edge {a}-{b}") for a, b in bnd]
-    return section_from_pieces(pieces, source="triangle mesh", curved=False)
+    return section_from_pieces(pieces, source="triangle mesh", curved=False, scale=scale)
 
 
 # ----------------------------------------------------------------------------- loops
 
 
-def chain(pieces: list[Piece]) -> list[list[Piece]]:
+def chain(pieces: list[Piece], scale: float = 1.0) -> list[list[Piece]]:
     """Open pieces chained end to end into closed loops (each piece oriented along its loop)."""
     loops = [[p] for p in pieces if p.kind in ("loop", "circle")]
     open_ = [p for p in pieces if p.kind not in ("loop", "circle")]
@@ -338,13 +338,13 @@ def chain(pieces: list[Piece]) -> list[list[Piece]]:
         if not near:
             p = open_[k // 2]
             x, y = ends[k]
-            raise InputError("section.file", None, f"{p.entity}: the outline is open at ({x:.6g}, {y:.6g}) m; "
+            raise InputError("section.file", None, f"{p.entity}: the outline is open at {_at(x, y, scale)}; "
                              "no other line, arc or curve ends there")
         if len(near) > 1:
             p = open_[k // 2]
             x, y = ends[k]
             others = ", ".join(open_[j // 2].entity for j in near)
-            raise InputError("section.file", None, f"{p.entity}: three or more pieces meet at ({x:.6g}, {y:.6g}) m "
+            raise InputError("section.file", None, f"{p.entity}: three or more pieces meet at {_at(x, y, scale)} "
                              f"(also {others}); loops must not overlap, branch or touch")
         partner[k] = near[0]
     used = np.zeros(len(open_), bool)
@@ -423,9 +423,16 @@ def _inside(pt, poly) -> bool:
     return bool(np.count_nonzero(cond & (x < xc)) % 2)
 
 
-def section_from_pieces(pieces: list[Piece], source: str, curved: bool = True, extra: tuple = ()) -> Section:
-    """Chain, check and order the loops; the largest is the outline, the rest holes."""
-    loops = chain(pieces)
+def _at(x, y, scale) -> str:
+    """A point of the file, in the file's own units."""
+    return f"({x / scale:.6g}, {y / scale:.6g})" + (" m" if scale == 1.0 else " in the file's units")
+
+
+def section_from_pieces(pieces: list[Piece], source: str, curved: bool = True, extra: tuple = (),
+                        scale: float = 1.0) -> Section:
+    """Chain, check and order the loops; the largest is the outline, the rest holes. ``scale``
+    (metres per file unit) only words the points named in errors."""
+    loops = chain(pieces, scale)
     prims, polys, whos, areas = [], [], [], []
     for lp in loops:
         prim, poly, who = _loop_outline(lp)
@@ -436,10 +443,10 @@ def section_from_pieces(pieces: list[Piece], source: str, curved: bool = True, e
         hit = crossing(poly)
         if hit is not None and area > 1e-9 * ext * ext:
             raise InputError("section.file", None, f"{lp[0].entity}: the loop crosses or touches itself near "
-                             f"({hit[0]:.6g}, {hit[1]:.6g}) m")
+                             f"{_at(hit[0], hit[1], scale)}")
         if area <= 1e-9 * ext * ext:
             raise InputError("section.file", None, f"{lp[0].entity}: the loop encloses no area"
-                             + (" (it crosses itself: its parts cancel)" if hit is not None else ""))
+                             + (" (it folds back on itself or crosses itself)" if hit is not None else ""))
         prims.append(prim)
         polys.append(poly)
         whos.append(who)
@@ -451,7 +458,7 @@ def section_from_pieces(pieces: list[Piece], source: str, curved: bool = True, e
             hit = crossing(polys[i], polys[j])
             if hit is not None:
                 raise InputError("section.file", None, f"{loops[i][0].entity} and {loops[j][0].entity}: the loops cross, "
-                                 f"overlap or touch near ({hit[0]:.6g}, {hit[1]:.6g}) m")
+                                 f"overlap or touch near {_at(hit[0], hit[1], scale)}")
     for j in range(1, len(polys)):
         if not _inside(polys[j][0], polys[0]):
             raise InputError("section.file", None, f"{loops[j][0].entity}: this loop lies outside the outline "
