@@ -46,12 +46,28 @@ def involute_deviation(section, z, m, alpha_deg, s=None):
     return worst, n
 
 
-@pytest.mark.parametrize("z, alpha, root", [(20, 30.0, "flat"), (12, 37.5, "fillet"), (30, 45.0, "fillet")])
+@pytest.mark.parametrize("z, alpha, root", [(20, 30.0, "flat"), (12, 30.0, "fillet"), (12, 37.5, "fillet"),
+                                           (30, 45.0, "fillet")])
 def test_flanks_lie_on_the_exact_involute(z, alpha, root):
     sec = involute_spline_section(z, M, alpha, root=root)
     worst, n = involute_deviation(sec, z, M, alpha)
     assert n == 2 * z  # two flanks per tooth, each one smooth curve
     assert worst < 1e-6 * M, worst / M  # the issue's requirement: 1e-6 of the module
+
+
+def test_below_the_base_circle_the_flank_is_the_radial_line():
+    """12 teeth, 30° fillet root: the minor diameter (z − 1.8)·m lies inside the base circle
+    z·m·cos 30°; with a root radius of 0.05·m the fillet ends below the base circle, so each flank
+    starts with a radial segment, tangent to the involute's start."""
+    sec = involute_spline_section(12, M, 30.0, root="fillet", fillet=0.05 * M)
+    kinds = [k for k, _p, _t in sec.steps[0][1].segments]
+    assert kinds.count("line") == 2 * 12 and kinds.count("spline") == 2 * 12
+    rb = 12 * M * math.cos(math.radians(30.0)) / 2
+    for k, pts, _t in sec.steps[0][1].segments:
+        if k == "spline":
+            assert min(math.hypot(*pts[0]), math.hypot(*pts[-1])) >= rb * (1 - 1e-12)
+    worst, n = involute_deviation(sec, 12, M, 30.0)
+    assert n == 24 and worst < 1e-6 * M
 
 
 def test_flank_definition_points_are_exact():
