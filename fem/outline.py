@@ -172,6 +172,16 @@ def _shoelace(pts: np.ndarray) -> float:
     return 0.5 * float(np.sum(x * np.roll(y, -1) - np.roll(x, -1) * y))
 
 
+def _split_long(v: np.ndarray, target: float) -> np.ndarray:
+    """The closed polyline ``v`` with every edge longer than ``target`` split evenly."""
+    w = np.roll(v, -1, axis=0)
+    n = np.maximum(1, np.ceil(np.linalg.norm(w - v, axis=1) / target).astype(np.int64))
+    if np.all(n == 1):
+        return v
+    out = [v[i] + (w[i] - v[i]) * (np.arange(k) / k)[:, None] for i, k in enumerate(n)]
+    return np.vstack(out)
+
+
 def crossing(poly: np.ndarray, other: np.ndarray | None = None):
     """A point where the closed polyline ``poly`` crosses or touches itself (non-adjacent edges), or
     where it meets the closed polyline ``other``; None if nowhere. Candidate edge pairs come from a
@@ -180,6 +190,11 @@ def crossing(poly: np.ndarray, other: np.ndarray | None = None):
     b = a if other is None else np.asarray(other, float)
     scale = float(max(np.max(np.ptp(a, axis=0)), np.max(np.ptp(b, axis=0))))
     eps = 1e-10 * scale
+    # long edges split so that the search radius (the longest edge) stays local
+    lengths = np.concatenate([np.linalg.norm(np.roll(v, -1, axis=0) - v, axis=1) for v in (a, b)])
+    target = max(4 * float(np.median(lengths)), float(np.sum(lengths)) / 50_000)
+    a = _split_long(a, target)
+    b = a if other is None else _split_long(b, target)
     na = len(a)
     P, P2 = a, np.roll(a, -1, axis=0)
     Q, Q2 = b, np.roll(b, -1, axis=0)
