@@ -149,3 +149,16 @@ def test_impossible_straight_splines_are_refused(args, field):
     with pytest.raises(InputError) as e:
         straight_spline_section(*args)
     assert e.value.field == field, str(e.value)
+
+
+def test_a_scaled_spline_gets_the_same_mesh_and_J_times_k4():
+    """Dimensional analysis: J scales with the fourth power of the size (J has units m⁴); the section
+    is meshed in its own scale-free frame, so the scaled copy gets the same mesh (fem/mesh.py)."""
+    sec = involute_spline_section(12, M, 30.0, root="fillet")
+    sm0, _, t0 = torsion_of(sec, fineness=0.3)
+    sm1, _, t1 = torsion_of(sec.scaled(2.5), fineness=0.3)
+    assert sm0.mesh.t.shape == sm1.mesh.t.shape
+    J = {"fem": t1.J, "exact": 2.5**4 * t0.J}
+    assert J["fem"] == pytest.approx(J["exact"], rel=1e-9)
+    g = {n: v for n, v, _ in sec.scaled(2.5).geometry}
+    assert g["major_diameter"] == pytest.approx(2.5 * 13 * M) and g["teeth"] == 12
