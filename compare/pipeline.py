@@ -15,6 +15,7 @@ from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
 from .pairs.feature_step import attach_features, shaft_features_step
 from .pairs.shear_step import shear_step
+from .pairs.spline_step import spline_step
 from .solve.accuracy_step import accuracy_step
 from .solve.selfchecks import self_checks
 
@@ -31,6 +32,7 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         return a
     t0 = time.perf_counter()
     a = solve_case(case, fineness, study)  # mesh, properties, torsion and its pairs
+    spline_step(a)  # a spline's FE results beside the round bars used for it
     shear_step(a)
     if a.study is not None:
         accuracy_step(a)

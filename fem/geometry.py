@@ -201,6 +201,9 @@ class Section:
     #: d of the hand nominals 16T/(πd³) and 32M/(πd³) where it is not ``diameter`` (flats, drives,
     #: a custom section given one); see :attr:`nominal`
     nominal_diameter: float | None = None
+    #: resolved dimensions for results.json, as (name, value, where it came from); lengths in metres
+    #: (set by fem.splines and fem.outline_import)
+    geometry: tuple = field(default=(), compare=False)
 
     @property
     def nominal(self) -> float | None:
@@ -222,7 +225,8 @@ class Section:
                        nominal_diameter=self.nominal_diameter and k * self.nominal_diameter,
                        keyways=tuple(replace(w, width=k * w.width, depth=k * w.depth, fillet=k * w.fillet)
                                      for w in self.keyways),
-                       origin=(k * self.origin[0], k * self.origin[1]))
+                       origin=(k * self.origin[0], k * self.origin[1]),
+                       geometry=tuple((n, k * v if n in SCALED_GEOMETRY else v, src) for n, v, src in self.geometry))
 
     def mirrored(self) -> "Section":
         """A new section mirrored in the y axis (x -> -x)."""
@@ -510,6 +514,10 @@ def analyse_boundary(gmsh, surfaces: list[int], length_scale: float, to_metres=N
 
 
 # ----------------------------------------------------------------------------- helpers
+
+#: Entries of Section.geometry that are lengths (scaled by Section.scaled()).
+SCALED_GEOMETRY = {"module", "pitch_diameter", "base_diameter", "major_diameter", "minor_diameter", "fillet",
+                   "tooth_thickness", "width", "bore"}
 
 #: Walls, ligaments and keyway sizes thinner than this fraction of the diameter are refused: at
 #: 1e-3·d the sliver is far below any real feature and near the geometry kernel's tolerances.

@@ -127,6 +127,8 @@ def normalised_section(section: Section, frame: Frame | None = None) -> tuple[Se
             return replace(p, center=pt(p.center), semi_axes=(_snap(p.semi_axes[0] * k), _snap(p.semi_axes[1] * k)))
         if isinstance(p, Polygon):
             return replace(p, points=tuple(pt(q) for q in p.points), fillets=tuple(_snap(r * k) for r in p.fillets))
+        if hasattr(p, "framed"):  # fem.outline.Outline: points mapped and rounded, directions kept
+            return p.framed(pt, k)
         raise TypeError(f"unknown primitive {type(p).__name__}")
 
     steps = tuple((op, prim(p)) for op, p in section.steps)

@@ -3,7 +3,7 @@
 Schema (README, 'Case files', is the reference)::
 
     [case]      title, units ("mm-N-MPa" | "in-lbf-psi" | "in-lbf-ksi" | "m-N-Pa")
-    [section]   shape = "round" | "keyed" | "custom", and its dimensions
+    [section]   shape = "round" | "keyed" | "custom" | "spline" | "dxf" | "step" | "brep" | "mesh", and its dimensions
     [loads]     torque, bending = [Mx, My], shear = [Vx, Vy], axial, the *_mean / *_alternating
                 parts of each, rotating
     [material]  shear_modulus | elastic_modulus, poisson, yield, ultimate, ...
@@ -28,6 +28,7 @@ from classic.fatigue import surface_factor
 from fem.errors import InputError, escape_text
 from fem.geometry import Disk, Ellipse, Section, custom_section, polygon, rectangle, round_section
 
+from .outlines import parse_file_shape, parse_spline
 from .shaft import Shaft, check_with_case, parse_shaft
 from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
 from .units import UnitSystem, from_si, to_si, unit_system
@@ -180,12 +181,14 @@ def parse_toml(text: str, field: str, shown: str) -> dict:
 def load_case(path: str | Path) -> Case:
     path = Path(path)
     data = parse_toml(read_input_file(path, "case file"), "case file", str(path))
-    case = parse_case(data)
+    case = parse_case(data, base_dir=path.parent)
     case.path = path
     return case
 
 
-def parse_case(data: dict) -> Case:
+def parse_case(data: dict, base_dir: Path | None = None) -> Case:
+    """A case from its TOML data; files the section names (``section.file``) are taken relative to
+    ``base_dir`` (the case file's folder; the working directory when None)."""
     _known(data, _TOP, "")
     c = data.get("case", {})
     _known(c, _CASE, "case")
@@ -195,7 +198,7 @@ def parse_case(data: dict) -> Case:
         if key in c:
             _text(c[key], f"case.{key}")
     geometry: dict = {}
-    section = parse_section(data["section"], units, geometry) if "section" in data else None
+    section = parse_section(data["section"], units, geometry, base_dir) if "section" in data else None
     loads = parse_loads(data.get("loads", {}), units)
     shaft = parse_shaft(data["shaft"], units, parse_section, loads.rotating) if "shaft" in data else None
     if "section" not in data and not (shaft is not None and shaft.segments):
@@ -252,14 +255,15 @@ def _nonzero(v) -> bool:
 # ----------------------------------------------------------------------------- section
 
 
-def parse_section(s: dict, units: UnitSystem | None, geometry: dict | None = None) -> Section:
+def parse_section(s: dict, units: UnitSystem | None, geometry: dict | None = None,
+                  base_dir: Path | None = None) -> Section:
     """The section, checked. A value refused by the geometry (which works in metres) is echoed as the
     user wrote it, with its unit, and lengths in the reason are given in the case's units.
     ``geometry``, if given, is filled with every resolved dimension (SI) and where it came from."""
     if not isinstance(s, dict):
         raise InputError("section", s, "must be a table: [section] with shape = \"round\", \"keyed\" or \"custom\"")
     try:
-        section, geo = _parse_section({k: v for k, v in s.items() if k != "nominal_diameter"}, units)
+        section, geo = _parse_section({k: v for k, v in s.items() if k != "nominal_diameter"}, units, base_dir)
         if "nominal_diameter" in s:
             nd = to_si(s["nominal_diameter"], "length", "section.nominal_diameter", units)
             if not nd > 0:
@@ -309,13 +313,17 @@ _NOMINAL_DEFAULT = {"round": "the shaft diameter", "keyed": "the shaft diameter"
                     "hexagon": "the size across flats (largest round bar inside)"}
 
 
-def _parse_section(s: dict, units: UnitSystem | None) -> tuple[Section, dict]:
+def _parse_section(s: dict, units: UnitSystem | None, base_dir: Path | None = None) -> tuple[Section, dict]:
     """The section and the record of its resolved dimensions (SI, with where each came from)."""
     shape = s.get("shape")
     if shape == "keyed":
         return parse_keyed(s, units)
     if isinstance(shape, str) and shape in SHAPE_KEYS:
         return parse_shape(s, units)
+    if shape == "spline":  # the resolved dimensions travel on the section (fem.splines): results.py
+        return parse_spline(s, units), {}
+    if shape in ("dxf", "step", "brep", "mesh"):
+        return parse_file_shape(s, units, base_dir, read_input_file), {}
     sec = _parse_plain(s, units)
     geo = {"diameter": {"value": sec.diameter, "from": "given"}} if sec.diameter else {}
     if sec.bore:
@@ -335,7 +343,7 @@ def _parse_plain(s: dict, units: UnitSystem | None) -> Section:
         cut = [_primitive(p, f"cut[{i}]", units) for i, p in enumerate(_list(s.get("cut", []), "section.cut"))]
         return custom_section(add, cut)
     raise InputError("section.shape", shape, "must be \"round\", \"keyed\", \"flatted\", \"square\", \"hexagon\", "
-                     "\"cross_slot\" or \"custom\"")
+                     "\"cross_slot\", \"custom\", \"spline\", \"dxf\", \"step\", \"brep\" or \"mesh\"")
 
 
 def parse_feature_lengths(s: dict, units) -> list:

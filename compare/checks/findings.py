@@ -16,6 +16,8 @@ import math
 
 from fem.topology import cut_connectivity
 
+from .section_findings import section_findings
+
 #: Exit code of a run that can give no verdict: the stress is unbounded at a sharp re-entrant corner.
 EXIT_NO_VERDICT = 4
 
@@ -58,6 +60,7 @@ def findings_step(a) -> None:
                     "limited_by": acc.get("limited_by"), "because": list(acc.get("not_met_because") or [])})
     for ch in cut_connectivity(a.case.section):
         out.append({"code": "open_section", **ch})
+    out.extend(section_findings(a.case.section))  # splines, imported outlines
     width = a.case.section.length_scale
     for field, length in a.case.feature_lengths:
         if length < width:

@@ -7,6 +7,7 @@ from ..case.units import SYSTEMS, UnitSystem, from_si
 from .report_combined import combined_lines
 from .report_features import feature_lines, feature_warning_text
 from .report_geometry import geometry_lines
+from .section_geometry import SECTION_WARNINGS, section_warning_text
 
 CAUTION = ("shaftcheck is a cross-check aid for the designer. It does not replace the governing codes and "
            "standards, the full design calculation, or the judgement of a licensed engineer, who decide.")
@@ -82,6 +83,8 @@ def warning_text(w: dict, f: Fmt) -> str:
     code = w["code"]
     if code.startswith("feature_"):  # shoulders and grooves of [shaft]
         return feature_warning_text(w, f) or code
+    if code in SECTION_WARNINGS:
+        return section_warning_text(w)
     if code == "sharp_corner_no_verdict":
         where = []
         for c in w["corners"]:

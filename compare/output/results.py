@@ -10,6 +10,7 @@ from .report import CAUTION, Fmt, warning_text
 from .report_combined import governing_text
 from .results_features import add_feature_results
 from .results_shaft import add_shaft_results
+from .section_geometry import geometry_record
 
 SCHEMA_VERSION = 1
 
@@ -59,7 +60,7 @@ def build_results(a: Analysis) -> dict:
         "caution": CAUTION,
         "section": {
             "kind": case.section.kind,
-            "geometry": case.geometry,  # every resolved dimension (SI) and where it came from
+            "geometry": {**(case.geometry or {}), **(geometry_record(case.section) or {})},  # every resolved dimension (SI) and where it came from
             "area": pr.area,
             "centroid": list(pr.centroid),
             "Ixx": pr.Ixx, "Iyy": pr.Iyy, "Ixy": pr.Ixy,
