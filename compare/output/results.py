@@ -8,6 +8,7 @@ from .._version import __version__
 from ..pairs.analysis import Analysis
 from .report import CAUTION, Fmt, warning_text
 from .report_combined import governing_text
+from .trace import input_hashes
 
 SCHEMA_VERSION = 1
 
@@ -54,6 +55,7 @@ def build_results(a: Analysis) -> dict:
         "tool": {"name": "shaftcheck", "version": __version__},
         "case": {"title": case.title, "units": case.units.name if case.units else None,
                  "file": str(case.path) if case.path else None},
+        "inputs": input_hashes(case),
         "caution": CAUTION,
         "section": {
             "kind": case.section.kind,
