@@ -12,7 +12,7 @@ matplotlib.use("Agg")
 import matplotlib.pyplot as plt  # noqa: E402
 import numpy as np  # noqa: E402
 from matplotlib.ticker import LogLocator, NullLocator  # noqa: E402
-from matplotlib.tri import Triangulation  # noqa: E402
+from matplotlib.tri import LinearTriInterpolator, Triangulation  # noqa: E402
 from skfem import Basis, ElementTriP2  # noqa: E402
 
 from fem.export import nodal_gradient  # noqa: E402
@@ -179,12 +179,16 @@ def torsion_figure(a, res, g: Geometry, f: Fmt, fields: dict) -> Figure:
     fig, ax = plt.subplots(figsize=(6.0, 4.8))
     unit = f.s.label("stress") + ("" if a.torque else f" per {f.s.label('moment')}")
     _field(ax, g, mag, f"torsion shear stress |τ| [{unit}]", fig)
-    # direction arrows on a coarse subset of the vertices
-    rng = np.random.default_rng(1)
-    nv = a.mesh.mesh.p.shape[1]
-    pick = rng.choice(nv, size=min(260, nv), replace=False)
-    ax.quiver(g.xy[0, pick], g.xy[1, pick], tx[pick], ty[pick], color="white", pivot="mid", width=0.0035,
-              scale=None, headwidth=3.5, headlength=4, alpha=0.9, edgecolor=INK, linewidth=0.3)
+    # direction arrows of equal length on a regular grid (the colour gives the size)
+    span = max(np.ptp(g.xy[0]), np.ptp(g.xy[1]))
+    gx, gy = np.meshgrid(np.linspace(g.xy[0].min(), g.xy[0].max(), 15), np.linspace(g.xy[1].min(), g.xy[1].max(), 15))
+    ux = LinearTriInterpolator(g.tri, tx)(gx, gy)
+    uy = LinearTriInterpolator(g.tri, ty)(gx, gy)
+    ok = ~np.ma.getmaskarray(ux) & (np.hypot(ux.filled(0), uy.filled(0)) > 0.05 * np.max(np.hypot(tx, ty)))
+    ux, uy = ux.filled(0)[ok], uy.filled(0)[ok]
+    ln = 0.045 * span / np.hypot(ux, uy)
+    ax.quiver(gx[ok], gy[ok], ux * ln, uy * ln, angles="xy", scale_units="xy", scale=1, color="white", pivot="mid",
+              width=0.005, headwidth=3.5, headlength=3.5, edgecolor=INK, linewidth=0.4)
     _peak(ax, res["torsion"]["tau_max_at"], f"τmax {f.q(res['torsion']['tau_max'], 'stress', 4)}", g)
     ax.set_title("torsion: shear-stress magnitude, directions and peak")
     return Figure("torsion_stress", "Torsion shear-stress magnitude with directions and the peak", fig)
@@ -243,10 +247,19 @@ def von_mises_figure(res, g: Geometry, f: Fmt, fields: dict, points: list) -> Fi
     v = np.asarray(fields["von_mises"]) * from_si(1.0, "stress", f.s)
     fig, ax = plt.subplots(figsize=(6.0, 4.8))
     _field(ax, g, v, f"von Mises stress [{f.s.label('stress')}]", fig)
+    span = max(np.ptp(g.xy[0]), np.ptp(g.xy[1]))
+    placed: list = []
     for p in points:
         x, y = p["at"][0] * g.k, p["at"][1] * g.k
-        ax.plot(x, y, marker="o", ms=11, mfc="white", mec=INK, mew=1.0, zorder=5)
-        ax.text(x, y, str(p["number"]), ha="center", va="center", fontsize=7, zorder=6, color=INK)
+        # points at (nearly) one place get their numbers fanned out around it, joined by a leader
+        near = sum(1 for q in placed if math.hypot(q[0] - x, q[1] - y) < 0.04 * span)
+        placed.append((x, y))
+        ang = math.radians(120 - 40 * near)
+        ax.plot(x, y, marker="o", ms=3, color=MARK, zorder=5)
+        ax.annotate(str(p["number"]), (x, y), xytext=(22 * math.cos(ang), 22 * math.sin(ang)),
+                    textcoords="offset points", ha="center", va="center", fontsize=7, zorder=6,
+                    bbox={"boxstyle": "circle,pad=0.2", "fc": "white", "ec": INK, "lw": 0.6},
+                    arrowprops={"arrowstyle": "-", "color": INK, "lw": 0.5})
     ax.set_title("combined stress at the worst instant, critical points numbered")
     return Figure("von_mises", "Von Mises stress at the worst instant with the critical points", fig)
 
@@ -289,7 +302,8 @@ def mohr_figures(points: list, f: Fmt) -> list[Figure]:
                         textcoords="offset points", fontsize=7, ha="center")
         c, r = k * m["centre"], k * m["radius"]
         ax.plot([c, c], [0, r], color="#888888", lw=0.6, ls="--")
-        ax.annotate(f"τmax {f.q(m['radius'], 'stress', 4)}", (c, r), xytext=(4, 4), textcoords="offset points",
+        ax.plot([c, c], [0, -r], color="#888888", lw=0.6, ls="--")
+        ax.annotate(f"τmax {f.q(m['radius'], 'stress', 4)}", (c, -r), xytext=(4, -12), textcoords="offset points",
                     fontsize=7.5)
         ax.text(0.02, 0.02, f"2θ = {m['double_angle_deg']:.1f}°", transform=ax.transAxes, fontsize=8)
         ax.axhline(0, color=GRID, lw=0.5)
