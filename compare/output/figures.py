@@ -29,7 +29,7 @@ STYLE = {
     "axes.edgecolor": INK, "axes.linewidth": 0.6, "axes.spines.top": False, "axes.spines.right": False,
     "xtick.color": INK, "ytick.color": INK, "xtick.major.width": 0.6, "ytick.major.width": 0.6,
     "axes.grid": False, "grid.color": GRID, "grid.linewidth": 0.4, "lines.linewidth": 1.0,
-    "figure.dpi": 110, "savefig.dpi": 160, "svg.fonttype": "path", "svg.hashsalt": "shaftcheck",
+    "figure.dpi": 110, "savefig.dpi": 160, "svg.fonttype": "none", "svg.hashsalt": "shaftcheck",
     "legend.frameon": False, "legend.fontsize": 7.5,
 }
 
@@ -278,12 +278,19 @@ def fatigue_figure(res, g: Geometry, fields: dict) -> Figure | None:
 
 
 def mohr_figures(points: list, f: Fmt) -> list[Figure]:
+    """One figure, one panel per critical point (numbered as on the von Mises map)."""
+    if not points:
+        return []
     k = from_si(1.0, "stress", f.s)
     u = f.s.label("stress")
-    out = []
-    for p in points:
+    ncol = 2
+    nrow = math.ceil(len(points) / ncol)
+    fig, axes = plt.subplots(nrow, ncol, figsize=(8.6, 3.7 * nrow), squeeze=False)
+    fig.subplots_adjust(hspace=0.45, wspace=0.35)
+    for ax in list(axes.flat)[len(points):]:
+        ax.axis("off")
+    for ax, p in zip(axes.flat, points):
         m = p["mohr"]
-        fig, ax = plt.subplots(figsize=(4.6, 3.9))
         th = np.linspace(0, 2 * math.pi, 361)
         styles = {"sigma1-sigma3": (INK, 1.1, "-"), "sigma1-sigma2": ("#666666", 0.7, "--"),
                   "sigma2-sigma3": ("#666666", 0.7, ":")}
@@ -303,17 +310,17 @@ def mohr_figures(points: list, f: Fmt) -> list[Figure]:
         c, r = k * m["centre"], k * m["radius"]
         ax.plot([c, c], [0, r], color="#888888", lw=0.6, ls="--")
         ax.plot([c, c], [0, -r], color="#888888", lw=0.6, ls="--")
-        ax.annotate(f"τmax {f.q(m['radius'], 'stress', 4)}", (c, -r), xytext=(4, -12), textcoords="offset points",
-                    fontsize=7.5)
+        ax.annotate(f"τmax {f.q(m['radius'], 'stress', 4)}", (c, -0.6 * r), xytext=(4, 0), textcoords="offset points",
+                    fontsize=7.5, va="center")
         ax.text(0.02, 0.02, f"2θ = {m['double_angle_deg']:.1f}°", transform=ax.transAxes, fontsize=8)
         ax.axhline(0, color=GRID, lw=0.5)
         ax.axvline(0, color=GRID, lw=0.5)
         ax.set_aspect("equal", adjustable="datalim")
         ax.set_xlabel(f"normal stress σ [{u}]")
         ax.set_ylabel(f"shear stress τ [{u}]")
-        ax.set_title(f"point {p['number']}: {', '.join(p['criteria'])}")
-        out.append(Figure(f"mohr_{p['number']}", f"Mohr's circle of critical point {p['number']}", fig))
-    return out
+        ax.set_title(f"point {p['number']}: {', '.join(p['criteria'])}", fontsize=8.5)
+    return [Figure("mohr", "Mohr's circles of the critical points (z face, principal stresses, maximum shear, 2θ)",
+                   fig)]
 
 
 CONV_LABELS = {"J": "J", "tau_max": "torsion τmax", "shear_tau_max": "shear τmax", "shear_centre_x": "shear centre x",
@@ -327,7 +334,8 @@ def convergence_figure(res) -> Figure | None:
     keys = list(conv)
     ncol = 3
     nrow = math.ceil(len(keys) / ncol)
-    fig, axes = plt.subplots(nrow, ncol, figsize=(8.6, 2.5 * nrow), squeeze=False, layout="constrained")
+    fig, axes = plt.subplots(nrow, ncol, figsize=(8.6, 2.6 * nrow), squeeze=False)
+    fig.subplots_adjust(hspace=0.75, wspace=0.55)
     for ax, key in zip(axes.flat, keys):
         v = conv[key]
         d = np.asarray(v["dofs"], float)

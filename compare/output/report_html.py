@@ -108,8 +108,7 @@ def render(res: dict, system, figures: list, case_text: str | None, trace: dict,
     parts["combined"] = ((_img(figs["von_mises"]) if "von_mises" in figs else "") +
                          _table(("point", "critical for", "at", "σ", "τ", "von Mises"), rows, numeric=(3, 4, 5)) +
                          (_img(figs["fatigue_factor"]) if "fatigue_factor" in figs else ""))
-    parts["mohr"] = "".join(_img(figs[f"mohr_{p['number']}"]) for p in pts if f"mohr_{p['number']}" in figs) or \
-        "<p>No combined-stress points.</p>"
+    parts["mohr"] = _img(figs["mohr"]) if "mohr" in figs else "<p>No combined-stress points.</p>"
     hv = []
     for p in res.get("compare", []):
         if p["kind"] == "not applicable":
