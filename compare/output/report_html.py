@@ -115,7 +115,9 @@ def render(res: dict, system, figures: list, case_text: str | None, trace: dict,
             hv.append((p["quantity"], "—", "—", "—", p.get("note") or ""))
             continue
         dim = p["dimension"]
-        fe = f.q0(p["fe"], dim, p["classic"] or 0.0) if p["classic"] else f.q(p["fe"], dim)
+        # round-off as 0: against the hand value, or against 1 for a dimensionless ratio (a size-relative offset)
+        scale = max(abs(p["classic"] or 0.0), 1.0 if dim == "dimensionless" else 0.0)
+        fe = f.q0(p["fe"], dim, scale)
         hv.append((p["quantity"], fe, f.q(p["classic"], dim), _num(p["ratio"], 5),
                    p["source"] + (f"; {p['note']}" if p.get("note") else "")))
     if t.get("kts") is not None:
