@@ -16,10 +16,13 @@ import meshio
 import numpy as np
 import pytest
 
+from fem.errors import InputError
 from compare.case.case import load_case
 from compare.case.units import SYSTEMS, from_si
 from compare.cli import main
-from compare.output.headline import _get
+from compare.cli.cmd_run import check_out
+from compare.output.headline import _get, headline_rows
+from compare.output.screen import plain_summary
 from compare.output.report_html import SECTIONS
 from compare.output.trace import input_hashes
 
@@ -171,3 +174,29 @@ def test_user_text_is_escaped_and_no_report_skips_it(tmp_path, run_cli):
     assert code == 0, err
     assert sorted(p.name for p in (tmp_path / "o").iterdir()) == ["results.json", "section.vtu"]
     assert "Torsion (Saint-Venant)" in out  # --verbose: the full detail
+
+
+def test_no_verdict_marks_every_peak_and_factor_row(demo):
+    """With a sharp re-entrant corner no factor is presented as governing, and every peak and factor
+    row says it is for the rest of the section only (the governing row is left out)."""
+    res = json.loads(json.dumps(demo["res"]))
+    res["governing"] = {"no_verdict": True, "text": "no verdict"}
+    rows = headline_rows(res, SYSTEMS[res["case"]["units"]])
+    assert not any(r["group"] == "governing" for r in rows)
+    for r in rows:
+        if r["group"] in ("combined", "static", "fatigue") or r["results_json_key"].endswith("tau_max"):
+            assert "NO VERDICT" in r["quantity"], r
+    text = plain_summary(res, SYSTEMS[res["case"]["units"]])
+    assert text.splitlines()[1].startswith("VERDICT: none")
+
+
+def test_out_folder_with_a_foreign_file_among_the_figures_is_refused(tmp_path):
+    out = tmp_path / "o"
+    (out / "figures").mkdir(parents=True)
+    (out / "report.html").write_text("old")
+    (out / "figures" / "a.png").write_bytes(b"x")
+    check_out(out)  # an earlier output: accepted (it will be replaced whole)
+    (out / "figures" / "notes.txt").write_text("mine")
+    with pytest.raises(InputError) as exc:
+        check_out(out)
+    assert "notes.txt" in str(exc.value) and "--out" in str(exc.value)

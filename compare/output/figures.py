@@ -189,7 +189,8 @@ def torsion_figure(a, res, g: Geometry, f: Fmt, fields: dict) -> Figure:
     ln = 0.045 * span / np.hypot(ux, uy)
     ax.quiver(gx[ok], gy[ok], ux * ln, uy * ln, angles="xy", scale_units="xy", scale=1, color="white", pivot="mid",
               width=0.005, headwidth=3.5, headlength=3.5, edgecolor=INK, linewidth=0.4)
-    _peak(ax, res["torsion"]["tau_max_at"], f"τmax {f.q(res['torsion']['tau_max'], 'stress', 4)}", g)
+    away = " (away from sharp corners)" if res["torsion"].get("singular_corners") else ""
+    _peak(ax, res["torsion"]["tau_max_at"], f"τmax{away} {f.q(res['torsion']['tau_max'], 'stress', 4)}", g)
     ax.set_title("torsion: shear-stress magnitude, directions and peak")
     return Figure("torsion_stress", "Torsion shear-stress magnitude with directions and the peak", fig)
 

@@ -31,6 +31,9 @@ def headline_rows(res: dict, system) -> list[dict]:
     ``estimated_error`` the study's relative error estimate (GCI) where it has one."""
     f = Fmt(system)
     rows: list[dict] = []
+    # with a sharp re-entrant corner the stress is unbounded: the peaks and factors below are for the
+    # rest of the section only, and every such row says so
+    nv = bool((res.get("governing") or {}).get("no_verdict") or res["torsion"].get("singular_corners"))
     size = res["section"]["area"] ** 0.5
     conv = res.get("convergence", {})
 
@@ -42,6 +45,8 @@ def headline_rows(res: dict, system) -> list[dict]:
             v = 0.0  # round-off of a symmetric section, not a result
         ck = _ERROR_OF.get(key)
         err = (conv.get(ck) or {}).get("gci") if ck else None
+        if nv and group in ("combined", "static", "fatigue") or nv and key.endswith("tau_max"):
+            quantity += " [not at the sharp corners: NO VERDICT]"
         unit = "" if dim == "dimensionless" else f.s.label(dim)
         hv = None if hand is None else from_si(hand, dim, f.s)
         ratio = None if hand in (None, 0) else v / hand

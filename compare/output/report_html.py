@@ -96,8 +96,10 @@ def render(res: dict, system, figures: list, case_text: str | None, trace: dict,
     parts["section"] = _img(figs["section"]) if "section" in figs else ""
     parts["mesh"] = _img(figs["mesh"]) if "mesh" in figs else ""
     t = res["torsion"]
+    away = (" away from the sharp re-entrant corners (there the stress is unbounded: this is not the section's "
+            "peak and not a verdict)") if t.get("singular_corners") else ""
     parts["torsion"] = (_img(figs["torsion_stress"]) +
-                        f"<p>τmax {e(f.q(t['tau_max'], 'stress'))} at {e(f.point(t['tau_max_at']))}: "
+                        f"<p>τmax {e(f.q(t['tau_max'], 'stress'))}{e(away)} at {e(f.point(t['tau_max_at']))}: "
                         f"{e(f.where(t['tau_max_where']))}.</p>")
     parts["stress-function"] = _img(figs["stress_function"])
     parts["shear"] = _img(figs["shear_stress"]) if "shear_stress" in figs else \
