@@ -119,3 +119,15 @@ def shear_load_y(v, w):
     src = 2.0 * (Ixy * x - Iyy * y)
     gv = grad(v)
     return -src * v + h0 * gv[0] + h1 * gv[1] + div_h * v
+
+
+@BilinearForm
+def mass(u, v, _):
+    """∫ u v dA: the mass matrix of an L2 projection."""
+    return u * v
+
+
+@LinearForm
+def projection_load(v, w):
+    """∫ f v dA for quadrature-point values ``f``: the load of an L2 projection."""
+    return w.f * v

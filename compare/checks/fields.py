@@ -12,11 +12,9 @@ maps.
 from __future__ import annotations
 
 import numpy as np
-from skfem import Basis, ElementTriP2
-
 from classic import fatigue as cf
 from classic import stress as cs
-from fem.export import nodal_gradient
+from fem.export import projector
 from fem.torsion import singular_mask
 
 from .combined import Field, _kc_axial, fatigue_stresses, load_cycle
@@ -28,11 +26,12 @@ FATIGUE_MAPPED = ("goodman", "gerber", "asme_elliptic", "soderberg")
 def node_field(a) -> Field:
     """The unit fields of :class:`~compare.checks.combined.Field` at the P2 nodes of the final mesh."""
     sm, pr, tr = a.mesh, a.props, a.torsion
-    basis = Basis(sm.mesh, ElementTriP2())
     xy = np.asarray(sm.mesh.doflocs)
     xc, yc = pr.centroid
     n = xy.shape[1]
-    g = nodal_gradient(tr.basis, tr.phi)
+    proj_t = projector(tr.basis)
+    gq = tr.basis.interpolate(tr.phi).grad
+    g = np.vstack([proj_t(gq[0]), proj_t(gq[1])])
     S, TX, TY = np.zeros((6, n)), np.zeros((6, n)), np.zeros((6, n))
     S[0] = cs.axial_stress(1.0, pr.area)
     S[1] = cs.unsymmetric_bending_stress(1.0, 0.0, xy[0] - xc, xy[1] - yc, pr.Ixx, pr.Iyy, pr.Ixy)
@@ -42,14 +41,16 @@ def node_field(a) -> Field:
     if has_shear:
         sr = a.shear
         (ax, ay), (bx, by) = sr.unit_stresses_at(sr.basis)
-        proj = [np.asarray(sr.basis.project(np.asarray(v))) for v in (ax, ay, bx, by)]
+        proj_s = projector(sr.basis)
+        proj = [proj_s(v) for v in (ax, ay, bx, by)]
         ox, oy = a.case.section.origin
         sx, sy = sr.centre
         dT_dVx, dT_dVy = -(oy - sy), (ox - sx)  # as in combined.build_field
         TX[4], TY[4] = proj[0] + dT_dVx * TX[3], proj[1] + dT_dVx * TY[3]
         TX[5], TY[5] = proj[2] + dT_dVy * TX[3], proj[3] + dT_dVy * TY[3]
-    del basis
-    return Field(xy, np.zeros(n, dtype=bool), np.full(n, -1), singular_mask(sm, xy), S, TX, TY, has_shear, [])
+    fld = Field(xy, np.zeros(n, dtype=bool), np.full(n, -1), singular_mask(sm, xy), S, TX, TY, has_shear, [])
+    fld.phi_gradient = g  # ∇φ at the nodes (torsion per unit Gθ), for the torsion map
+    return fld
 
 
 def worst_instant_load(combined: dict) -> np.ndarray | None:
@@ -107,6 +108,7 @@ def nodal_fields(a) -> dict[str, np.ndarray]:
         if facs:
             f = np.min(np.vstack([np.atleast_1d(np.asarray(x, float)) for x in facs]), axis=0)
             out["fatigue_factor"] = np.where(np.isfinite(f), f, np.inf)
+    out["phi_gradient"] = fld.phi_gradient
     out["excluded"] = fld.excluded
     out["xy"] = fld.xy
     return out

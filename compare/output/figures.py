@@ -173,7 +173,7 @@ def torsion_figure(a, res, g: Geometry, f: Fmt, fields: dict) -> Figure:
     from_s = from_si(1.0, "stress", f.s)
     tr = a.torsion
     T = abs(a.torque) or 1.0
-    grad = nodal_gradient(tr.basis, tr.phi)
+    grad = fields["phi_gradient"] if "phi_gradient" in fields else nodal_gradient(tr.basis, tr.phi)
     tx, ty = T * grad[1] / tr.J, -T * grad[0] / tr.J
     mag = np.hypot(tx, ty) * from_s
     fig, ax = plt.subplots(figsize=(6.0, 4.8))

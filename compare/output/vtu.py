@@ -30,11 +30,11 @@ def write_fields_vtu(path: Path, a) -> None:
     instant of the load cycle, the transverse-shear stresses and the FE-path fatigue factor of safety
     (where computed; infinite factors written as -1: no stress), plus any field a later step adds."""
     tr = a.torsion
-    g = nodal_gradient(tr.basis, tr.phi)
+    nf = fields_of(a) if a.extra.get("combined") else {}
+    g = nf["phi_gradient"] if "phi_gradient" in nf else nodal_gradient(tr.basis, tr.phi)
     k = (abs(a.torque) or 1.0) / tr.J
     data = {"prandtl_phi": tr.phi, "warping_omega": tr.omega,
             "torsion_tau_zx": k * g[1], "torsion_tau_zy": -k * g[0], "torsion_tau": k * np.hypot(g[0], g[1])}
-    nf = fields_of(a) if a.extra.get("combined") else {}
     for key, name in MAPPED.items():
         if key in nf:
             v = np.asarray(nf[key], float)
