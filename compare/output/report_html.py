@@ -105,8 +105,10 @@ def render(res: dict, system, figures: list, case_text: str | None, trace: dict,
     parts["shear"] = _img(figs["shear_stress"]) if "shear_stress" in figs else \
         f"<p>Not computed: {e((res.get('shear') or {}).get('skipped', 'no transverse-shear field'))}.</p>"
     pts = critical_points(res)
-    rows = [(p["number"], ", ".join(p["criteria"]), f.point(p["at"]), f.q(p["sigma"], "stress", 4),
-             f.q(p["tau"], "stress", 4), f.q(p["von_mises"], "stress", 4)) for p in pts]
+    # σ or τ below 1e-7 of the point's von Mises stress is round-off (shown as 0, never as -0)
+    rows = [(p["number"], ", ".join(p["criteria"]), f.point(p["at"]),
+             f.q0(p["sigma"] + 0.0, "stress", p["von_mises"], 4), f.q0(p["tau"] + 0.0, "stress", p["von_mises"], 4),
+             f.q(p["von_mises"], "stress", 4)) for p in pts]
     parts["combined"] = ((_img(figs["von_mises"]) if "von_mises" in figs else "") +
                          _table(("point", "critical for", "at", "σ", "τ", "von Mises"), rows, numeric=(3, 4, 5)) +
                          (_img(figs["fatigue_factor"]) if "fatigue_factor" in figs else ""))
