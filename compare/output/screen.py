@@ -15,7 +15,7 @@ from rich.table import Table
 
 from ..solve.progress import listening
 from .headline import headline_rows
-from .report import CAUTION, Fmt, summary
+from .report import CAUTION, summary
 
 #: the groups of the compact table, in order
 GROUPS = ("section", "torsion", "shear", "combined", "static", "fatigue", "governing", "accuracy")
