@@ -7,6 +7,9 @@ import meshio
 import numpy as np
 from skfem import Basis, ElementTriP2
 
+from scipy.sparse.linalg import splu
+
+from . import forms
 from .mesh import SectionMesh
 
 
@@ -14,6 +17,14 @@ def nodal_gradient(basis: Basis, u: np.ndarray) -> np.ndarray:
     """∇u projected (L2) onto the P2 space: (2, N) nodal values."""
     g = basis.interpolate(u).grad
     return np.vstack([basis.project(g[0]), basis.project(g[1])])
+
+
+def projector(basis: Basis):
+    """L2 projection onto the space of ``basis`` with one factorisation of the mass matrix: a callable
+    taking values at the quadrature points, shaped (elements, points), and returning nodal values.
+    For several fields on one mesh this is one factorisation instead of one solve setup per field."""
+    lu = splu(forms.mass.assemble(basis).tocsc())
+    return lambda q: lu.solve(forms.projection_load.assemble(basis, f=np.asarray(q)))
 
 
 def write_vtu(path: str | Path, sm: SectionMesh, point_data: dict[str, np.ndarray]) -> Path:

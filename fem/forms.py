@@ -202,3 +202,15 @@ def axisym_elasticity_n1(u, v, w):
     s = (lam * (er + et + ez) * (fr + ft + fz) + 2 * mu * (er * fr + et * ft + ez * fz)
          + mu * (grz * frz + grt * frt + gtz * ftz))
     return math.pi * s * r
+
+
+@BilinearForm
+def mass(u, v, _):
+    """∫ u v dA: the mass matrix of an L2 projection."""
+    return u * v
+
+
+@LinearForm
+def projection_load(v, w):
+    """∫ f v dA for quadrature-point values ``f``: the load of an L2 projection."""
+    return w.f * v

@@ -45,7 +45,7 @@ def test_bad_input_is_refused_in_one_line_and_out_is_untouched(path, tmp_path, r
     out.mkdir()
     (out / "results.json").write_text('{"from": "an earlier run"}\n')
     before = snapshot(out)
-    code, stdout, err = run_cli("run", str(path), "--out", str(out), "--no-vtu")
+    code, stdout, err = run_cli("run", "--no-report", str(path), "--out", str(out), "--no-vtu")
     assert_refused(code, stdout, err, expected_field(path))
     assert snapshot(out) == before
     assert sorted(p.name for p in tmp_path.iterdir()) == ["out"]  # no temporary folder left behind
@@ -69,23 +69,23 @@ shear_modulus = "79 GPa"
 def test_a_fifo_is_refused_without_blocking(tmp_path, run_cli):
     fifo = tmp_path / "case.toml"
     os.mkfifo(fifo)
-    code, out, err = run_cli("run", str(fifo), "--out", str(tmp_path / "o"))
+    code, out, err = run_cli("run", "--no-report", str(fifo), "--out", str(tmp_path / "o"))
     assert_refused(code, out, err, "case file")
     assert "not a regular file" in err
     table = tmp_path / "table.toml"
     os.mkfifo(table)
     case = tmp_path / "c.toml"
     case.write_text(GOOD + "yield = 390\nultimate = 630\n[analysis]\ndesign_factor = 1.5\nmaterials = \"table.toml\"\n")
-    code, out, err = run_cli("run", str(case), "--out", str(tmp_path / "o"))
+    code, out, err = run_cli("run", "--no-report", str(case), "--out", str(tmp_path / "o"))
     assert_refused(code, out, err, "analysis.materials")
     assert not (tmp_path / "o").exists()
 
 
 @pytest.mark.skipif(not os.path.exists("/dev/zero"), reason="needs /dev/zero")
 def test_dev_zero_and_a_folder_are_refused_as_case_files(tmp_path, run_cli):
-    code, out, err = run_cli("run", "/dev/zero", "--out", str(tmp_path / "o"))
+    code, out, err = run_cli("run", "--no-report", "/dev/zero", "--out", str(tmp_path / "o"))
     assert_refused(code, out, err, "case file")
-    code, out, err = run_cli("run", str(tmp_path), "--out", str(tmp_path / "o"))
+    code, out, err = run_cli("run", "--no-report", str(tmp_path), "--out", str(tmp_path / "o"))
     assert_refused(code, out, err, "case file")
     assert "folder" in err
 
@@ -95,7 +95,7 @@ def test_a_file_over_the_size_limit_is_refused_before_parsing(tmp_path, run_cli)
 
     big = tmp_path / "big.toml"
     big.write_text(GOOD + "#" * MAX_FILE_BYTES + "\n")
-    code, out, err = run_cli("run", str(big), "--out", str(tmp_path / "o"))
+    code, out, err = run_cli("run", "--no-report", str(big), "--out", str(tmp_path / "o"))
     assert_refused(code, out, err, "case file")
     assert str(MAX_FILE_BYTES) in err
 
@@ -105,7 +105,7 @@ def test_a_file_over_the_size_limit_is_refused_before_parsing(tmp_path, run_cli)
 def test_fineness_option_is_named(tmp_path, run_cli, value, says):
     case = tmp_path / "c.toml"
     case.write_text(GOOD)
-    code, out, err = run_cli("run", str(case), f"--fineness={value}", "--out", str(tmp_path / "o"))
+    code, out, err = run_cli("run", "--no-report", str(case), f"--fineness={value}", "--out", str(tmp_path / "o"))
     assert_refused(code, out, err, "--fineness")
     assert f'"{value}"' in err and says in err
     assert not (tmp_path / "o").exists()
@@ -128,11 +128,11 @@ shear_modulus = "11.5e6 psi"
 """
     case = tmp_path / "c.toml"
     case.write_text(inch.replace("DEPTH", "0.6"))
-    code, out, err = run_cli("run", str(case), "--out", str(tmp_path / "o"))
+    code, out, err = run_cli("run", "--no-report", str(case), "--out", str(tmp_path / "o"))
     assert_refused(code, out, err, "section.keyways[0].depth")
     assert "depth = 0.6 inch:" in err and "0.5625 inch" in err and "0.0152" not in err
     case.write_text(inch.replace("DEPTH", '"0.6 in"'))
-    code, out, err = run_cli("run", str(case), "--out", str(tmp_path / "o"))
+    code, out, err = run_cli("run", "--no-report", str(case), "--out", str(tmp_path / "o"))
     assert 'depth = "0.6 in":' in err and " m)" not in err
 
 
@@ -150,7 +150,7 @@ def test_control_characters_of_user_text_are_escaped(tmp_path, run_cli):
     case = tmp_path / "c.toml"
     case.write_text(GOOD.replace('units = "mm-N-MPa"', 'units = "mm-N-MPa"\ntitle = "\\u001b[31mred"')
                     .replace("diameter = 25", 'diameter = "25 \\u001b[2J"'))
-    code, out, err = run_cli("run", str(case), "--out", str(tmp_path / "o"))
+    code, out, err = run_cli("run", "--no-report", str(case), "--out", str(tmp_path / "o"))
     assert_refused(code, out, err, "section.diameter")
     assert "\\x1b[2J" in err
 

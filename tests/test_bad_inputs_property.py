@@ -43,7 +43,7 @@ def run_case_bytes(data: bytes, table: bytes | None = None):
         err = io.StringIO()
         with contextlib.redirect_stderr(err), contextlib.redirect_stdout(io.StringIO()):
             try:
-                code = main(["run", str(case), "--out", str(out)])
+                code = main(["run", "--no-report", str(case), "--out", str(out)])
             except Accepted:
                 code = "accepted"
         assert not out.exists()  # refused or stopped before the solve: nothing written

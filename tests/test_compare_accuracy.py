@@ -26,7 +26,7 @@ poisson = 0.3
 def run(tmp_path, run_cli, text, *extra):
     p = tmp_path / "c.toml"
     p.write_text(text)
-    code, out, err = run_cli("run", str(p), "--out", str(tmp_path / "o"), "--no-vtu", *extra)
+    code, out, err = run_cli("run", "--no-report", "--verbose", str(p), "--out", str(tmp_path / "o"), "--no-vtu", *extra)
     res = json.loads((tmp_path / "o" / "results.json").read_text()) if (tmp_path / "o" / "results.json").exists() else None
     return code, out, err, res
 
@@ -210,7 +210,7 @@ def test_two_runs_give_identical_results_apart_from_timings(tmp_path, run_cli, m
         for k in range(2):
             p = tmp_path / f"c{k}.toml"
             p.write_text(KEYED + '[analysis]\naccuracy = "1 %"\n')
-            code, _, err = run_cli("run", str(p), "--out", str(tmp_path / f"o{direct_limit}_{k}"), "--no-vtu")
+            code, _, err = run_cli("run", "--no-report", "--verbose", str(p), "--out", str(tmp_path / f"o{direct_limit}_{k}"), "--no-vtu")
             assert code == 0, err
             r = json.loads((tmp_path / f"o{direct_limit}_{k}" / "results.json").read_text())
             r["case"]["file"] = None

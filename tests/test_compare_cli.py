@@ -55,7 +55,7 @@ def write(tmp_path, name, text):
 
 def test_run_writes_results_in_si(tmp_path, run_cli):
     case = write(tmp_path, "c.toml", MM)
-    code, out, err = run_cli("run", str(case), "--out", str(tmp_path / "o"))
+    code, out, err = run_cli("run", "--no-report", str(case), "--out", str(tmp_path / "o"))
     assert code == 0, err
     res = json.loads((tmp_path / "o" / "results.json").read_text())
     for key in ("area", "centroid", "Ixx", "Iyy", "Ixy"):
@@ -76,7 +76,7 @@ def test_unit_systems_give_the_same_si_results(tmp_path, run_cli):
     res = {}
     for name, text in (("mm", MM), ("inch", INCH)):
         case = write(tmp_path, f"{name}.toml", text)
-        code, _, err = run_cli("run", str(case), "--out", str(tmp_path / name), "--no-vtu", "--quiet")
+        code, _, err = run_cli("run", "--no-report", str(case), "--out", str(tmp_path / name), "--no-vtu", "--quiet")
         assert code == 0, err
         res[name] = json.loads((tmp_path / name / "results.json").read_text())
     for key in ("J", "J_warping", "tau_max", "twist_per_length", "kts"):
@@ -97,7 +97,7 @@ torque = "500 N*m"
 [material]
 shear_modulus = "80 GPa"
 """)
-    code, _, err = run_cli("run", str(case), "--out", str(tmp_path / "o"), "--quiet", "--no-vtu")
+    code, _, err = run_cli("run", "--no-report", str(case), "--out", str(tmp_path / "o"), "--quiet", "--no-vtu")
     assert code == 0, err
     res = json.loads((tmp_path / "o" / "results.json").read_text())
     checks = [p for p in res["compare"] if p["kind"] == "check"]
@@ -116,7 +116,7 @@ shear_modulus = "80 GPa"
 def test_bad_input_exits_2_with_one_line_and_writes_nothing(tmp_path, run_cli, edit, field):
     case = write(tmp_path, "bad.toml", MM.replace(*edit))
     out = tmp_path / "o"
-    code, stdout, err = run_cli("run", str(case), "--out", str(out))
+    code, stdout, err = run_cli("run", "--no-report", str(case), "--out", str(out))
     assert code == 2
     assert err.count("\n") == 1 and field in err
     assert "Traceback" not in err
@@ -136,12 +136,12 @@ torque = 1000
 [material]
 shear_modulus = 80000
 """)
-    code, _, err = run_cli("run", str(case), "--out", str(tmp_path / "o"))
+    code, _, err = run_cli("run", "--no-report", str(case), "--out", str(tmp_path / "o"))
     assert code == 2 and "section.add[0].polygon.points" in err and "intersects itself" in err
 
 
 def test_missing_case_file_and_usage_errors(tmp_path, run_cli):
-    code, _, err = run_cli("run", str(tmp_path / "nope.toml"))
+    code, _, err = run_cli("run", "--no-report", str(tmp_path / "nope.toml"))
     assert code == 2 and "case file" in err
     code, _, err = run_cli("frobnicate")
     assert code == 2 and err.count("\n") == 1
@@ -149,7 +149,7 @@ def test_missing_case_file_and_usage_errors(tmp_path, run_cli):
 
 @pytest.mark.parametrize("name", ["conveyor_gear_seat.toml", "pump_coupling_inch.toml", "custom_slotted_shaft.toml"])
 def test_demo_cases_run(tmp_path, run_cli, name):
-    code, out, err = run_cli("run", str(ROOT / "cases" / name), "--out", str(tmp_path / "o"), "--no-vtu")
+    code, out, err = run_cli("run", "--no-report", str(ROOT / "cases" / name), "--out", str(tmp_path / "o"), "--no-vtu")
     assert code == 0, err
     assert "τmax" in out
 
@@ -159,7 +159,7 @@ def test_sharp_keyway_corners_are_reported_as_singular(tmp_path, run_cli):
     # solution; Timoshenko & Goodier discuss the re-entrant corner in torsion): no Kts is given.
     text = MM.replace("fillet = 0.396875\n", "") + '[analysis]\naccuracy = "1 %"\n'
     case = write(tmp_path, "sharp.toml", text)
-    code, out, err = run_cli("run", str(case), "--out", str(tmp_path / "o"), "--no-vtu")
+    code, out, err = run_cli("run", "--no-report", str(case), "--out", str(tmp_path / "o"), "--no-vtu")
     assert code == 4, err  # no verdict: README, exit codes
     res = json.loads((tmp_path / "o" / "results.json").read_text())
     assert len(res["torsion"]["singular_corners"]) == 2

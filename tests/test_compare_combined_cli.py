@@ -17,7 +17,7 @@ POINT_KEYS = {"at", "sigma", "tau", "sigma1", "sigma2", "sigma3", "tau_max", "vo
 
 
 def run(tmp_path, run_cli, case, name="o"):
-    code, out, err = run_cli("run", str(case), "--out", str(tmp_path / name), "--no-vtu")
+    code, out, err = run_cli("run", "--no-report", "--verbose", str(case), "--out", str(tmp_path / name), "--no-vtu")
     res = json.loads((tmp_path / name / "results.json").read_text()) if code == 0 else None
     return code, out, err, res
 
@@ -95,7 +95,7 @@ def test_results_do_not_depend_on_the_unit_system(tmp_path, run_cli):
 def test_bad_input_is_one_line_naming_the_field(tmp_path, run_cli, edit, field):
     p = tmp_path / "bad.toml"
     p.write_text(MM.replace(*edit))
-    code, _, err = run_cli("run", str(p), "--out", str(tmp_path / "o"))
+    code, _, err = run_cli("run", "--no-report", "--verbose", str(p), "--out", str(tmp_path / "o"))
     assert code == 2 and field in err and err.count("\n") == 1 and "Traceback" not in err
 
 

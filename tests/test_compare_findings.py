@@ -37,7 +37,7 @@ materials = "{materials}"
 def _run(run_cli, tmp_path, text, name="case"):
     p = tmp_path / f"{name}.toml"
     p.write_text(text)
-    code, out, err = run_cli("run", str(p), "--out", str(tmp_path / name), "--no-vtu")
+    code, out, err = run_cli("run", "--no-report", "--verbose", str(p), "--out", str(tmp_path / name), "--no-vtu")
     res = json.loads((tmp_path / name / "results.json").read_text())
     return code, out, err, res
 

@@ -67,7 +67,7 @@ def test_a_signal_ends_the_run_with_one_line_and_leaves_nothing_behind(tmp_path,
         case = tmp_path / "quick.toml"
         case.write_text(QUICK)
     env = {**os.environ, "PYTHONPATH": str(ROOT), cmd_run.PAUSE_ENV: "60"}
-    proc = subprocess.Popen([sys.executable, "-m", "compare.cli", "run", str(case), "--out", str(out)],
+    proc = subprocess.Popen([sys.executable, "-m", "compare.cli", "run", "--no-report", str(case), "--out", str(out)],
                             cwd=tmp_path, env=env, stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True)
     if moment == "solve":
         _wait_for(lambda: _gmsh_loaded(proc.pid), proc, "meshing started")

@@ -71,7 +71,7 @@ def test_a_keyed_section_in_mm_and_in_inches_gives_bit_identical_results(tmp_pat
     res = {}
     for name, text in (("mm", KEYED_MM), ("inch", KEYED_IN)):
         (tmp_path / f"{name}.toml").write_text(text)
-        code, _, err = run_cli("run", str(tmp_path / f"{name}.toml"), "--out", str(tmp_path / name), "--no-vtu", "--quiet")
+        code, _, err = run_cli("run", "--no-report", str(tmp_path / f"{name}.toml"), "--out", str(tmp_path / name), "--no-vtu", "--quiet")
         assert code == 0, err
         res[name] = json.loads((tmp_path / name / "results.json").read_text())
     mm, inch = res["mm"], res["inch"]

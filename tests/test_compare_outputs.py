@@ -200,7 +200,7 @@ def test_run_checks_out_before_the_analysis(tmp_path, run_cli, monkeypatch):
     out = tmp_path / "o"
     out.mkdir()
     (out / "results.json").mkdir()
-    code, stdout, err = run_cli("run", str(case), "--out", str(out))
+    code, stdout, err = run_cli("run", "--no-report", str(case), "--out", str(out))
     assert code == 2 and stdout == ""
     assert err.count("\n") == 1 and err.startswith("shaftcheck: error: --out = ") and "results.json" in err
     assert sorted(os.listdir(out)) == ["results.json"] and os.listdir(out / "results.json") == []
@@ -211,7 +211,7 @@ def test_run_replaces_a_stale_mesh_from_another_case(tmp_path, run_cli):
     old_output(out)
     case = tmp_path / "c.toml"
     case.write_text(ROUND.format(title="new case", d=40))
-    code, _, err = run_cli("run", str(case), "--out", str(out), "--no-vtu", "--quiet")
+    code, _, err = run_cli("run", "--no-report", str(case), "--out", str(out), "--no-vtu", "--quiet")
     assert code == 0, err
     assert sorted(os.listdir(out)) == ["results.json"]
     assert json.loads((out / "results.json").read_text())["case"]["title"] == "new case"
@@ -226,7 +226,7 @@ def test_two_processes_writing_to_one_folder_leave_one_complete_consistent_outpu
     for title, d in (("first", 40), ("second", 25)):
         case = tmp_path / f"{title}.toml"
         case.write_text(ROUND.format(title=title, d=d))
-        procs.append(subprocess.Popen([sys.executable, "-m", "compare.cli", "run", str(case), "--out", str(out), "--quiet"],
+        procs.append(subprocess.Popen([sys.executable, "-m", "compare.cli", "run", "--no-report", str(case), "--out", str(out), "--quiet"],
                                       cwd=tmp_path, env=env, stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True))
     for p in procs:
         _, err = p.communicate(timeout=300)

@@ -22,7 +22,7 @@ poisson = 0.3
 def run(tmp_path, run_cli, text, name="c"):
     p = tmp_path / f"{name}.toml"
     p.write_text(text)
-    code, out, err = run_cli("run", str(p), "--out", str(tmp_path / name), "--no-vtu")
+    code, out, err = run_cli("run", "--no-report", "--verbose", str(p), "--out", str(tmp_path / name), "--no-vtu")
     res = json.loads((tmp_path / name / "results.json").read_text()) if code == 0 else None
     return code, out, err, res
 

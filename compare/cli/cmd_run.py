@@ -19,7 +19,8 @@ except ImportError:  # not POSIX: outputs are moved in without a lock (see _lock
 
 from ..case.case import load_case
 from ..checks.materials import read_table, table_path
-from ..output.report import summary
+from ..output.design_report import report_files
+from ..output.screen import print_summary, progress_bar
 from ..output.results import build_results
 from ..output.figure_shaft import shaft_figure_svg
 from ..output.results_shaft import shaft_summary
@@ -35,7 +36,10 @@ def register(sub) -> None:
     p.add_argument("--out", default=None, help="output folder for results.json and section.vtu (default: out/<case name>)")
     p.add_argument("--fineness", default=None, help="override analysis.fineness (mesh density)")
     p.add_argument("--no-vtu", action="store_true", help="do not write the VTU file")
-    p.add_argument("--quiet", action="store_true", help="print nothing on success")
+    p.add_argument("--quiet", action="store_true", help="print nothing on success (and no progress bar)")
+    p.add_argument("--no-report", action="store_true",
+                   help="do not write report.html, results.csv and figures/")
+    p.add_argument("--verbose", action="store_true", help="print every detail instead of the one-screen summary")
     p.set_defaults(func=run)
 
 
@@ -48,15 +52,25 @@ def run(args) -> int:
         read_table(table_path(case))
     out = Path(args.out) if args.out else Path("out") / Path(args.case).stem
     check_out(out)  # before the work, not after it
-    a = analyse(case, fineness=fineness)
+    with progress_bar(quiet=args.quiet):
+        a = analyse(case, fineness=fineness)
     res = build_results(a)
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
     if res.get("shaft"):  # the layout's diagrams and deflected shape
         files["shaft.svg"] = shaft_figure_svg(res, case.units)
+    if not args.no_report:
+        files.update(report_files(a, res))
     write_outputs(out, files, None if args.no_vtu else a)
     if not args.quiet:
-        print("\n".join(x for x in (shaft_summary(res, case.units), summary(res, case.units)) if x))
-        print(f"\nwritten: {out / 'results.json'}" + ("" if args.no_vtu else f", {out / 'section.vtu'}"))
+        written = [out / "results.json"] + ([] if args.no_vtu else [out / "section.vtu"])
+        if "shaft.svg" in files:
+            written.append(out / "shaft.svg")
+        if not args.no_report:
+            written += [out / "report.html", out / "results.csv", out / "figures"]
+        block = shaft_summary(res, case.units)
+        if block:
+            print(block + "\n")
+        print_summary(res, case.units, written, verbose=args.verbose)
     return res.get("exit_code", 0)
 
 
@@ -76,8 +90,10 @@ def option_number(name: str, text: str | None) -> float | None:
 
 # The names shaftcheck writes into an output folder. A folder holding only these (as plain files) is
 # taken to be an earlier output and is replaced as a whole; anything else in it stops the run (exit 2).
-OUTPUT_NAMES = frozenset({"results.json", "section.vtu", "verify.json", "shaft.svg",
+OUTPUT_NAMES = frozenset({"results.json", "section.vtu", "verify.json", "report.html", "results.csv", "shaft.svg",
                           "sweep.csv", "sweep.parquet", "sweep.png", "sweep.svg", "sweep.html"})
+# the one sub-folder shaftcheck writes, and what it may hold
+FIGURES, FIGURE_SUFFIXES = "figures", (".png", ".svg")
 
 # Test-only hook: seconds to pause after the results are written to the temporary folder and before
 # they are moved into place, so a test can send a signal or start a second run at that moment.
@@ -156,6 +172,9 @@ def _check_only_ours(folder: Path, bad) -> None:
     except OSError as exc:
         raise bad(f"cannot be read ({exc.strerror})") from None
     for e in entries:
+        if e.name == FIGURES and e.is_dir(follow_symlinks=False):
+            _check_figures(Path(e.path), bad)
+            continue
         if e.name not in OUTPUT_NAMES:
             raise bad(f"holds {e.name!r}, which shaftcheck did not write; an existing output folder is "
                       "replaced as a whole, so give a new or empty folder")
@@ -163,7 +182,18 @@ def _check_only_ours(folder: Path, bad) -> None:
             raise bad(f"holds {e.name!r}, which is not a plain file; remove it or give a new folder")
 
 
-def write_outputs(out: Path, files: dict[str, str], analysis=None) -> None:
+def _check_figures(folder: Path, bad) -> None:
+    try:
+        entries = sorted(os.scandir(folder), key=lambda e: e.name)
+    except OSError as exc:
+        raise bad(f"cannot be read ({exc.strerror})") from None
+    for e in entries:
+        if not e.name.endswith(FIGURE_SUFFIXES) or not e.is_file(follow_symlinks=False):
+            raise bad(f"holds {FIGURES}/{e.name!r}, which shaftcheck did not write; an existing output folder is "
+                      "replaced as a whole, so give a new or empty folder")
+
+
+def write_outputs(out: Path, files: dict[str, str | bytes], analysis=None) -> None:
     """Write ``files`` (and ``section.vtu`` from ``analysis``) as the whole content of the folder ``out``.
 
     Everything is written into a hidden temporary folder beside ``out`` first, then moved into place
@@ -192,11 +222,13 @@ def write_outputs(out: Path, files: dict[str, str], analysis=None) -> None:
         with held():
             made = _make_folders(parent)
             tmp = _fresh_folder(parent, ".shaftcheck-")
-        for name, text in files.items():
-            if isinstance(text, bytes):  # figures, parquet
-                (tmp / name).write_bytes(text)
+        for name, content in files.items():  # names may hold one sub-folder (figures/...)
+            path = tmp / name
+            path.parent.mkdir(exist_ok=True)
+            if isinstance(content, bytes):
+                path.write_bytes(content)
             else:
-                (tmp / name).write_text(text, encoding="utf-8")
+                path.write_text(content, encoding="utf-8")
         if analysis is not None:
             write_fields_vtu(tmp / "section.vtu", analysis)
         pause = os.environ.get(PAUSE_ENV)

@@ -11,6 +11,7 @@ from .report_combined import governing_text
 from .results_features import add_feature_results
 from .results_shaft import add_shaft_results
 from .section_geometry import geometry_record
+from .trace import input_hashes
 
 SCHEMA_VERSION = 1
 
@@ -57,6 +58,7 @@ def build_results(a: Analysis) -> dict:
         "tool": {"name": "shaftcheck", "version": __version__},
         "case": {"title": case.title, "units": case.units.name if case.units else None,
                  "file": str(case.path) if case.path else None},
+        "inputs": input_hashes(case),
         "caution": CAUTION,
         "section": {
             "kind": case.section.kind,

@@ -33,6 +33,7 @@ from fem.shear import shear_peak, solve_shear
 from fem.torsion import SINGULAR_RADIUS, add_warping, solve_torsion
 
 from ..case.case import FINENESS_RANGE, check_fineness  # noqa: F401  (re-exported for callers)
+from .progress import tick
 
 RATIO = 1.4  # refinement ratio between the meshes of the study (Celik et al. advise r > 1.3)
 SAFETY = 0.5  # the adaptive start aims the recovery indicator at this fraction of the target
@@ -63,6 +64,7 @@ class Solution:
 def solve_on(case, fineness: float, size_field=None, warping: bool = False) -> Solution:
     """Mesh and solve; the warping check is left out unless asked (the final mesh adds it)."""
     t0 = time.perf_counter()
+    tick("mesh and solve")
     sm = mesh_section(case.section, MeshOptions(fineness=fineness), size_field)
     pr = area_moments(sm)
     tr = solve_torsion(sm, pr.centroid, warping=warping)

@@ -1,0 +1,107 @@
+"""The headline table: one row per result a designer files (quantity, value, unit, hand value,
+ratio, source, estimated error), in the case's units. ``results.csv`` and the terminal summary's
+table are both written from these rows, so they cannot disagree."""
+from __future__ import annotations
+
+import csv
+import io
+
+from ..case.units import from_si
+from .report import ROUND_OFF, Fmt
+from .report_combined import LABELS
+
+#: convergence key of each results entry whose error the study estimates
+_ERROR_OF = {"torsion.J": "J", "torsion.tau_max": "tau_max", "shear.kappa_x": "kappa_x", "shear.kappa_y": "kappa_y",
+             "shear.centre[0]": "shear_centre_x", "shear.centre[1]": "shear_centre_y"}
+
+COLUMNS = ("group", "quantity", "value", "unit", "hand_value", "ratio", "source", "estimated_error", "results_json_key")
+
+
+def _get(res: dict, key: str):
+    v = res
+    for part in key.replace("]", "").replace("[", ".").split("."):
+        if v is None:
+            return None
+        v = v[int(part)] if part.isdigit() else v.get(part)
+    return v
+
+
+def headline_rows(res: dict, system) -> list[dict]:
+    """The rows; ``value`` and ``hand_value`` are numbers in the case's units (None where absent),
+    ``estimated_error`` the study's relative error estimate (GCI) where it has one."""
+    f = Fmt(system)
+    rows: list[dict] = []
+    # with a sharp re-entrant corner the stress is unbounded: the peaks and factors below are for the
+    # rest of the section only, and every such row says so
+    nv = bool((res.get("governing") or {}).get("no_verdict") or res["torsion"].get("singular_corners"))
+    size = res["section"]["area"] ** 0.5
+    conv = res.get("convergence", {})
+
+    def add(group, quantity, key, dim, hand=None, source="", scale=None):
+        v = _get(res, key)
+        if v is None:
+            return
+        if scale is not None and abs(v) < ROUND_OFF * abs(scale):
+            v = 0.0  # round-off of a symmetric section, not a result
+        ck = _ERROR_OF.get(key)
+        err = (conv.get(ck) or {}).get("gci") if ck else None
+        if nv and group in ("combined", "static", "fatigue") or nv and key.endswith("tau_max"):
+            quantity += " [not at the sharp corners: NO VERDICT]"
+        unit = "" if dim == "dimensionless" else f.s.label(dim)
+        hv = None if hand is None else from_si(hand, dim, f.s)
+        ratio = None if hand in (None, 0) else v / hand
+        rows.append({"group": group, "quantity": quantity, "value": from_si(v, dim, f.s), "unit": unit,
+                     "hand_value": hv, "ratio": ratio, "source": source, "estimated_error": err,
+                     "results_json_key": key})
+
+    s = res["section"]
+    add("section", "area A", "section.area", "area")
+    add("section", "Ixx", "section.Ixx", "second_moment")
+    add("section", "Iyy", "section.Iyy", "second_moment")
+    add("section", "Ixy", "section.Ixy", "second_moment", scale=max(s["Ixx"], s["Iyy"]))
+    pairs = {p["quantity"]: p for p in res.get("compare", [])}
+    jp = next((p for q, p in pairs.items() if q.startswith("J") and p.get("classic") is not None), None)
+    add("torsion", "torsion constant J", "torsion.J", "second_moment", jp and jp["classic"], jp["source"] if jp else "")
+    t = res["torsion"]
+    nom = t.get("kts_nominal") or {}
+    add("torsion", "torsion τmax", "torsion.tau_max", "stress", nom.get("tau_nominal") if t.get("kts") is not None else None,
+        f"nominal {nom.get('formula', '')}: {nom.get('source', '')}" if t.get("kts") is not None else "")
+    add("torsion", "Kts (τmax / nominal)", "torsion.kts", "dimensionless")
+    if "centre" in res.get("shear", {}):
+        add("shear", "shear centre x", "shear.centre[0]", "length", scale=size)
+        add("shear", "shear centre y", "shear.centre[1]", "length", scale=size)
+        add("shear", "κx (energy)", "shear.kappa_x", "dimensionless")
+        add("shear", "κy (energy)", "shear.kappa_y", "dimensionless")
+        add("shear", "shear τmax", "shear.tau_max", "stress")
+    add("combined", "von Mises max (worst instant)", "combined.von_mises_max", "stress")
+    add("combined", "σ1 max", "combined.sigma1_max", "stress")
+    st = res.get("static", {})
+    for k in st.get("criteria", []):
+        add("static", f"n, {LABELS.get(k, k)} (FE)", f"static.{k}", "dimensionless", source=st["sources"].get(k, ""))
+    ft = res.get("fatigue", {})
+    hand = ft.get("hand", {})
+    for k in ft.get("criteria", []):
+        hv = hand.get(k)
+        add("fatigue", f"n, {LABELS.get(k, k)} (FE; hand beside)", f"fatigue.{k}", "dimensionless", hv,
+            ft.get("sources", {}).get(k, ""))
+    g = res.get("governing")
+    if g and not g.get("no_verdict"):
+        add("governing", f"lowest n ({LABELS.get(g['criterion'], g['criterion'])}, {g['path']} path)",
+            "governing.factor", "dimensionless")
+    acc = res.get("accuracy")
+    if acc and acc.get("achieved") is not None:
+        rows.append({"group": "accuracy", "quantity": "largest estimated error (GCI)", "value": acc["achieved"],
+                     "unit": "1", "hand_value": None, "ratio": None, "source": "three-mesh study",
+                     "estimated_error": None, "results_json_key": "accuracy.achieved"})
+    return rows
+
+
+def csv_text(rows: list[dict]) -> str:
+    """``results.csv``: the rows with a header line; numbers written in full (repr), empty where absent."""
+    buf = io.StringIO()
+    w = csv.writer(buf, lineterminator="\n")
+    w.writerow(COLUMNS)
+    for r in rows:
+        w.writerow(["" if r[c] is None else (repr(float(r[c])) if isinstance(r[c], (int, float)) else r[c])
+                    for c in COLUMNS])
+    return buf.getvalue()
