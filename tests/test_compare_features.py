@@ -107,3 +107,41 @@ def test_sharp_shoulder_gets_a_warning_and_no_factor(coarse):
     res = build_results(a)
     w = [x for x in res["warnings"] if x["code"] == "feature_sharp_shoulder"]
     assert len(w) == 1 and "unbounded" in w[0]["text"] and "shaft.segments[1].fillet" in w[0]["text"]
+
+
+MATERIAL = {"elastic_modulus": "205 GPa", "poisson": 0.3, "yield": 540, "ultimate": 760, "surface": "machined"}
+
+
+def loaded_case(segments, sections, **extra):
+    d = {"length": 400, "rotating": True, "supports": [{"at": 0}, {"at": 400}], "segments": segments,
+         "loads": [{"at": 100, "force": [0, -2000], "torque": 100}, {"at": 300, "torque": -100}],
+         "sections": sections}
+    d.update(extra)
+    return parse_case({"case": {"units": "mm-N-MPa"}, "material": MATERIAL, "analysis": {"design_factor": 1.5},
+                       "shaft": d})
+
+
+def test_station_at_a_sharp_shoulder_has_no_verdict(coarse):
+    # A sharp re-entrant corner has an unbounded elastic stress (Williams, J. Appl. Mech. 19, 1952:
+    # the corner singularity of a re-entrant wedge): no factor of safety at that station, none for
+    # the shaft, exit code 4, and the warning first.
+    c = loaded_case([{"from": 0, "to": 200, "diameter": 30}, {"from": 200, "to": 400, "diameter": 36}],
+                    [{"at": 100, "name": "plain"}, {"at": 200, "name": "sharp"}])
+    a = analyse(c, study=False)
+    plain, sharp = a.extra["shaft_stations"]
+    assert plain.extra["governing"]["factor"] > 0 and not plain.extra.get("exit_code")
+    gov = sharp.extra["governing"]
+    assert gov["factor"] is None and gov["no_verdict"] and "shoulder" in gov["reason"]
+    assert gov["away_from_corners"]["factor"] > 0  # the plain section's value, kept and marked
+    assert all(v is None for v in sharp.extra["static"]["meets_design_factor"].values())
+    res = build_results(a)
+    assert res["exit_code"] == 4  # compare.checks.findings.EXIT_NO_VERDICT
+    assert res["shaft"]["governing_station"] == 1
+    assert res["governing"]["factor"] is None and res["governing"]["no_verdict"]
+    assert res["warnings"][0]["code"] == "station_sharp_no_verdict"
+    assert "unbounded" in res["warnings"][0]["text"] and "shaft.segments[1].fillet" in res["warnings"][0]["text"]
+    st = res["section_loads"][1]["results"]
+    codes = [w["code"] for w in st["warnings"]]
+    assert set(codes[:2]) == {"feature_sharp_shoulder", "feature_station_sharp_no_verdict"} and st["exit_code"] == 4
+    text = summary(res, c.units)
+    assert "no verdict" in text.lower()

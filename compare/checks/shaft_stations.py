@@ -19,6 +19,7 @@ from fem.geometry import round_section
 from ..case.case import Case, Fatigue, Loads, parse_feature_lengths
 from ..case.shaft import Segment, Shaft, Station
 from ..case.units import from_si
+from .findings import EXIT_NO_VERDICT, withdraw_verdicts
 from .shaft_beam import SIDE, loads_at, solve_layout
 
 #: Relative change of a station's loads between the round-bar beam and the beam with the stations'
@@ -97,7 +98,43 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
            "section_kind": section.kind, "kt_from": kt_from}
     if features and not {"kt_bending", "kts_torsion"} & set(kt_from):
         rec["warning"] = "kt_missing"
+    sharp = sharp_features(shaft, segs, st.at)
+    if sharp:
+        rec["sharp"] = sharp
     return sc, rec
+
+
+#: A station is at a sharp shoulder or groove bottom when it lies within this fraction of the shaft's
+#: length of the corner (the tolerance of the layout's own positions, case/shaft.py GAP_TOL).
+SHARP_REACH = 1e-9
+
+
+def sharp_features(shaft: Shaft, segs, at: float) -> list[dict]:
+    """The sharp re-entrant corners at ``at``: a shoulder without a fillet, a groove with a zero bottom
+    radius. The elastic stress there is unbounded, so the station can have no verdict."""
+    tol = SHARP_REACH * shaft.length
+    out = []
+    for i in range(1, len(segs)):
+        a, b = segs[i - 1], segs[i]
+        if a.diameter != b.diameter and not b.fillet and abs(b.start - at) <= tol:
+            out.append({"kind": "shoulder", "field": f"shaft.segments[{i}].fillet", "at": b.start})
+    for j, g in enumerate(shaft.grooves):
+        if not g.radius and abs(g.at - at) <= g.width / 2 + tol:
+            out.append({"kind": "groove", "field": f"shaft.grooves[{j}].radius", "at": g.at})
+    return out
+
+
+def no_verdict_at_sharp(rec: dict, a) -> None:
+    """A station at a sharp shoulder or groove bottom: its verdicts withdrawn (the values of the plain
+    section kept, marked), a warning first, exit code :data:`EXIT_NO_VERDICT`."""
+    sharp = rec.get("sharp")
+    if not sharp:
+        return
+    kinds = " and ".join(sorted({s["kind"] for s in sharp}))
+    withdraw_verdicts(a, reason=f"sharp {kinds} corner (no fillet radius)")
+    w = {"code": "feature_station_sharp_no_verdict", "at": rec["at"], "name": rec.get("name", ""), "corners": sharp}
+    a.extra["warnings"] = [w] + list(a.extra.get("warnings") or [])
+    a.extra["exit_code"] = max(EXIT_NO_VERDICT, a.extra.get("exit_code") or 0)
 
 
 def layout_step(case: Case, analyse):
@@ -134,12 +171,15 @@ def layout_step(case: Case, analyse):
     layout["fe_sections"] = [{"from": o[0], "to": o[1], "Ixx": o[2], "Iyy": o[3], "area": o[4], "kappa": o[5]}
                              for o in overrides]
     for rec, a in zip(stations, analyses):
+        no_verdict_at_sharp(rec, a)
         gov = a.extra.get("governing") or {}
         rec["governing"] = gov or None
         rec["exit_code"] = a.extra.get("exit_code")
     factors = [((rec["governing"] or {}).get("factor"), i) for i, rec in enumerate(stations)]
     known = [(n, i) for n, i in factors if n is not None and math.isfinite(n)]
     g = min(known)[1] if known else 0
+    # a station without a verdict (an unbounded stress) governs: no other station's factor is the shaft's
+    g = next((i for i, rec in enumerate(stations) if (rec["governing"] or {}).get("no_verdict")), g)
     a = analyses[g]
     layout["governing_station"] = g
     worst = max((rec["exit_code"] or 0 for rec in stations), default=0)

@@ -62,6 +62,13 @@ def feature_warning_text(w: dict, f) -> str | None:
     if code == "feature_neighbours":
         return (f"FEATURES INTERACT: {w['field']} has {', '.join(w['neighbours'])} within {f.q(w['length'], 'length', 3)}; "
                 "each is modelled alone on a plain shaft, so their factors ignore each other.")
+    if code == "feature_station_sharp_no_verdict":
+        who = w.get("name") or f.q(w["at"], "length", 5)
+        fields = ", ".join(c["field"] for c in w["corners"])
+        return (f"NO VERDICT AT STATION {who}: it sits at a sharp corner ({fields} not given). The elastic stress in a "
+                "sharp re-entrant corner is unbounded, so this station has no peak stress and no factor of safety, "
+                "and no material can be said to meet the design factor; the factors shown for it are the plain "
+                "section's, away from the corner. Give the real fillet radius.")
     if code == "feature_station_fe_path":
         who = w.get("name") or f.q(w["at"], "length", 5)
         return (f"STATION ON A SHOULDER OR GROOVE ({who}): its hand path uses the FE Kt and Kts of the feature with the notch "

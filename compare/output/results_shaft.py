@@ -63,8 +63,15 @@ def add_shaft_results(out: dict, a, build_results) -> None:
 def shaft_warnings(lay: dict, stations: list) -> list[dict]:
     """Records with a sentence each (SI numbers in the data; the terminal writes its own units)."""
     out = []
+    for st in stations:  # first: stations at a sharp corner, which can have no verdict at all
+        for c in st.get("sharp") or []:
+            out.append({"code": "station_sharp_no_verdict", "at": st["at"], "name": st["name"], "corner": c,
+                        "text": f"NO VERDICT at station {st['name'] or st['at']}: it sits at a sharp {c['kind']} "
+                                f"corner ({c['field']} not given). The elastic stress there is unbounded, so no Kt, no "
+                                "local stress and no factor of safety can be given for it, and none is given for the "
+                                "whole shaft; give the real fillet radius."})
     for st in stations:
-        if st.get("warning") == "kt_missing":
+        if st.get("warning") == "kt_missing" and not st.get("sharp"):
             out.append({"code": "station_kt_missing", "at": st["at"], "name": st["name"], "features": st["features"],
                         "text": f"station {st['name'] or st['at']}: at a {' and '.join(st['features'])}, which a 2-D "
                                 "section cannot see; its fatigue check leaves the stress concentration out (give "
