@@ -86,6 +86,7 @@ def test_station_on_a_shoulder_uses_the_fe_factors(coarse):
     hand = a.extra["shaft_stations"][0].extra["fatigue"]["hand"]
     assert hand["Kt"] == rec["kt_bending"] and hand["Kts"] == rec["kts"]
     assert hand["notch_radius"] == pytest.approx(0.003) and 0 < hand["q"] < 1
+    assert "fillet radius of the feature (shaft.segments[1].fillet)" in hand["notch_radius_source"]
     assert hand["Kf"] == pytest.approx(1 + hand["q"] * (rec["kt_bending"] - 1))  # Shigley 9th ed., eq. 6-32
     pairs = [p for p in a.pairs if "shaft.segments[1].fillet" in p.quantity]
     assert len(pairs) == 3 and all(p.ratio == pytest.approx(p.fe / p.classic) for p in pairs)

@@ -83,8 +83,11 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
             kt_from[key] = "case"
     if "notch_radius" in st.fatigue:
         fat.notch_radius = st.fatigue["notch_radius"]
+        fat.notch_radius_source = None
     elif "notch_radius" in st.kt and "feature" in kt_from.values():  # the fillet / groove radius
         fat.notch_radius = st.kt["notch_radius"][0]
+        src = st.kt["notch_radius"][1]
+        fat.notch_radius_source = f"the {'groove bottom' if 'grooves' in src else 'fillet'} radius of the feature ({src})"
     lo = Loads(torque=loads["T"], bending=(loads["Mx"], loads["My"]), shear=(loads["Vx"], loads["Vy"]),
                axial=loads["N"], rotating=shaft.rotating)
     where = (f"{from_si(st.at, 'length', case.units):.6g} {case.units.label('length')}" if case.units
