@@ -6,8 +6,9 @@
 - the model's far-field check failed (the feature's disturbance reached the plain shaft);
 - a factor without an error estimate;
 - features closer together than the plain length each model assumes (they interact; modelled alone);
-- a station on a feature: its hand path carries the FE Kt, Kts, but its FE path is the plain round
-  section's local stresses, which do not see the shoulder or groove (not yet scaled by the FE factors).
+- a station on a feature whose FE path could not be taken from the feature's local stresses: its hand
+  path carries the FE Kt, Kts, but its FE path is the plain round section's, which does not see the
+  shoulder or groove (a station on a solved feature takes the fillet's local stresses: checks/feature_local.py).
 """
 from __future__ import annotations
 
@@ -33,6 +34,6 @@ def feature_findings(a) -> list[dict]:
                 out.append({"code": "feature_neighbours", "field": rec["field"], "neighbours": note["neighbours"],
                             "length": note["modelled_alone_over"]})
     for st in (a.extra.get("shaft") or {}).get("stations") or []:
-        if "feature" in (st.get("kt_from") or {}).values():
+        if "feature" in (st.get("kt_from") or {}).values() and st.get("fe_path") != "feature":
             out.append({"code": "feature_station_fe_path", "at": st["at"], "name": st.get("name", "")})
     return out

@@ -8,6 +8,9 @@ station's own ``fatigue`` table in the case file, from ``Station.kt`` (filled by
 computes shoulder and groove factors, {"kt_bending": (value, source), "kts_torsion": (value, source)}),
 and from the case's [fatigue] table. A station at a shoulder or groove with none of these gets a
 warning: a 2-D section cannot see a shoulder or a groove, so its fatigue check leaves that factor out.
+A station on a solved feature takes its FE path (static and fatigue) from the feature's local stresses
+at the fillet (:mod:`.feature_local`), not from the plain round section. A station at a sharp shoulder
+or groove bottom (no radius) has no verdict (:func:`no_verdict_at_sharp`), and then neither has the shaft.
 """
 from __future__ import annotations
 
@@ -19,6 +22,7 @@ from fem.geometry import round_section
 from ..case.case import Case, Fatigue, Loads, parse_feature_lengths
 from ..case.shaft import Segment, Shaft, Station
 from ..case.units import from_si
+from .feature_local import fillet_fe_path
 from .findings import EXIT_NO_VERDICT, withdraw_verdicts
 from .shaft_beam import SIDE, loads_at, solve_layout
 
@@ -173,7 +177,10 @@ def layout_step(case: Case, analyse):
         layout = layout2
     layout["fe_sections"] = [{"from": o[0], "to": o[1], "Ixx": o[2], "Iyy": o[3], "area": o[4], "kappa": o[5]}
                              for o in overrides]
-    for rec, a in zip(stations, analyses):
+    for st, rec, a in zip(shaft.stations, stations, analyses):
+        if "fillet_stresses" in st.kt and not rec.get("sharp"):  # the FE path from the feature's local stresses
+            fillet_fe_path(a, st.kt["fillet_stresses"][0], keep_section_min=st.section is not None)
+            rec["fe_path"] = "feature"
         no_verdict_at_sharp(rec, a)
         gov = a.extra.get("governing") or {}
         rec["governing"] = gov or None
