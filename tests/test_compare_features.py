@@ -200,3 +200,20 @@ def test_station_fe_path_in_pure_torsion_is_kts_times_nominal(coarse):
     result = {"fem": st["von_mises"], "exact": 540e6 / (3**0.5 * tau)}
     assert result["fem"] == pytest.approx(result["exact"], rel=1e-9)
     assert st["tresca"] == pytest.approx(540e6 / (2 * tau), rel=1e-9)  # Tresca: s1 − s3 = 2τ in pure shear
+
+
+def test_station_in_a_groove_is_checked_on_the_groove_bottom(coarse):
+    # the groove's Kt are on the nominals of the groove-bottom diameter d = D − 2·depth (Roark 7th ed.,
+    # Table 17.1, U-groove cases); the station's plain section and its hand path use that same d
+    segs = [{"from": 0, "to": 400, "diameter": 36}]
+    c = loaded_case(segs, [{"at": 200, "name": "groove"}],
+                    grooves=[{"at": 200, "width": 4, "depth": 3, "radius": 2}])
+    a = analyse(c, study=False)
+    rec, = a.extra["shaft"]["features"]
+    sa_ = a.extra["shaft_stations"][0]
+    assert a.extra["shaft"]["stations"][0]["diameter"] == pytest.approx(0.030)
+    assert sa_.case.section.diameter == pytest.approx(0.030) and rec["d"] == pytest.approx(0.030)
+    hand = sa_.extra["fatigue"]["hand"]
+    assert hand["d"] == pytest.approx(0.030) and hand["Kt"] == rec["kt_bending"]
+    assert "groove bottom radius of the feature (shaft.grooves[0])" in hand["notch_radius_source"]
+    assert "meridian-section FE" in sa_.extra["fatigue"]["path"]

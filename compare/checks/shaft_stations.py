@@ -71,6 +71,9 @@ def station_loads(layout: dict, st: Station, d: float) -> dict:
 def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tuple[Case, dict]:
     """The ordinary section case of one station with its loads, and a record of what it is made of."""
     d, bore, step = station_diameter(shaft, segs, st.at)
+    near = [g for g in shaft.grooves if abs(g.at - st.at) <= g.width / 2 + 1e-12]
+    if near:  # in a groove the plain section is the groove bottom's (the diameter of the groove's Kt nominals)
+        d = min(d, min(d - 2 * g.depth for g in near))
     section = st.section if st.section is not None else round_section(d, bore)
     fat = replace(case.fatigue) if case.fatigue else Fatigue()
     kt_from = {}
@@ -99,7 +102,6 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
     title = f"{case.title} — station at z = {where}" + (f" ({st.name})" if st.name else "")
     sc = Case(title, case.units, section, lo, case.material, case.analysis, path=case.path, fatigue=fat,
               feature_lengths=parse_feature_lengths(st.raw.get("section", {}), case.units) if st.section else [])
-    near = [g for g in shaft.grooves if abs(g.at - st.at) <= g.width / 2 + 1e-12]
     features = (["shoulder"] if step else []) + (["groove"] * bool(near))
     rec = {"at": st.at, "name": st.name, "diameter": d, "bore": bore, "features": features,
            "section_kind": section.kind, "kt_from": kt_from}
