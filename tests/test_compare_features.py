@@ -1,5 +1,7 @@
 """Shoulders and grooves of [shaft]: features found along the shaft, the FE factors beside the
 Table 17.1 fits, handed to the stations on them, written to results and the summary."""
+import json
+
 import pytest
 
 from compare.case.case import parse_case
@@ -9,6 +11,7 @@ from compare.pairs.feature_step import chart_value
 from compare.pipeline import analyse
 from compare.solve import features
 from compare.solve.features import Feature, shaft_features
+from fem.errors import InputError
 
 BASE = {"case": {"units": "mm-N-MPa"}, "material": {"elastic_modulus": "205 GPa", "poisson": 0.3}}
 
@@ -217,3 +220,29 @@ def test_station_in_a_groove_is_checked_on_the_groove_bottom(coarse):
     assert hand["d"] == pytest.approx(0.030) and hand["Kt"] == rec["kt_bending"]
     assert "groove bottom radius of the feature (shaft.grooves[0])" in hand["notch_radius_source"]
     assert "meridian-section FE" in sa_.extra["fatigue"]["path"]
+
+
+def test_layout_without_loads_reports_the_factors_only(coarse, run_cli, tmp_path):
+    # [shaft] with a shoulder and a groove, no loads, no stations, no bearings: the factors only, exit 0
+    (tmp_path / "c.toml").write_text(
+        '[case]\ntitle = "fillet study"\nunits = "mm-N-MPa"\n[material]\npoisson = 0.3\n'
+        '[shaft]\nlength = 400\n'
+        '[[shaft.segments]]\nfrom = 0\nto = 200\ndiameter = 30\n'
+        '[[shaft.segments]]\nfrom = 200\nto = 400\ndiameter = 36\nfillet = 3\n'
+        '[[shaft.grooves]]\nat = 300\nwidth = 4\ndepth = 3\nradius = 2\n', encoding="utf-8")
+    code, out, err = run_cli("run", str(tmp_path / "c.toml"), "--out", str(tmp_path / "o"))
+    assert code == 0, err
+    res = json.loads((tmp_path / "o" / "results.json").read_text(encoding="utf-8"))
+    assert res["factors_only"] and set(res["shaft"]) == {"features"} and res["exit_code"] == 0
+    assert "section_loads" not in res and "governing" not in res and "section" not in res
+    assert [f["kind"] for f in res["shaft"]["features"]] == ["shoulder", "groove"]
+    assert all(f["kts"] > 1 and f["kt_bending"] > 1 for f in res["shaft"]["features"])
+    assert sorted(p.name for p in (tmp_path / "o").iterdir()) == ["results.json"]
+    assert "Shoulders and grooves" in out and "not a verdict" in out
+
+
+def test_layout_with_loads_still_needs_a_station():
+    with pytest.raises(InputError) as e:
+        parse_case({**BASE, "shaft": {"length": 400, "supports": [{"at": 0}, {"at": 400}],
+                                      "segments": SHOULDER, "loads": [{"at": 100, "force": [0, -10]}]}})
+    assert e.value.field == "shaft.sections"

@@ -12,6 +12,10 @@
 """
 from __future__ import annotations
 
+from ..pairs.analysis import Analysis
+from ..pairs.feature_step import attach_features
+from .findings import EXIT_NO_VERDICT
+
 
 def feature_findings(a) -> list[dict]:
     out: list[dict] = []
@@ -37,3 +41,15 @@ def feature_findings(a) -> list[dict]:
         if "feature" in (st.get("kt_from") or {}).values() and st.get("fe_path") != "feature":
             out.append({"code": "feature_station_fe_path", "at": st["at"], "name": st.get("name", "")})
     return out
+
+
+def factors_only(case, feats: dict) -> Analysis:
+    """The result of a layout with shoulders or grooves but no loads and no stations: the features'
+    factors and their warnings only (no section solve, no beam; ``extra['shaft']['factors_only']``).
+    A feature that can have no factor (a sharp shoulder) makes the run one without a verdict (exit 4)."""
+    a = Analysis(case, None, None, None, [], {}, extra={"shaft": {"factors_only": True}})
+    attach_features(a, feats)
+    a.extra["warnings"] = feature_findings(a)
+    sharp = any(r.get("skipped") == "sharp_shoulder" for r in a.extra["shaft"]["features"])
+    a.extra["exit_code"] = EXIT_NO_VERDICT if sharp else 0
+    return a

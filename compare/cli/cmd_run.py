@@ -51,12 +51,13 @@ def run(args) -> int:
     a = analyse(case, fineness=fineness)
     res = build_results(a)
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
-    if res.get("shaft"):  # the layout's diagrams and deflected shape
+    if (res.get("shaft") or {}).get("diagrams"):  # the layout's diagrams and deflected shape
         files["shaft.svg"] = shaft_figure_svg(res, case.units)
-    write_outputs(out, files, None if args.no_vtu else a)
+    vtu = not args.no_vtu and a.mesh is not None  # no section mesh when only feature factors were asked for
+    write_outputs(out, files, a if vtu else None)
     if not args.quiet:
         print("\n".join(x for x in (shaft_summary(res, case.units), summary(res, case.units)) if x))
-        print(f"\nwritten: {out / 'results.json'}" + ("" if args.no_vtu else f", {out / 'section.vtu'}"))
+        print(f"\nwritten: {out / 'results.json'}" + (f", {out / 'section.vtu'}" if vtu else ""))
     return res.get("exit_code", 0)
 
 

@@ -75,3 +75,17 @@ def feature_warning_text(w: dict, f) -> str | None:
                 "sensitivity at its radius; its FE path (local stresses) is that of the plain round section and does not "
                 "see the feature, so read that station's verdict from the hand path.")
     return None
+
+
+def factors_only_summary(res: dict, f) -> str:
+    """The terminal summary of a layout asking for the shoulder and groove factors only."""
+    lines = [f"shaftcheck {res['tool']['version']} — {res['case']['title']}",
+             f"units: {f.s.name}   shoulder and groove factors only (no loads, no stations: no beam, no checks)", ""]
+    for w in res.get("warnings", []):
+        lines.append(f"WARNING: {w['text']}")
+    if res.get("warnings"):
+        lines.append("")
+    lines += feature_lines(res, f)
+    lines += ["", "These are stress-concentration factors, not a verdict: no load, strength or factor of safety "
+              "was checked.", "", res["caution"]]
+    return "\n".join(lines)

@@ -18,7 +18,7 @@ def add_shaft_results(out: dict, a, build_results) -> None:
     blocks (``build_results`` of each station's analysis is handed in: same room, no circle)."""
     out.pop("shaft_stations", None)
     rec = a.extra.get("shaft")
-    if rec is None:
+    if rec is None or "layout" not in rec:
         out.pop("shaft", None)
         return
     lay, stations = rec["layout"], rec["stations"]
@@ -100,7 +100,7 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
 def shaft_summary(res: dict, system) -> str:
     """The layout block of the terminal summary (empty for a section-only case)."""
     sh = res.get("shaft")
-    if not sh:
+    if not sh or "reactions" not in sh:  # no layout block (a case asking for the feature factors only)
         return ""
     f = Fmt(system)
     lines = ["Shaft layout (beam in two planes, Timoshenko)"]
