@@ -246,3 +246,16 @@ def test_layout_with_loads_still_needs_a_station():
         parse_case({**BASE, "shaft": {"length": 400, "supports": [{"at": 0}, {"at": 400}],
                                       "segments": SHOULDER, "loads": [{"at": 100, "force": [0, -10]}]}})
     assert e.value.field == "shaft.sections"
+
+
+def test_factors_only_with_a_sharp_shoulder_has_no_verdict():
+    # no fillet: the corner's elastic stress is unbounded (Williams, J. Appl. Mech. 19, 1952), so
+    # that shoulder has no factor: exit code 4, the warning first
+    c = parse_case({"case": {"units": "mm-N-MPa"}, "material": {"poisson": 0.3},
+                    "shaft": {"length": 400, "segments": [{"from": 0, "to": 200, "diameter": 30},
+                                                          {"from": 200, "to": 400, "diameter": 36}]}})
+    assert c.shaft.factors_only and c.shaft.supports == []
+    res = build_results(analyse(c))
+    assert res["exit_code"] == 4 and res["shaft"]["features"][0]["skipped"] == "sharp_shoulder"
+    assert res["warnings"][0]["code"] == "feature_sharp_shoulder"
+    assert summary(res, c.units).splitlines()[3].startswith("WARNING: NO FACTOR AT A SHARP SHOULDER")
