@@ -7,6 +7,7 @@ import pytest
 from compare.case.case import parse_case
 from compare.output.report import summary
 from compare.output.results import build_results
+from compare.output.results_shaft import shaft_summary
 from compare.pairs.feature_step import chart_value
 from compare.pipeline import analyse
 from compare.solve import features
@@ -186,6 +187,7 @@ def test_station_fe_path_at_a_shoulder_uses_the_fillet_stresses(coarse):
     assert not any(w["code"] == "feature_station_fe_path" for w in res["warnings"])  # the FE path sees the fillet
     sl = res["section_loads"][0]["results"]
     assert "meridian-section FE" in sl["fatigue"]["path"]
+    assert "FE path from the meridian-section FE at the fillet" in shaft_summary(res, c.units)
 
 
 def test_station_fe_path_in_pure_torsion_is_kts_times_nominal(coarse):

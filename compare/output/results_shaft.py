@@ -134,6 +134,8 @@ def shaft_summary(res: dict, system) -> str:
         gov = (st["results"].get("governing") or {})
         n = gov.get("factor")
         verdict = "no verdict" if gov.get("no_verdict") or n is None else f"n = {n:.3g} ({gov.get('criterion')})"
+        if "fe_local" in (st["results"].get("fatigue") or {}) or "fe_local" in (st["results"].get("static") or {}):
+            verdict += "; FE path from the meridian-section FE at the fillet"
         M = math.hypot(st["Mx"], st["My"])
         side = f", {st['used_side']} side of a jump" if st["jump"] else ""
         lines.append(f"    {f.q(st['at'], 'length', 4)} {st['name'] or ''}: M {f.q(M, 'moment', 4)}, T "
