@@ -192,7 +192,8 @@ def test_station_fe_path_at_a_shoulder_uses_the_fillet_stresses(coarse):
 
 def test_station_fe_path_in_pure_torsion_is_kts_times_nominal(coarse):
     # torque only, shaft standing still: at the fillet the surface is in pure shear, so the von Mises
-    # stress is √3·τ (the distortion-energy stress of pure shear, Shigley 9th ed., eq. 5-15) with
+    # stress is √3·τ (the distortion-energy stress of pure shear, Shigley 9th ed., Sec. 5-5; equation
+    # number from memory: eq. 5-15) with
     # τmax = Kts·16T/(πd³) (Roark 7th ed., Table 17.1 nominal); the superposition is read on the same
     # points of the same solution as Kts, so the only tolerance is round-off (1e-9)
     d = {"length": 400, "supports": [{"at": 0}, {"at": 400}], "segments": SHOULDER,
