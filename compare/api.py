@@ -242,9 +242,9 @@ class Result(Record):
         Returns the folder."""
         out = Path(out)
         files = {"results.json": json.dumps(self._d, indent=2, ensure_ascii=False) + "\n"}
-        if self._d.get("shaft"):  # a layout case: its diagrams too, as the command line writes them
+        if (self._d.get("shaft") or {}).get("diagrams"):  # a layout case: its diagrams too, as the command line writes them
             files["shaft.svg"] = shaft_figure_svg(self._d, self.analysis.case.units)
-        write_outputs(out, files, self.analysis if vtu else None)
+        write_outputs(out, files, self.analysis if vtu and self.analysis.mesh is not None else None)
         return out
 
     def __repr__(self) -> str:

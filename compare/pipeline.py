@@ -8,7 +8,7 @@ from __future__ import annotations
 import time
 
 from .case.case import Case
-from .checks.feature_findings import feature_findings
+from .checks.feature_findings import factors_only, feature_findings
 from .checks.findings import findings_step
 from .checks.shaft_stations import layout_step
 from .checks.step import combined_step
@@ -26,6 +26,8 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     from the finest mesh."""
     if case.shaft is not None:  # the whole shaft, then each station through this same function
         feats = shaft_features_step(case)  # shoulders and grooves first: their FE Kt go to the stations
+        if case.shaft.factors_only:  # no loads, no stations: the features' factors are the whole result
+            return factors_only(case, feats)
         a = layout_step(case, lambda c: analyse(c, fineness, study))
         attach_features(a, feats)
         a.extra["warnings"] = feature_findings(a) + list(a.extra.get("warnings") or [])

@@ -571,3 +571,41 @@ def _far_field(mm, basis, x, load_case, E, nu, G, load):
     else:
         exact = 16 * load * d / (math.pi * (d**4 - prof.bore**4))
     return {"fem": float(s1[k]), "exact": exact, "r": rr, "z": float(z[k])}
+
+
+#: Order of the stress components of :func:`feature_stress_components` (cylindrical, at θ = 0).
+COMPONENTS = ("rr", "tt", "zz", "rz", "rt", "tz")
+
+
+def feature_stress_components(mm: MeridianMesh, basis, x, load_case: str, E: float = 2.0e11,
+                              nu: float = 0.3) -> dict:
+    """The stress components [Pa] at the sample points of the feature arcs (the points of
+    :attr:`ProfileResult.points`, same order), for superposing loads at each point.
+
+    Returns {"r", "z": arrays (n,), "cos", "sin": arrays (n, 6)} in the order :data:`COMPONENTS`
+    (σ_rr, σ_θθ, σ_zz, τ_rz, τ_rθ, τ_θz): the stress at circumferential angle θ is
+    ``cos·cos θ + sin·sin θ`` for bending (the first harmonic: the cos-group σ_rr, σ_θθ, σ_zz, τ_rz,
+    the sin-group τ_rθ, τ_θz, θ measured from the tension side), and ``cos`` alone (independent of θ)
+    for tension (σ_rr, σ_θθ, σ_zz, τ_rz) and torsion (τ_rθ = G·r·∂ω/∂r, τ_θz = G·r·∂ω/∂z)."""
+    feature = mm.facets("fillet")
+    fb = _facet_basis(mm, basis, feature if len(feature) else mm.facets("surface"))
+    u = fb.interpolate(x)
+    r, z = (np.asarray(c) for c in fb.global_coordinates())
+    G = E / (2 * (1 + nu))
+    lam = E * nu / ((1 + nu) * (1 - 2 * nu))
+    zero = np.zeros_like(r)
+    cos = [zero] * 6
+    sin = [zero] * 6
+    if load_case == "torsion":
+        g = u.grad
+        cos = [zero, zero, zero, zero, G * r * g[0], G * r * g[1]]
+    else:
+        if load_case == "tension":
+            er, et, ez, grz = forms.axisym_n0_strains(u, r)
+        else:
+            (er, et, ez, grz), (grt, gtz) = forms.axisym_n1_strains(u, r)
+            sin = [zero, zero, zero, zero, G * grt, G * gtz]
+        tr = er + et + ez
+        cos = [lam * tr + 2 * G * er, lam * tr + 2 * G * et, lam * tr + 2 * G * ez, G * grz, zero, zero]
+    flat = lambda comps: np.stack([np.asarray(c, float).ravel() for c in comps], axis=1)  # noqa: E731
+    return {"r": r.ravel(), "z": z.ravel(), "cos": flat(cos), "sin": flat(sin)}

@@ -78,7 +78,8 @@ def test_loads_rotating_carries_over_and_sprocket_has_no_slack_side():
     ({"sections": [{"at": 50, "section": {"shape": "round", "diameter": -30}}]}, "shaft.sections[0].section.diameter"),
     ({"density": 0}, "shaft.density"),
     ({"rotating": "yes"}, "shaft.rotating"),
-    ({"sections": []}, "shaft.sections"),
+    ({"sections": [], "segments": [{"from": 0, "to": 300, "diameter": 30}]}, "shaft.sections"),  # no feature either
+    ({"sections": [], "loads": [{"at": 50, "force": [0, -10]}]}, "shaft.sections"),  # loads need a station
 ])
 def test_refusals_name_the_field(change, field):
     with pytest.raises(InputError) as e:

@@ -1,14 +1,18 @@
 """Shoulders and grooves of [shaft]: features found along the shaft, the FE factors beside the
 Table 17.1 fits, handed to the stations on them, written to results and the summary."""
+import json
+
 import pytest
 
 from compare.case.case import parse_case
 from compare.output.report import summary
 from compare.output.results import build_results
+from compare.output.results_shaft import shaft_summary
 from compare.pairs.feature_step import chart_value
 from compare.pipeline import analyse
 from compare.solve import features
 from compare.solve.features import Feature, shaft_features
+from fem.errors import InputError
 
 BASE = {"case": {"units": "mm-N-MPa"}, "material": {"elastic_modulus": "205 GPa", "poisson": 0.3}}
 
@@ -86,6 +90,7 @@ def test_station_on_a_shoulder_uses_the_fe_factors(coarse):
     hand = a.extra["shaft_stations"][0].extra["fatigue"]["hand"]
     assert hand["Kt"] == rec["kt_bending"] and hand["Kts"] == rec["kts"]
     assert hand["notch_radius"] == pytest.approx(0.003) and 0 < hand["q"] < 1
+    assert "fillet radius of the feature (shaft.segments[1].fillet)" in hand["notch_radius_source"]
     assert hand["Kf"] == pytest.approx(1 + hand["q"] * (rec["kt_bending"] - 1))  # Shigley 9th ed., eq. 6-32
     pairs = [p for p in a.pairs if "shaft.segments[1].fillet" in p.quantity]
     assert len(pairs) == 3 and all(p.ratio == pytest.approx(p.fe / p.classic) for p in pairs)
@@ -94,7 +99,7 @@ def test_station_on_a_shoulder_uses_the_fe_factors(coarse):
     assert out["kt_bending"] == rec["kt_bending"] and out["kts_peak"]["angle"] is not None
     text = summary(res, c.units)
     assert "Shoulders and grooves" in text and "Kts torsion" in text
-    assert any(w["code"] == "feature_station_fe_path" for w in res["warnings"])
+    assert not any(w["code"] == "feature_station_fe_path" for w in res["warnings"])  # FE path from the fillet
 
 
 def test_sharp_shoulder_gets_a_warning_and_no_factor(coarse):
@@ -107,3 +112,153 @@ def test_sharp_shoulder_gets_a_warning_and_no_factor(coarse):
     res = build_results(a)
     w = [x for x in res["warnings"] if x["code"] == "feature_sharp_shoulder"]
     assert len(w) == 1 and "unbounded" in w[0]["text"] and "shaft.segments[1].fillet" in w[0]["text"]
+
+
+MATERIAL = {"elastic_modulus": "205 GPa", "poisson": 0.3, "yield": 540, "ultimate": 760, "surface": "machined"}
+
+
+def loaded_case(segments, sections, **extra):
+    d = {"length": 400, "rotating": True, "supports": [{"at": 0}, {"at": 400}], "segments": segments,
+         "loads": [{"at": 100, "force": [0, -2000], "torque": 100}, {"at": 300, "torque": -100}],
+         "sections": sections}
+    d.update(extra)
+    return parse_case({"case": {"units": "mm-N-MPa"}, "material": MATERIAL, "analysis": {"design_factor": 1.5},
+                       "shaft": d})
+
+
+def test_station_at_a_sharp_shoulder_has_no_verdict(coarse):
+    # A sharp re-entrant corner has an unbounded elastic stress (Williams, J. Appl. Mech. 19, 1952:
+    # the corner singularity of a re-entrant wedge): no factor of safety at that station, none for
+    # the shaft, exit code 4, and the warning first.
+    c = loaded_case([{"from": 0, "to": 200, "diameter": 30}, {"from": 200, "to": 400, "diameter": 36}],
+                    [{"at": 100, "name": "plain"}, {"at": 200, "name": "sharp"}])
+    a = analyse(c, study=False)
+    plain, sharp = a.extra["shaft_stations"]
+    assert plain.extra["governing"]["factor"] > 0 and not plain.extra.get("exit_code")
+    gov = sharp.extra["governing"]
+    assert gov["factor"] is None and gov["no_verdict"] and "shoulder" in gov["reason"]
+    assert gov["away_from_corners"]["factor"] > 0  # the plain section's value, kept and marked
+    assert all(v is None for v in sharp.extra["static"]["meets_design_factor"].values())
+    res = build_results(a)
+    assert res["exit_code"] == 4  # compare.checks.findings.EXIT_NO_VERDICT
+    assert res["shaft"]["governing_station"] == 1
+    assert res["governing"]["factor"] is None and res["governing"]["no_verdict"]
+    assert res["warnings"][0]["code"] == "station_sharp_no_verdict"
+    assert "unbounded" in res["warnings"][0]["text"] and "shaft.segments[1].fillet" in res["warnings"][0]["text"]
+    st = res["section_loads"][1]["results"]
+    codes = [w["code"] for w in st["warnings"]]
+    assert set(codes[:2]) == {"feature_sharp_shoulder", "feature_station_sharp_no_verdict"} and st["exit_code"] == 4
+    text = summary(res, c.units)
+    assert "no verdict" in text.lower()
+
+
+SHOULDER = [{"from": 0, "to": 200, "diameter": 30}, {"from": 200, "to": 400, "diameter": 36, "fillet": 3}]
+
+
+def test_station_fe_path_at_a_shoulder_uses_the_fillet_stresses(coarse):
+    # rotating shaft, bending fully reversed at the shoulder station (D/d = 1.2, r/d = 0.1)
+    c = loaded_case(SHOULDER, [{"at": 200, "name": "shoulder"}])
+    a = analyse(c, study=False)
+    rec, = a.extra["shaft"]["features"]
+    sa_ = a.extra["shaft_stations"][0]
+    st, ft = sa_.extra["static"], sa_.extra["fatigue"]
+    assert "meridian-section FE" in st["path"] and "meridian-section FE" in ft["path"]
+    assert ft["fe_local"]["field"] == "shaft.segments[1].fillet" and ft["fe_local"]["loads"]["rotating"]
+    e = ft["fe"]["goodman"]
+    assert "shaft.segments[1].fillet" in e["where"]["boundary"]
+    # the critical point lies on the fillet: r between d/2 and d/2 + r_f, z within the fillet's length
+    assert 0.015 - 1e-9 <= e["where"]["distance_from_axis"] <= 0.018 + 1e-9
+    assert 0.197 - 1e-9 <= e["where"]["z"] <= 0.2 + 1e-9
+    # the local stresses at the fillet are at least those of the plain round section: every factor at most its value
+    for name in st["criteria"]:
+        assert st[name] <= st["plain_round"][name]["factor"] * (1 + 1e-12)
+    for name in ft["criteria"]:
+        assert ft[name] <= ft["plain_round_fe"][name]["factor"] * (1 + 1e-12)
+    # beside the hand superposition of the peaks, Kt·32M/(πd³) alternating and Kts·16T/(πd³) mean (the hand
+    # path with Kf = Kt, Shigley 9th ed., eqs. 7-7/7-8): the per-point von Mises stress is at most that
+    # (at the free surface of the fillet 0 <= σθ <= σ1, so σ' <= σ1 <= Kt·σnom) and within 15 % of it (the
+    # stated tolerance: the hoop stress at a fillet of this size is a fraction of the axial one, so the
+    # biaxial von Mises stress stays above about 0.87·σ1)
+    hand = ft["hand"]["with_kf_equal_kt"]
+    assert e["sigma_a_vm"] <= hand["sigma_a_vm"] * (1 + 1e-9)
+    assert e["sigma_a_vm"] == pytest.approx(hand["sigma_a_vm"], rel=0.15)
+    assert ft["goodman"] >= hand["goodman"] * (1 - 1e-9) and ft["goodman"] == pytest.approx(hand["goodman"], rel=0.15)
+    res = build_results(a)
+    assert not any(w["code"] == "feature_station_fe_path" for w in res["warnings"])  # the FE path sees the fillet
+    sl = res["section_loads"][0]["results"]
+    assert "meridian-section FE" in sl["fatigue"]["path"]
+    assert "FE path from the meridian-section FE at the fillet" in shaft_summary(res, c.units)
+
+
+def test_station_fe_path_in_pure_torsion_is_kts_times_nominal(coarse):
+    # torque only, shaft standing still: at the fillet the surface is in pure shear, so the von Mises
+    # stress is √3·τ (the distortion-energy stress of pure shear, Shigley 9th ed., Sec. 5-5; equation
+    # number from memory: eq. 5-15) with
+    # τmax = Kts·16T/(πd³) (Roark 7th ed., Table 17.1 nominal); the superposition is read on the same
+    # points of the same solution as Kts, so the only tolerance is round-off (1e-9)
+    d = {"length": 400, "supports": [{"at": 0}, {"at": 400}], "segments": SHOULDER,
+         "loads": [{"at": 100, "torque": 100000}, {"at": 300, "torque": -100000}], "sections": [{"at": 200}]}
+    c = parse_case({"case": {"units": "mm-N-MPa"}, "material": MATERIAL, "shaft": d})
+    a = analyse(c, study=False)
+    rec, = a.extra["shaft"]["features"]
+    st = a.extra["shaft_stations"][0].extra["static"]
+    tau = rec["kts"] * 16 * 100.0 / (3.141592653589793 * 0.030**3)
+    result = {"fem": st["von_mises"], "exact": 540e6 / (3**0.5 * tau)}
+    assert result["fem"] == pytest.approx(result["exact"], rel=1e-9)
+    assert st["tresca"] == pytest.approx(540e6 / (2 * tau), rel=1e-9)  # Tresca: s1 − s3 = 2τ in pure shear
+
+
+def test_station_in_a_groove_is_checked_on_the_groove_bottom(coarse):
+    # the groove's Kt are on the nominals of the groove-bottom diameter d = D − 2·depth (Roark 7th ed.,
+    # Table 17.1, U-groove cases); the station's plain section and its hand path use that same d
+    segs = [{"from": 0, "to": 400, "diameter": 36}]
+    c = loaded_case(segs, [{"at": 200, "name": "groove"}],
+                    grooves=[{"at": 200, "width": 4, "depth": 3, "radius": 2}])
+    a = analyse(c, study=False)
+    rec, = a.extra["shaft"]["features"]
+    sa_ = a.extra["shaft_stations"][0]
+    assert a.extra["shaft"]["stations"][0]["diameter"] == pytest.approx(0.030)
+    assert sa_.case.section.diameter == pytest.approx(0.030) and rec["d"] == pytest.approx(0.030)
+    hand = sa_.extra["fatigue"]["hand"]
+    assert hand["d"] == pytest.approx(0.030) and hand["Kt"] == rec["kt_bending"]
+    assert "groove bottom radius of the feature (shaft.grooves[0])" in hand["notch_radius_source"]
+    assert "meridian-section FE" in sa_.extra["fatigue"]["path"]
+
+
+def test_layout_without_loads_reports_the_factors_only(coarse, run_cli, tmp_path):
+    # [shaft] with a shoulder and a groove, no loads, no stations, no bearings: the factors only, exit 0
+    (tmp_path / "c.toml").write_text(
+        '[case]\ntitle = "fillet study"\nunits = "mm-N-MPa"\n[material]\npoisson = 0.3\n'
+        '[shaft]\nlength = 400\n'
+        '[[shaft.segments]]\nfrom = 0\nto = 200\ndiameter = 30\n'
+        '[[shaft.segments]]\nfrom = 200\nto = 400\ndiameter = 36\nfillet = 3\n'
+        '[[shaft.grooves]]\nat = 300\nwidth = 4\ndepth = 3\nradius = 2\n', encoding="utf-8")
+    code, out, err = run_cli("run", str(tmp_path / "c.toml"), "--out", str(tmp_path / "o"))
+    assert code == 0, err
+    res = json.loads((tmp_path / "o" / "results.json").read_text(encoding="utf-8"))
+    assert res["factors_only"] and set(res["shaft"]) == {"features"} and res["exit_code"] == 0
+    assert "section_loads" not in res and "governing" not in res and "section" not in res
+    assert [f["kind"] for f in res["shaft"]["features"]] == ["shoulder", "groove"]
+    assert all(f["kts"] > 1 and f["kt_bending"] > 1 for f in res["shaft"]["features"])
+    assert sorted(p.name for p in (tmp_path / "o").iterdir()) == ["results.json"]
+    assert "Shoulders and grooves" in out and "not a verdict" in out
+
+
+def test_layout_with_loads_still_needs_a_station():
+    with pytest.raises(InputError) as e:
+        parse_case({**BASE, "shaft": {"length": 400, "supports": [{"at": 0}, {"at": 400}],
+                                      "segments": SHOULDER, "loads": [{"at": 100, "force": [0, -10]}]}})
+    assert e.value.field == "shaft.sections"
+
+
+def test_factors_only_with_a_sharp_shoulder_has_no_verdict():
+    # no fillet: the corner's elastic stress is unbounded (Williams, J. Appl. Mech. 19, 1952), so
+    # that shoulder has no factor: exit code 4, the warning first
+    c = parse_case({"case": {"units": "mm-N-MPa"}, "material": {"poisson": 0.3},
+                    "shaft": {"length": 400, "segments": [{"from": 0, "to": 200, "diameter": 30},
+                                                          {"from": 200, "to": 400, "diameter": 36}]}})
+    assert c.shaft.factors_only and c.shaft.supports == []
+    res = build_results(analyse(c))
+    assert res["exit_code"] == 4 and res["shaft"]["features"][0]["skipped"] == "sharp_shoulder"
+    assert res["warnings"][0]["code"] == "feature_sharp_shoulder"
+    assert summary(res, c.units).splitlines()[3].startswith("WARNING: NO FACTOR AT A SHARP SHOULDER")

@@ -92,6 +92,7 @@ class Fatigue:
     kts_torsion: float | None = None
     kts_torsion_source: str | None = None
     notch_radius: float | None = None  # [m], for the notch sensitivity; default: the keyway fillet
+    notch_radius_source: str | None = None  # where notch_radius came from, when not the user's fatigue table
 
 
 @dataclass

@@ -181,6 +181,16 @@ class Shaft:
     rotating: bool = False
     self_weight: bool = True
 
+    def has_features(self) -> bool:
+        """A shoulder (a step in diameter between segments) or a groove along the shaft."""
+        steps = any(a.diameter != b.diameter for a, b in zip(self.segments, self.segments[1:]))
+        return steps or bool(self.grooves)
+
+    @property
+    def factors_only(self) -> bool:
+        """No loads and no stations: the case asks for the shoulder and groove factors only."""
+        return not self.loads and not self.stations and self.has_features()
+
     def segment_at(self, z: float, side: str = "right") -> Segment | None:
         """The segment holding ``z`` (at a step, the one to its right, or left with ``side="left"``);
         None for a shaft without segments."""
@@ -212,7 +222,9 @@ def parse_shaft(d, units, parse_section, loads_rotating: bool = False) -> Shaft:
     sh.self_weight = bool(d.get("self_weight", True))
     sh.segments = _segments(d.get("segments", []), length, units)
     sh.grooves = [_groove(g, i, sh, units) for i, g in enumerate(_table_list(d.get("grooves", []), "shaft.grooves"))]
-    sh.supports = _supports(d, length, units)
+    # a layout without loads and stations asks for the shoulder and groove factors only: no beam, no bearings
+    factors_only = not d.get("loads") and not d.get("sections") and d.get("supports") is None
+    sh.supports = [] if factors_only else _supports(d, length, units)
     sh.loads = [_load(x, i, length, units) for i, x in enumerate(_table_list(d.get("loads", []), "shaft.loads"))]
     _torque_balance(sh.loads, _table_list(d.get("loads", []), "shaft.loads"))
     sh.stations = [_station(s, i, sh, units, parse_section)
@@ -408,9 +420,12 @@ def check_with_case(sh: Shaft, raw_loads: dict, material) -> None:
         if k != "rotating":
             raise InputError(f"loads.{k}", v if not isinstance(v, dict) else None, "cannot be given with [shaft]: "
                              "the layout gives each station its loads (put the load in [[shaft.loads]])")
+    if sh.factors_only:
+        return  # the shoulder and groove factors only (Kt, Kts of each feature): no beam, no station checks
     if not sh.stations:
         raise InputError("shaft.sections", None, "is required with [shaft]: name at least one station to check, "
-                         "e.g. [[shaft.sections]] at = ...")
+                         "e.g. [[shaft.sections]] at = ... (without loads and stations, a layout with shoulders or "
+                         "grooves gives their factors only)")
     if material.elastic_modulus is None:
         raise InputError("material.elastic_modulus", None, "is needed with [shaft]: the beam's deflections, slopes "
                          "and critical speeds depend on it")

@@ -255,7 +255,7 @@ def hand_path(a, fld: Field, cyc: Cycle, Se, Sut, Sy, kt2d: dict | None) -> dict
     # --- notch sensitivity
     q = qs = None
     r = fi.notch_radius
-    r_src = "given (fatigue.notch_radius)"
+    r_src = fi.notch_radius_source or "given (fatigue.notch_radius)"
     if r is None and s.kind == "keyed":
         k = (a.where(a.torsion.peak_at).get("keyway") or 1) - 1
         r, r_src = s.keyways[k].fillet, f"the fillet radius of keyway {k + 1}"

@@ -6,10 +6,15 @@
 - the model's far-field check failed (the feature's disturbance reached the plain shaft);
 - a factor without an error estimate;
 - features closer together than the plain length each model assumes (they interact; modelled alone);
-- a station on a feature: its hand path carries the FE Kt, Kts, but its FE path is the plain round
-  section's local stresses, which do not see the shoulder or groove (not yet scaled by the FE factors).
+- a station on a feature whose FE path could not be taken from the feature's local stresses: its hand
+  path carries the FE Kt, Kts, but its FE path is the plain round section's, which does not see the
+  shoulder or groove (a station on a solved feature takes the fillet's local stresses: checks/feature_local.py).
 """
 from __future__ import annotations
+
+from ..pairs.analysis import Analysis
+from ..pairs.feature_step import attach_features
+from .findings import EXIT_NO_VERDICT
 
 
 def feature_findings(a) -> list[dict]:
@@ -33,6 +38,18 @@ def feature_findings(a) -> list[dict]:
                 out.append({"code": "feature_neighbours", "field": rec["field"], "neighbours": note["neighbours"],
                             "length": note["modelled_alone_over"]})
     for st in (a.extra.get("shaft") or {}).get("stations") or []:
-        if "feature" in (st.get("kt_from") or {}).values():
+        if "feature" in (st.get("kt_from") or {}).values() and st.get("fe_path") != "feature":
             out.append({"code": "feature_station_fe_path", "at": st["at"], "name": st.get("name", "")})
     return out
+
+
+def factors_only(case, feats: dict) -> Analysis:
+    """The result of a layout with shoulders or grooves but no loads and no stations: the features'
+    factors and their warnings only (no section solve, no beam; ``extra['shaft']['factors_only']``).
+    A feature that can have no factor (a sharp shoulder) makes the run one without a verdict (exit 4)."""
+    a = Analysis(case, None, None, None, [], {}, extra={"shaft": {"factors_only": True}})
+    attach_features(a, feats)
+    a.extra["warnings"] = feature_findings(a)
+    sharp = any(r.get("skipped") == "sharp_shoulder" for r in a.extra["shaft"]["features"])
+    a.extra["exit_code"] = EXIT_NO_VERDICT if sharp else 0
+    return a

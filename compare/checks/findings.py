@@ -70,12 +70,12 @@ def findings_step(a) -> None:
         a.extra["exit_code"] = EXIT_NO_VERDICT
 
 
-def withdraw_verdicts(a) -> None:
+def withdraw_verdicts(a, reason: str = "sharp re-entrant corner") -> None:
     """With an unbounded peak, no factor of safety is the section's: the governing result becomes
     'no verdict' (the value away from the corners is kept beside it, marked), static 'meets' flags
-    and every material's 'meets' become None."""
+    and every material's 'meets' become None. ``reason`` names the corner (a keyway's, a shoulder's)."""
     gov = a.extra.get("governing")
-    a.extra["governing"] = {"factor": None, "no_verdict": True, "reason": "sharp re-entrant corner",
+    a.extra["governing"] = {"factor": None, "no_verdict": True, "reason": reason,
                             "criterion": None, "path": None, "at": None, "where": None,
                             "design_factor": a.case.analysis.design_factor, "meets_design_factor": None,
                             "away_from_corners": gov}
@@ -85,4 +85,4 @@ def withdraw_verdicts(a) -> None:
     for e in a.extra.get("materials") or []:
         e["meets"] = None
         e["meets_what_was_checked"] = None
-        e["no_verdict"] = "sharp re-entrant corner: the stress is unbounded"
+        e["no_verdict"] = f"{reason}: the stress is unbounded"

@@ -8,6 +8,9 @@ station's own ``fatigue`` table in the case file, from ``Station.kt`` (filled by
 computes shoulder and groove factors, {"kt_bending": (value, source), "kts_torsion": (value, source)}),
 and from the case's [fatigue] table. A station at a shoulder or groove with none of these gets a
 warning: a 2-D section cannot see a shoulder or a groove, so its fatigue check leaves that factor out.
+A station on a solved feature takes its FE path (static and fatigue) from the feature's local stresses
+at the fillet (:mod:`.feature_local`), not from the plain round section. A station at a sharp shoulder
+or groove bottom (no radius) has no verdict (:func:`no_verdict_at_sharp`), and then neither has the shaft.
 """
 from __future__ import annotations
 
@@ -19,6 +22,8 @@ from fem.geometry import round_section
 from ..case.case import Case, Fatigue, Loads, parse_feature_lengths
 from ..case.shaft import Segment, Shaft, Station
 from ..case.units import from_si
+from .feature_local import fillet_fe_path
+from .findings import EXIT_NO_VERDICT, withdraw_verdicts
 from .shaft_beam import SIDE, loads_at, solve_layout
 
 #: Relative change of a station's loads between the round-bar beam and the beam with the stations'
@@ -66,6 +71,9 @@ def station_loads(layout: dict, st: Station, d: float) -> dict:
 def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tuple[Case, dict]:
     """The ordinary section case of one station with its loads, and a record of what it is made of."""
     d, bore, step = station_diameter(shaft, segs, st.at)
+    near = [g for g in shaft.grooves if abs(g.at - st.at) <= g.width / 2 + 1e-12]
+    if near:  # in a groove the plain section is the groove bottom's (the diameter of the groove's Kt nominals)
+        d = min(d, min(d - 2 * g.depth for g in near))
     section = st.section if st.section is not None else round_section(d, bore)
     fat = replace(case.fatigue) if case.fatigue else Fatigue()
     kt_from = {}
@@ -82,8 +90,11 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
             kt_from[key] = "case"
     if "notch_radius" in st.fatigue:
         fat.notch_radius = st.fatigue["notch_radius"]
+        fat.notch_radius_source = None
     elif "notch_radius" in st.kt and "feature" in kt_from.values():  # the fillet / groove radius
         fat.notch_radius = st.kt["notch_radius"][0]
+        src = st.kt["notch_radius"][1]
+        fat.notch_radius_source = f"the {'groove bottom' if 'grooves' in src else 'fillet'} radius of the feature ({src})"
     lo = Loads(torque=loads["T"], bending=(loads["Mx"], loads["My"]), shear=(loads["Vx"], loads["Vy"]),
                axial=loads["N"], rotating=shaft.rotating)
     where = (f"{from_si(st.at, 'length', case.units):.6g} {case.units.label('length')}" if case.units
@@ -91,13 +102,48 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
     title = f"{case.title} — station at z = {where}" + (f" ({st.name})" if st.name else "")
     sc = Case(title, case.units, section, lo, case.material, case.analysis, path=case.path, fatigue=fat,
               feature_lengths=parse_feature_lengths(st.raw.get("section", {}), case.units) if st.section else [])
-    near = [g for g in shaft.grooves if abs(g.at - st.at) <= g.width / 2 + 1e-12]
     features = (["shoulder"] if step else []) + (["groove"] * bool(near))
     rec = {"at": st.at, "name": st.name, "diameter": d, "bore": bore, "features": features,
            "section_kind": section.kind, "kt_from": kt_from}
     if features and not {"kt_bending", "kts_torsion"} & set(kt_from):
         rec["warning"] = "kt_missing"
+    sharp = sharp_features(shaft, segs, st.at)
+    if sharp:
+        rec["sharp"] = sharp
     return sc, rec
+
+
+#: A station is at a sharp shoulder or groove bottom when it lies within this fraction of the shaft's
+#: length of the corner (the tolerance of the layout's own positions, case/shaft.py GAP_TOL).
+SHARP_REACH = 1e-9
+
+
+def sharp_features(shaft: Shaft, segs, at: float) -> list[dict]:
+    """The sharp re-entrant corners at ``at``: a shoulder without a fillet, a groove with a zero bottom
+    radius. The elastic stress there is unbounded, so the station can have no verdict."""
+    tol = SHARP_REACH * shaft.length
+    out = []
+    for i in range(1, len(segs)):
+        a, b = segs[i - 1], segs[i]
+        if a.diameter != b.diameter and not b.fillet and abs(b.start - at) <= tol:
+            out.append({"kind": "shoulder", "field": f"shaft.segments[{i}].fillet", "at": b.start})
+    for j, g in enumerate(shaft.grooves):
+        if not g.radius and abs(g.at - at) <= g.width / 2 + tol:
+            out.append({"kind": "groove", "field": f"shaft.grooves[{j}].radius", "at": g.at})
+    return out
+
+
+def no_verdict_at_sharp(rec: dict, a) -> None:
+    """A station at a sharp shoulder or groove bottom: its verdicts withdrawn (the values of the plain
+    section kept, marked), a warning first, exit code :data:`EXIT_NO_VERDICT`."""
+    sharp = rec.get("sharp")
+    if not sharp:
+        return
+    kinds = " and ".join(sorted({s["kind"] for s in sharp}))
+    withdraw_verdicts(a, reason=f"sharp {kinds} corner (no fillet radius)")
+    w = {"code": "feature_station_sharp_no_verdict", "at": rec["at"], "name": rec.get("name", ""), "corners": sharp}
+    a.extra["warnings"] = [w] + list(a.extra.get("warnings") or [])
+    a.extra["exit_code"] = max(EXIT_NO_VERDICT, a.extra.get("exit_code") or 0)
 
 
 def layout_step(case: Case, analyse):
@@ -133,13 +179,19 @@ def layout_step(case: Case, analyse):
         layout = layout2
     layout["fe_sections"] = [{"from": o[0], "to": o[1], "Ixx": o[2], "Iyy": o[3], "area": o[4], "kappa": o[5]}
                              for o in overrides]
-    for rec, a in zip(stations, analyses):
+    for st, rec, a in zip(shaft.stations, stations, analyses):
+        if "fillet_stresses" in st.kt and not rec.get("sharp"):  # the FE path from the feature's local stresses
+            fillet_fe_path(a, st.kt["fillet_stresses"][0], keep_section_min=st.section is not None)
+            rec["fe_path"] = "feature"
+        no_verdict_at_sharp(rec, a)
         gov = a.extra.get("governing") or {}
         rec["governing"] = gov or None
         rec["exit_code"] = a.extra.get("exit_code")
     factors = [((rec["governing"] or {}).get("factor"), i) for i, rec in enumerate(stations)]
     known = [(n, i) for n, i in factors if n is not None and math.isfinite(n)]
     g = min(known)[1] if known else 0
+    # a station without a verdict (an unbounded stress) governs: no other station's factor is the shaft's
+    g = next((i for i, rec in enumerate(stations) if (rec["governing"] or {}).get("no_verdict")), g)
     a = analyses[g]
     layout["governing_station"] = g
     worst = max((rec["exit_code"] or 0 for rec in stations), default=0)

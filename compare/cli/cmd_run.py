@@ -21,6 +21,7 @@ from ..case.case import load_case
 from ..checks.materials import read_table, table_path
 from ..output.design_report import report_files
 from ..output.screen import print_summary, progress_bar
+from ..output.report import summary
 from ..output.results import build_results
 from ..output.figure_shaft import shaft_figure_svg
 from ..output.results_shaft import shaft_summary
@@ -56,21 +57,27 @@ def run(args) -> int:
         a = analyse(case, fineness=fineness)
     res = build_results(a)
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
-    if res.get("shaft"):  # the layout's diagrams and deflected shape
+    if (res.get("shaft") or {}).get("diagrams"):  # the layout's diagrams and deflected shape
         files["shaft.svg"] = shaft_figure_svg(res, case.units)
-    if not args.no_report:
+    vtu = not args.no_vtu and a.mesh is not None  # no section mesh when only feature factors were asked for
+    report = not args.no_report and a.mesh is not None
+    if report:
         files.update(report_files(a, res))
-    write_outputs(out, files, None if args.no_vtu else a)
+    write_outputs(out, files, a if vtu else None)
     if not args.quiet:
-        written = [out / "results.json"] + ([] if args.no_vtu else [out / "section.vtu"])
+        written = [out / "results.json"] + ([out / "section.vtu"] if vtu else [])
         if "shaft.svg" in files:
             written.append(out / "shaft.svg")
-        if not args.no_report:
+        if report:
             written += [out / "report.html", out / "results.csv", out / "figures"]
         block = shaft_summary(res, case.units)
         if block:
             print(block + "\n")
-        print_summary(res, case.units, written, verbose=args.verbose)
+        if a.mesh is None:  # factors only: the shaft block above is the whole answer
+            print(summary(res, case.units))
+            print("\nwritten: " + ", ".join(str(w) for w in written))
+        else:
+            print_summary(res, case.units, written, verbose=args.verbose)
     return res.get("exit_code", 0)
 
 

@@ -5,7 +5,7 @@ import numpy as np
 
 from ..case.units import SYSTEMS, UnitSystem, from_si
 from .report_combined import combined_lines
-from .report_features import feature_lines, feature_warning_text
+from .report_features import factors_only_summary, feature_lines, feature_warning_text
 from .report_geometry import geometry_lines
 from .section_geometry import SECTION_WARNINGS, section_warning_text
 
@@ -134,6 +134,8 @@ def _g(v) -> str:
 
 def summary(res: dict, system: UnitSystem | None) -> str:
     f = Fmt(system)
+    if res.get("factors_only"):  # a layout asking for the shoulder and groove factors only
+        return factors_only_summary(res, f)
     s, t = res["section"], res["torsion"]
     lines = [f"shaftcheck {res['tool']['version']} — {res['case']['title']}",
              f"units: {f.s.name}   mesh: {res['mesh']['elements']} curved P2 triangles, {res['mesh']['dofs']} DOFs",

@@ -62,9 +62,30 @@ def feature_warning_text(w: dict, f) -> str | None:
     if code == "feature_neighbours":
         return (f"FEATURES INTERACT: {w['field']} has {', '.join(w['neighbours'])} within {f.q(w['length'], 'length', 3)}; "
                 "each is modelled alone on a plain shaft, so their factors ignore each other.")
+    if code == "feature_station_sharp_no_verdict":
+        who = w.get("name") or f.q(w["at"], "length", 5)
+        fields = ", ".join(c["field"] for c in w["corners"])
+        return (f"NO VERDICT AT STATION {who}: it sits at a sharp corner ({fields} not given). The elastic stress in a "
+                "sharp re-entrant corner is unbounded, so this station has no peak stress and no factor of safety, "
+                "and no material can be said to meet the design factor; the factors shown for it are the plain "
+                "section's, away from the corner. Give the real fillet radius.")
     if code == "feature_station_fe_path":
         who = w.get("name") or f.q(w["at"], "length", 5)
         return (f"STATION ON A SHOULDER OR GROOVE ({who}): its hand path uses the FE Kt and Kts of the feature with the notch "
                 "sensitivity at its radius; its FE path (local stresses) is that of the plain round section and does not "
                 "see the feature, so read that station's verdict from the hand path.")
     return None
+
+
+def factors_only_summary(res: dict, f) -> str:
+    """The terminal summary of a layout asking for the shoulder and groove factors only."""
+    lines = [f"shaftcheck {res['tool']['version']} — {res['case']['title']}",
+             f"units: {f.s.name}   shoulder and groove factors only (no loads, no stations: no beam, no checks)", ""]
+    for w in res.get("warnings", []):
+        lines.append(f"WARNING: {w['text']}")
+    if res.get("warnings"):
+        lines.append("")
+    lines += feature_lines(res, f)
+    lines += ["", "These are stress-concentration factors, not a verdict: no load, strength or factor of safety "
+              "was checked.", "", res["caution"]]
+    return "\n".join(lines)

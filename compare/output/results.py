@@ -8,7 +8,7 @@ from .._version import __version__
 from ..pairs.analysis import Analysis
 from .report import CAUTION, Fmt, warning_text
 from .report_combined import governing_text
-from .results_features import add_feature_results
+from .results_features import add_feature_results, factors_only_results
 from .results_shaft import add_shaft_results
 from .section_geometry import geometry_record
 from .trace import input_hashes
@@ -17,6 +17,8 @@ SCHEMA_VERSION = 1
 
 
 def build_results(a: Analysis) -> dict:
+    if (a.extra.get("shaft") or {}).get("factors_only"):  # a layout asking for the feature factors only
+        return _clean(factors_only_results(a, warnings_out, SCHEMA_VERSION))
     pr, tr, sm, case = a.props, a.torsion, a.mesh, a.case
     T = a.torque
     G = case.material.shear_modulus

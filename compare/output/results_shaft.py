@@ -18,7 +18,7 @@ def add_shaft_results(out: dict, a, build_results) -> None:
     blocks (``build_results`` of each station's analysis is handed in: same room, no circle)."""
     out.pop("shaft_stations", None)
     rec = a.extra.get("shaft")
-    if rec is None:
+    if rec is None or "layout" not in rec:
         out.pop("shaft", None)
         return
     lay, stations = rec["layout"], rec["stations"]
@@ -63,8 +63,15 @@ def add_shaft_results(out: dict, a, build_results) -> None:
 def shaft_warnings(lay: dict, stations: list) -> list[dict]:
     """Records with a sentence each (SI numbers in the data; the terminal writes its own units)."""
     out = []
+    for st in stations:  # first: stations at a sharp corner, which can have no verdict at all
+        for c in st.get("sharp") or []:
+            out.append({"code": "station_sharp_no_verdict", "at": st["at"], "name": st["name"], "corner": c,
+                        "text": f"NO VERDICT at station {st['name'] or st['at']}: it sits at a sharp {c['kind']} "
+                                f"corner ({c['field']} not given). The elastic stress there is unbounded, so no Kt, no "
+                                "local stress and no factor of safety can be given for it, and none is given for the "
+                                "whole shaft; give the real fillet radius."})
     for st in stations:
-        if st.get("warning") == "kt_missing":
+        if st.get("warning") == "kt_missing" and not st.get("sharp"):
             out.append({"code": "station_kt_missing", "at": st["at"], "name": st["name"], "features": st["features"],
                         "text": f"station {st['name'] or st['at']}: at a {' and '.join(st['features'])}, which a 2-D "
                                 "section cannot see; its fatigue check leaves the stress concentration out (give "
@@ -93,7 +100,7 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
 def shaft_summary(res: dict, system) -> str:
     """The layout block of the terminal summary (empty for a section-only case)."""
     sh = res.get("shaft")
-    if not sh:
+    if not sh or "reactions" not in sh:  # no layout block (a case asking for the feature factors only)
         return ""
     f = Fmt(system)
     lines = ["Shaft layout (beam in two planes, Timoshenko)"]
@@ -127,6 +134,8 @@ def shaft_summary(res: dict, system) -> str:
         gov = (st["results"].get("governing") or {})
         n = gov.get("factor")
         verdict = "no verdict" if gov.get("no_verdict") or n is None else f"n = {n:.3g} ({gov.get('criterion')})"
+        if "fe_local" in (st["results"].get("fatigue") or {}) or "fe_local" in (st["results"].get("static") or {}):
+            verdict += "; FE path from the meridian-section FE at the fillet"
         M = math.hypot(st["Mx"], st["My"])
         side = f", {st['used_side']} side of a jump" if st["jump"] else ""
         lines.append(f"    {f.q(st['at'], 'length', 4)} {st['name'] or ''}: M {f.q(M, 'moment', 4)}, T "

@@ -85,10 +85,13 @@ def feature_pairs(rec: dict) -> list[Pair]:
     return out
 
 
-def station_factors(shaft, records: list[dict]) -> None:
-    """Fill ``Station.kt`` of every station on a feature (within the fillet, or the groove's width)."""
+def station_factors(shaft, records: list[dict], studies: list[dict] | None = None) -> None:
+    """Fill ``Station.kt`` of every station on a feature (within the fillet, or the groove's width):
+    the factors, the notch radius and, with ``studies``, ``fillet_stresses`` = (the stress components
+    per nominal at the points along the feature arcs of each load, with d and bore of the nominals;
+    the feature's field) for the station's FE path (compare/checks/feature_local.py)."""
     for st in shaft.stations:
-        for rec in records:
+        for k, rec in enumerate(records):
             if rec["kts"] is None:
                 continue
             reach = rec["radius"] if rec["kind"] == "shoulder" else rec["width"] / 2
@@ -99,6 +102,11 @@ def station_factors(shaft, records: list[dict]) -> None:
                     src = f"{FE_SOURCE}, {rec['field']}" + (f", {bound} {gci:.2%}" if gci is not None else "")
                     st.kt[STATION_KEYS[load]] = (rec[key], src)
                 st.kt["notch_radius"] = (rec["radius"], rec["field"])
+                if studies is not None and studies[k]:
+                    local = {load: studies[k][load]["components"] for load in KEYS}
+                    local.update(d=rec["d"], bore=rec["bore"] or 0.0, kind=rec["kind"], radius=rec["radius"],
+                                 field=rec["field"], at=rec["at"])
+                    st.kt["fillet_stresses"] = (local, rec["field"])
                 break
 
 
@@ -110,12 +118,14 @@ def shaft_features_step(case) -> dict | None:
     if shaft is None:
         return None
     nu = case.material.poisson
-    records, pairs, cache = [], [], {}
+    records, pairs, cache, studies = [], [], {}, []
     for f in shaft_features(shaft):
-        rec = feature_record(f, study_feature(f, nu, cache=cache))
+        study = study_feature(f, nu, cache=cache)
+        rec = feature_record(f, study)
         records.append(rec)
+        studies.append(study)
         pairs.extend(feature_pairs(rec))
-    station_factors(shaft, records)
+    station_factors(shaft, records, studies)
     return {"records": records, "pairs": pairs}
 
 

@@ -17,6 +17,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 
+import numpy as np
+
 from classic.gci import convergence_study
 from fem import axisym
 from fem.errors import InputError
@@ -144,6 +146,7 @@ def _moved(entry, f: Feature) -> dict:
         r["peak"] = {**rec["peak"], "at": rec["peak"]["at"] + dz}
         r["peak_von_mises"] = {**rec["peak_von_mises"], "at": rec["peak_von_mises"]["at"] + dz}
         r["map"] = {**rec["map"], "at": [z + dz for z in rec["map"]["at"]]}
+        r["components"] = {**rec["components"], "at": rec["components"]["at"] + dz}
         res[load] = r
     return res
 
@@ -167,6 +170,7 @@ def _study(f: Feature, poisson, fineness) -> dict:
     for load in axisym.LOADS:
         results = [axisym.solve_profile(mm, load, _E, nu) for mm in meshes]
         fine = results[-1]
+        comp = axisym.feature_stress_components(meshes[-1], fine.basis, fine.x, load, _E, nu)
         kts = [r.kt for r in results]
         bound, kind, order, status = _error_bound(kts, fineness[1] / fineness[0])
         ff = fine.far_field
@@ -192,5 +196,9 @@ def _study(f: Feature, poisson, fineness) -> dict:
                     "at": [model_to_shaft(f, prof, float(z)) for z in fine.points["z"]],
                     "s1_per_nominal": (fine.points["s1"] / fine.nominal).tolist(),
                     "vm_per_nominal": (fine.points["vm"] / fine.nominal).tolist()},
+            # stress components at the same points per nominal, for superposing a station's loads
+            # point by point (compare/checks/feature_local.py); kept out of results.json
+            "components": {"r": comp["r"], "at": np.array([model_to_shaft(f, prof, float(z)) for z in comp["z"]]),
+                           "cos": comp["cos"] / fine.nominal, "sin": comp["sin"] / fine.nominal},
         }
     return out
