@@ -30,6 +30,7 @@ from .case.case import Case as CaseSpec
 from .case.case import load_case, parse_case
 from .case.units import ureg
 from .cli.cmd_run import write_outputs
+from .output.design_report import report_files
 from .output.figure_shaft import shaft_figure_svg
 from .output.report import summary
 from .output.results import build_results
@@ -236,14 +237,16 @@ class Result(Record):
         """The terminal summary ``shaftcheck run`` prints, in the case's units."""
         return summary(self._d, self.analysis.case.units)
 
-    def save(self, out: str | Path, vtu: bool = True) -> Path:
-        """Write the files ``shaftcheck run --out`` writes (``results.json`` and, with ``vtu``,
-        ``section.vtu``; ``shaft.svg`` for a layout) into the folder ``out``; nothing is half-written.
-        Returns the folder."""
+    def save(self, out: str | Path, vtu: bool = True, report: bool = True) -> Path:
+        """Write the files ``shaftcheck run --out`` writes (``results.json``; with ``vtu``,
+        ``section.vtu``; with ``report``, ``report.html``, ``results.csv`` and ``figures/``; ``shaft.svg``
+        for a layout) into the folder ``out``; nothing is half-written. Returns the folder."""
         out = Path(out)
         files = {"results.json": json.dumps(self._d, indent=2, ensure_ascii=False) + "\n"}
         if (self._d.get("shaft") or {}).get("diagrams"):  # a layout case: its diagrams too, as the command line writes them
             files["shaft.svg"] = shaft_figure_svg(self._d, self.analysis.case.units)
+        if report and self.analysis.mesh is not None:  # as `run` without --no-report
+            files.update(report_files(self.analysis, self._d))
         write_outputs(out, files, self.analysis if vtu and self.analysis.mesh is not None else None)
         return out
 

@@ -104,9 +104,10 @@ def test_quantities_carry_their_units(keyed_result):
 
 def test_save_writes_what_the_command_line_writes(keyed_result, tmp_path):
     out = keyed_result.save(tmp_path / "api")
-    assert sorted(p.name for p in out.iterdir()) == ["results.json", "section.vtu"]
+    assert sorted(p.name for p in out.iterdir()) == ["figures", "report.html", "results.csv", "results.json", "section.vtu"]
     assert json.loads((out / "results.json").read_text(encoding="utf-8")) == keyed_result.to_dict()
-    out2 = keyed_result.save(tmp_path / "novtu", vtu=False)
+    assert {p.suffix for p in (out / "figures").iterdir()} == {".png", ".svg"}
+    out2 = keyed_result.save(tmp_path / "novtu", vtu=False, report=False)
     assert sorted(p.name for p in out2.iterdir()) == ["results.json"]
 
 
