@@ -236,5 +236,5 @@ at = 50
     res = {"fem": r.q.shaft.max_deflection.value.to("mm").magnitude, "exact": exact * 1e3}
     assert res["fem"] == pytest.approx(res["exact"], rel=1e-9)
     assert r.section_loads[0]["Mx"] == pytest.approx(-25.0)  # R1·a = 500 N × 0.05 m, sagging
-    out = r.save(tmp_path / "out", vtu=False)
+    out = r.save(tmp_path / "out", vtu=False, report=False)
     assert sorted(p.name for p in out.iterdir()) == ["results.json", "shaft.svg"]
