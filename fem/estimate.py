@@ -24,12 +24,23 @@ def element_sizes(mesh) -> np.ndarray:
 
 def recovered_gradient(basis: Basis, u: np.ndarray) -> np.ndarray:
     """Continuous P2 gradient by averaging, at every node, the gradients of the elements that share
-    it (nodal-averaging recovery). Returns (2, N) DOF vectors."""
+    it (nodal-averaging recovery). Returns (2, N) DOF vectors.
+
+    Kept on ``basis`` (the nodal basis, and the result for the last few fields by identity): the
+    adaptive indicator and the shear peak recover the same fields on the same basis."""
     from skfem import CellBasis, ElementTriP2
 
-    e = ElementTriP2()
-    ref = np.asarray(e.doflocs, float).T  # (2, 6) reference nodes in DOF order
-    nb = CellBasis(basis.mesh, e, mapping=basis.mapping, quadrature=(ref, np.full(ref.shape[1], 1.0 / ref.shape[1])))
+    memo = basis.__dict__.setdefault("_recovered_gradients", [])
+    for field, done in memo:
+        if field is u:
+            return done.copy()
+    nb = basis.__dict__.get("_nodal_p2_basis")
+    if nb is None:
+        e = ElementTriP2()
+        ref = np.asarray(e.doflocs, float).T  # (2, 6) reference nodes in DOF order
+        nb = CellBasis(basis.mesh, e, mapping=basis.mapping,
+                       quadrature=(ref, np.full(ref.shape[1], 1.0 / ref.shape[1])))
+        basis.__dict__["_nodal_p2_basis"] = nb
     g = np.asarray(nb.interpolate(u).grad)  # (2, nel, 6)
     dofs = nb.element_dofs  # (6, nel)
     out = np.zeros((2, basis.N))
@@ -37,7 +48,10 @@ def recovered_gradient(basis: Basis, u: np.ndarray) -> np.ndarray:
     for i in range(2):
         np.add.at(out[i], dofs.T, g[i])
     np.add.at(count, dofs.T, 1.0)
-    return out / np.maximum(count, 1.0)
+    out /= np.maximum(count, 1.0)
+    memo.append((u, out))
+    del memo[:-4]
+    return out.copy()
 
 
 def recovery_indicator(basis: Basis, u: np.ndarray) -> np.ndarray:

@@ -3,14 +3,14 @@
 from __future__ import annotations
 
 from ..case.case import read_input_file
-from .figures import all_figures
 from .headline import csv_text, headline_rows
-from .report_html import render
 from .vtu import fields_of
 
 
 def report_files(a, res: dict, date: str | None = None) -> dict[str, str | bytes]:
     """``{relative name: text or bytes}`` of the report for the analysis ``a`` and its results ``res``."""
+    from .figures import all_figures  # noqa: PLC0415  lazy import of a slow dependency: matplotlib (~0.8 s), only when a report is drawn
+    from .report_html import render  # noqa: PLC0415  lazy import of a slow dependency (it reaches matplotlib through .figures)
     figs = all_figures(a, res, fields_of(a) if a.extra.get("combined") else {})
     case_text = read_input_file(a.case.path, "case") if a.case.path is not None else None
     out: dict[str, str | bytes] = {

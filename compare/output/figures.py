@@ -39,11 +39,16 @@ class Figure:
 
     def __init__(self, name: str, title: str, fig):
         self.name, self.title = name, title
+        # one layout pass for both files: the tight box is found once (at the PNG's resolution, so the
+        # PNG is what bbox_inches="tight" gives) and handed to both saves, instead of a layout per save
+        fig.dpi = matplotlib.rcParams["savefig.dpi"]
+        fig.draw_without_rendering()
+        box = fig.get_tightbbox(fig.canvas.get_renderer()).padded(matplotlib.rcParams["savefig.pad_inches"])
         buf = io.BytesIO()
-        fig.savefig(buf, format="svg", bbox_inches="tight", metadata={"Date": None})
+        fig.savefig(buf, format="svg", bbox_inches=box, metadata={"Date": None})
         self.svg = buf.getvalue().decode("utf-8")
         buf = io.BytesIO()
-        fig.savefig(buf, format="png", bbox_inches="tight", metadata={"Software": None})
+        fig.savefig(buf, format="png", bbox_inches=box, metadata={"Software": None})
         self.png = buf.getvalue()
         plt.close(fig)
 

@@ -9,9 +9,6 @@ from __future__ import annotations
 import sys
 from contextlib import contextmanager
 
-from rich.console import Console
-from rich.progress import BarColumn, Progress, SpinnerColumn, TextColumn, TimeElapsedColumn
-from rich.table import Table
 
 from ..solve.progress import listening
 from .headline import headline_rows
@@ -97,6 +94,9 @@ def print_summary(res: dict, system, written=(), verbose: bool = False, file=Non
     if not file.isatty():
         print(plain_summary(res, system, written), file=file)
         return
+    from rich.console import Console  # noqa: PLC0415  lazy import of a slow dependency: rich only when drawing on a terminal
+    from rich.table import Table  # noqa: PLC0415  lazy import of a slow dependency (rich)
+
     con = Console(file=file, highlight=False)
     for i, line in enumerate(headline(res, system)):
         style = "bold red" if line.startswith(("WARNING", "VERDICT: none", "VERDICT: DOES")) else (
@@ -124,6 +124,10 @@ def progress_bar(quiet: bool = False, stream=None):
     if quiet or not stream.isatty():
         yield
         return
+    from rich.console import Console  # noqa: PLC0415  lazy import of a slow dependency: rich only when drawing on a terminal
+    from rich.progress import (  # noqa: PLC0415  lazy import of a slow dependency (rich)
+        BarColumn, Progress, SpinnerColumn, TextColumn, TimeElapsedColumn)
+
     con = Console(file=stream)
     with Progress(SpinnerColumn(), TextColumn("{task.description}"), BarColumn(), TextColumn("{task.completed} meshes"),
                   TimeElapsedColumn(), console=con, transient=True) as prog:
