@@ -38,7 +38,7 @@ def test_elementary_values_from_vq_ib():
 def _hollow_round_flexure(nu, R, Ri, V):
     """Exact Saint-Venant flexure stresses of a (hollow) round bar, derived here [D].
 
-    Shear-function form (as in DESIGN-NOTES, Vy alone, Ixy = 0): del^2 F = -2 y,
+    Shear-function form (Pilkey, Analysis and Design of Elastic Beams, 2002; Vy alone, Ixy = 0): del^2 F = -2 y,
     dF/dn = nu n.(xy, -(x^2-y^2)/2) on both circles, tau = V/(2(1+nu)I) (grad F - h).
     In polar form F = (-r^3/4 + B r + C/r) sin(theta) with
     B = (3+2nu)(R^2+Ri^2)/4, C = (3+2nu) R^2 Ri^2/4 satisfies both boundary conditions.
