@@ -32,6 +32,7 @@ from .outlines import parse_file_shape, parse_spline
 from .shaft import Shaft, check_with_case, parse_shaft
 from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
 from .units import UnitSystem, from_si, to_si, unit_system
+from .fields import known as _known, angle as _angle
 
 if sys.version_info >= (3, 11):
     import tomllib
@@ -608,16 +609,6 @@ def parse_fatigue(d: dict, units) -> Fatigue:
 # ----------------------------------------------------------------------------- helpers
 
 
-def _known(d, allowed: set, where: str) -> None:
-    if not isinstance(d, dict):
-        raise InputError(where or "case file", d, "must be a table")
-    for k in d:
-        if k not in allowed:
-            name = f"{where}.{k}" if where else k
-            raise InputError(name, d[k] if not isinstance(d[k], dict) else None,
-                             f"unknown key (expected one of: {', '.join(sorted(allowed))})")
-
-
 def _req(d: dict, key: str, where: str):
     if key not in d:
         raise InputError(f"{where}.{key}", None, "is required")
@@ -634,15 +625,6 @@ def _list(v, name):
     if not isinstance(v, list) or (name.endswith("add") and not v):
         raise InputError(name, v, "must be a non-empty list of primitives" if name.endswith("add") else "must be a list of primitives")
     return v
-
-
-def _angle(v, name) -> float:
-    """Degrees: a plain number is degrees; a string may carry deg or rad."""
-    if isinstance(v, (int, float)) and not isinstance(v, bool):
-        if not math.isfinite(v):
-            raise InputError(name, v, "is not a finite angle")
-        return float(v)
-    return math.degrees(to_si(v, "angle", name, None))
 
 
 def _text(v, name) -> str:

@@ -13,6 +13,7 @@ from fem.outline_import import cad_section, dxf_section, mesh_file_section
 from fem.splines import ISO14, ISO14_SOURCE, involute_spline_section, straight_spline_section
 
 from .units import UnitSystem, to_si
+from .fields import known as _known
 
 SPLINE_KEYS = {"involute": {"shape", "form", "teeth", "module", "diametral_pitch", "pressure_angle", "major_diameter",
                             "minor_diameter", "root", "fillet", "bore", "tooth_thickness"},
@@ -23,13 +24,6 @@ FILE_KEYS = {"dxf": {"shape", "file", "units", "layer"}, "step": {"shape", "file
 #: Mesh formats meshio reads as text (by file suffix); binary files are refused by the bounded reader.
 MESH_SUFFIXES = (".msh", ".vtk", ".vtu", ".obj", ".off", ".stl", ".ply", ".mesh", ".xdmf", ".inp", ".su2")
 INCH = 0.0254  # m, exact (international inch, 1959)
-
-
-def _known(d: dict, allowed: set, where: str) -> None:
-    for k in d:
-        if k not in allowed:
-            raise InputError(f"{where}.{k}", d[k] if not isinstance(d[k], dict) else None,
-                             f"unknown key (expected one of: {', '.join(sorted(allowed))})")
 
 
 def _whole(s, key):

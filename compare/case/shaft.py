@@ -76,6 +76,7 @@ from dataclasses import dataclass, field
 from fem.errors import InputError, escape_text
 
 from .units import to_si
+from .fields import known as _known, angle as _angle
 
 #: Relative tolerance of the torque balance: the torques of the loads must sum to zero within this
 #: share of the largest one. Values typed with 4-6 figures balance far better than this; a torque
@@ -441,15 +442,6 @@ def check_with_case(sh: Shaft, raw_loads: dict, material) -> None:
 # ----------------------------------------------------------------------------- helpers
 
 
-def _known(d, allowed: set, where: str) -> None:
-    if not isinstance(d, dict):
-        raise InputError(where, d, "must be a table")
-    for k in d:
-        if k not in allowed:
-            raise InputError(f"{where}.{k}", d[k] if not isinstance(d[k], dict) else None,
-                             f"unknown key (expected one of: {', '.join(sorted(allowed))})")
-
-
 def _req(d: dict, key: str, where: str):
     if key not in d:
         raise InputError(f"{where}.{key}", None, "is required")
@@ -502,15 +494,6 @@ def _pair(d, key, dim, where, units) -> tuple[float, float]:
     if not isinstance(v, list) or len(v) != 2:
         raise InputError(f"{where}.{key}", v, "must be a pair [x, y]")
     return (to_si(v[0], dim, f"{where}.{key}[0]", units), to_si(v[1], dim, f"{where}.{key}[1]", units))
-
-
-def _angle(v, name) -> float:
-    """Degrees: a plain number is degrees; a string may carry deg or rad."""
-    if isinstance(v, (int, float)) and not isinstance(v, bool):
-        if not math.isfinite(v):
-            raise InputError(name, v, "is not a finite angle")
-        return float(v)
-    return math.degrees(to_si(v, "angle", name, None))
 
 
 def _name(d, where) -> str:

@@ -17,6 +17,7 @@ from fem.geometry import Keyway, keyed_section
 from fem.shapes import Flat, cross_slot_section, flatted_section, hexagon_drive, square_drive
 
 from .units import to_si
+from .fields import known as _known, angle as _angle
 
 GIVEN = "given"
 #: The shapes parsed here besides "keyed", with the keys each accepts.
@@ -28,23 +29,6 @@ SHAPE_KEYS = {
 }
 KEYWAY_KEYS = {"width", "depth", "fillet", "angle", "length", "standard"}
 STANDARDS = ("metric", "inch")
-
-
-def _known(d, allowed: set, where: str) -> None:
-    if not isinstance(d, dict):
-        raise InputError(where, d, "must be a table")
-    for k in d:
-        if k not in allowed:
-            raise InputError(f"{where}.{k}", d[k] if not isinstance(d[k], dict) else None,
-                             f"unknown key (expected one of: {', '.join(sorted(allowed))})")
-
-
-def _angle(v, name) -> float:
-    if isinstance(v, (int, float)) and not isinstance(v, bool):
-        if not math.isfinite(v):
-            raise InputError(name, v, "is not a finite angle")
-        return float(v)
-    return math.degrees(to_si(v, "angle", name, None))
 
 
 def _length(d: dict, key: str, where: str, units, required=True, default=None):
