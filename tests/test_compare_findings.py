@@ -34,10 +34,11 @@ materials = "{materials}"
 """
 
 
-def _run(run_cli, tmp_path, text, name="case"):
+def _run(run_cli, tmp_path, text, name="case", verbose=True):
     p = tmp_path / f"{name}.toml"
     p.write_text(text)
-    code, out, err = run_cli("run", "--no-report", "--verbose", str(p), "--out", str(tmp_path / name), "--no-vtu")
+    code, out, err = run_cli("run", "--no-report", *(["--verbose"] if verbose else []), str(p), "--out",
+                             str(tmp_path / name), "--no-vtu")
     res = json.loads((tmp_path / name / "results.json").read_text())
     return code, out, err, res
 
@@ -155,3 +156,18 @@ accuracy = "1 %"
     kb = res["fatigue"]["factors"]["kb"]["source"]
     assert "d = 1.125 in" in kb
     assert "π(D⁴−d⁴)" in res["fatigue"]["hand"]["Kts_source"]
+
+
+def test_a_pass_is_not_presented_when_the_2d_model_does_not_describe_the_feature(run_cli, tmp_path, materials):
+    # The slit tube of the test above under a small torque: every factor is above the design factor, but the
+    # open-section warning says the 2-D model is not the part, so no "PASSES" and no material "meets".
+    text = TUBE.replace('torque = "300 N*m"', 'torque = "20 N*m"').replace(
+        '[analysis]\naccuracy = "1 %"\n', f'[analysis]\naccuracy = "1 %"\ndesign_factor = 1.5\nmaterials = "{materials}"\n')
+    code, out, _, res = _run(run_cli, tmp_path, text, verbose=False)
+    gov = res["governing"]
+    assert gov["factor"] > 1.5 and gov["meets_design_factor"] is True and gov["verdict_supported"] is False
+    assert "NOT a verdict" in gov["text"] and "meets the design factor" not in gov["text"]
+    verdict = next(x for x in out.splitlines() if x.startswith("VERDICT"))
+    assert verdict.startswith("VERDICT: NOT SHOWN") and "PASSES" not in verdict
+    assert all(m["meets"] is not True for m in res["materials"])
+    assert "meets" not in [x.rsplit(": ", 1)[-1] for x in out.splitlines()]

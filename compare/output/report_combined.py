@@ -146,7 +146,8 @@ def combined_lines(res: dict, f) -> list[str]:
         out += ["", f"Materials ({mats[0]['table']}{ill}), design factor {mats[0]['design_factor']:g}, ranked by margin"]
         for e in mats:
             if e.get("no_verdict"):
-                verdict = "no verdict (unbounded stress at a sharp corner)"
+                verdict = (f"no verdict ({e['no_verdict']})" if isinstance(e["no_verdict"], str)
+                           else "no verdict (unbounded stress at a sharp corner)")
             elif e["meets"] is True:
                 verdict = "meets"
             elif e["meets"] is False:

@@ -177,7 +177,8 @@ def _materials(res: dict) -> str:
     rows = []
     for m in mats:
         if m.get("no_verdict"):
-            verdict = "no verdict (unbounded stress at a sharp corner)"
+            verdict = (f"no verdict ({m['no_verdict']})" if isinstance(m["no_verdict"], str)
+                       else "no verdict (unbounded stress at a sharp corner)")
         else:
             verdict = {True: "meets", False: "does not meet", None: "incomplete check"}[m["meets"]]
         rows.append((m["rank"], m["name"], _num(m["factor"], 3),

@@ -99,9 +99,33 @@ def build_results(a: Analysis) -> dict:
         else:
             out["governing"] = _with_text(gov, governing_text(gov, out.get("fatigue", {}), Fmt(case.units)))
     out["warnings"] = warnings_out(a)
+    _qualify_pass(out)
     add_shaft_results(out, a, build_results)  # the shaft layout's blocks, if the case has one
     add_feature_results(out, a)  # shaft.features: shoulders and grooves
     return _clean(out)
+
+
+#: Warnings after which "meets the design factor" is not a verdict the numbers support: the accuracy was
+#: not shown, the solution failed a self-check, or the 2-D model does not describe the feature.
+UNSUPPORTED_PASS = ("accuracy_not_met", "self_check_failed", "open_section", "short_feature")
+
+
+def _qualify_pass(out: dict) -> None:
+    """A governing factor above the design factor is not presented as a pass when a warning says the
+    numbers cannot support it: ``governing.verdict_supported`` is False and the sentence says why."""
+    gov = out.get("governing")
+    if not gov or gov.get("no_verdict") or not gov.get("meets_design_factor"):
+        return
+    why = [w["code"] for w in out.get("warnings", []) if w["code"] in UNSUPPORTED_PASS]
+    gov["verdict_supported"] = not why
+    for m in out.get("materials") or []:
+        if why and m.get("meets") is True:
+            m["meets"] = None
+            m["no_verdict"] = "the warnings above say the numbers cannot support a pass"
+    if why and gov.get("text"):
+        nd = gov.get("design_factor")
+        gov["text"] = gov["text"].replace(f"(meets the design factor {nd:g})",
+                                          f"(above the design factor {nd:g}, but NOT a verdict: see the warnings)")
 
 
 def warnings_out(a: Analysis) -> list[dict]:

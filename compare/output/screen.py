@@ -39,6 +39,9 @@ def headline(res: dict, system) -> list[str]:
         else:
             word = "PASSES" if gov["factor"] >= nd else "DOES NOT PASS"
             word += f" the design factor {nd:g} (margin n/nd = {gov['factor'] / nd:.3g})"
+            if gov.get("verdict_supported") is False:  # compare/output/results.py UNSUPPORTED_PASS
+                word = (f"NOT SHOWN — n = {gov['factor']:.3g} is above the design factor {nd:g}, but the warnings "
+                        "above say the numbers cannot support a pass")
         out.append(f"VERDICT: {word}")
         out.append(f"  lowest {gov['text']}")
     else:
