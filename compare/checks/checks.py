@@ -95,17 +95,7 @@ def static_check(a, fld: Field, cyc: Cycle, worst: dict, skipped: dict, material
                     points_out.append(e)
     if nd is not None and out["criteria"]:
         out["design_factor"] = nd
-        req = {}
-        if "von_mises" in out:
-            req["yield_von_mises"] = nd * out["strengths"]["yield"] / out["von_mises"]
-            req["yield_tresca"] = nd * out["strengths"]["yield"] / out["tresca"]
-        for name in ("coulomb_mohr", "modified_mohr"):
-            if name in out:
-                k = nd / out[name]
-                req[f"ultimate_{name}"] = {"ultimate": k * m.ultimate, "compressive_ultimate": k * m.compressive_ultimate,
-                                           "note": "both strengths scaled together (the material's Suc/Sut kept)"}
-        out["required_strength"] = req
-        out["meets_design_factor"] = {c: bool(out[c] >= nd) for c in out["criteria"]}
+        set_required_strength(out, nd, m)
     elif nd is None and out["criteria"]:
         sk["required_strength"] = "analysis.design_factor is not given"
     out["skipped"] = sk
@@ -119,6 +109,22 @@ def _length_text(d: float, units) -> str:
     """A length for a source line, in the case's own unit (SI inside)."""
     s = units or SYSTEMS["mm-N-MPa"]
     return f"{from_si(d, 'length', s):.4g} {s.label('length')}"
+
+
+def set_required_strength(out: dict, nd: float, m, req: dict | None = None) -> None:
+    """Fill a static-check record's ``required_strength`` (the strengths that would just give the design
+    factor ``nd``, added to ``req`` if given) and ``meets_design_factor`` from its factors."""
+    req = {} if req is None else req
+    if "von_mises" in out:
+        req["yield_von_mises"] = nd * out["strengths"]["yield"] / out["von_mises"]
+        req["yield_tresca"] = nd * out["strengths"]["yield"] / out["tresca"]
+    for name in ("coulomb_mohr", "modified_mohr"):
+        if name in out:
+            k = nd / out[name]
+            req[f"ultimate_{name}"] = {"ultimate": k * m.ultimate, "compressive_ultimate": k * m.compressive_ultimate,
+                                       "note": "both strengths scaled together (the material's Suc/Sut kept)"}
+    out["required_strength"] = req
+    out["meets_design_factor"] = {c: bool(out[c] >= nd) for c in out["criteria"]}
 
 
 def shaft_diameter(a, fld: Field) -> tuple[float, str]:

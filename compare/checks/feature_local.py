@@ -33,7 +33,7 @@ import numpy as np
 from classic import stress as cs
 from fem.axisym import nominal_stress
 
-from .checks import SHIGLEY, _fe_factors, governing, required_endurance
+from .checks import SHIGLEY, _fe_factors, governing, required_endurance, set_required_strength
 
 #: Angles per turn of the θ (standing shaft) and ψ (rotating shaft) scans.
 N_ANGLES = 720
@@ -143,17 +143,7 @@ def fillet_fe_path(a, local: dict, keep_section_min: bool = False) -> dict:
         st["fe_local"] = rec
         nd = case.analysis.design_factor
         if nd is not None:
-            req = st.get("required_strength") or {}
-            if "von_mises" in st:
-                req["yield_von_mises"] = nd * st["strengths"]["yield"] / st["von_mises"]
-                req["yield_tresca"] = nd * st["strengths"]["yield"] / st["tresca"]
-            for name in ("coulomb_mohr", "modified_mohr"):
-                if name in st:
-                    k_ = nd / st[name]
-                    req[f"ultimate_{name}"] = {"ultimate": k_ * m.ultimate, "compressive_ultimate": k_ * m.compressive_ultimate,
-                                               "note": "both strengths scaled together (the material's Suc/Sut kept)"}
-            st["required_strength"] = req
-            st["meets_design_factor"] = {c: bool(st[c] >= nd) for c in st["criteria"]}
+            set_required_strength(st, nd, m, st.get("required_strength") or {})
     ft = a.extra.get("fatigue") or {}
     if ft and "skipped" not in ft:
         facs = _fe_factors(SimpleNamespace(sa=fs["sa"], sm=fs["sm"]), np.arange(len(fs["sa"])), ft["Se"], m.ultimate,
