@@ -36,7 +36,7 @@ from . import forms
 from .errors import InputError
 from .gmshload import initialize as initialize_gmsh, load_gmsh
 from .linalg import solve_spd
-from .mesh import BOUNDARY_POINTS, boundary_mapping
+from .mesh import BOUNDARY_POINTS, boundary_mapping, gmsh_p2_mesh
 
 #: Elements along the smaller diameter at fineness 1 (global size d/ACROSS).
 ACROSS = 6.0
@@ -285,41 +285,10 @@ def mesh_profile(profile: Profile, fineness: float = 1.0) -> MeridianMesh:
 
 
 def _to_skfem(gmsh, names: dict[str, list[int]], scale: float) -> MeshTri2:
-    tags, coords, _ = gmsh.model.mesh.getNodes()
-    xy = np.reshape(coords, (-1, 3))[:, :2]
-    index = np.full(int(tags.max()) + 1, -1, dtype=np.int64)
-    index[tags.astype(np.int64)] = np.arange(len(tags))
-    _, enodes = gmsh.model.mesh.getElementsByType(9)  # 6-node triangles
-    if len(enodes) == 0:
-        raise InputError("shaft", None, "gmsh produced no second-order triangles")
-    t = index[np.asarray(enodes, dtype=np.int64)].reshape(-1, 6).T
-    used = np.unique(t)
-    remap = np.full(len(xy), -1, dtype=np.int64)
-    remap[used] = np.arange(len(used))
-    t = remap[t]
-    p = xy[used].T * scale
-    a, b, c = p[:, t[0]], p[:, t[1]], p[:, t[2]]
-    cw = ((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])) < 0
-    if np.any(cw):
-        t[:, cw] = t[[0, 2, 1, 5, 4, 3]][:, cw]
-    corner_nodes = np.unique(t[:3])
-    vertex_of = np.full(p.shape[1], -1, dtype=np.int64)
-    vertex_of[corner_nodes] = np.arange(len(corner_nodes))
-    mesh = MeshTri2(p, t)
-    bf = mesh.boundary_facets()
-    fkey = {tuple(sorted(mesh.facets[:, f])): f for f in bf}
-    named = {}
-    for name, ctags in names.items():
-        sel = []
-        for ctag in ctags:
-            _, lnodes = gmsh.model.mesh.getElementsByType(8, ctag)
-            ln = remap[index[np.asarray(lnodes, dtype=np.int64)]].reshape(-1, 3)
-            for a_, b_, _m in ln:
-                f_ = fkey.get(tuple(sorted((int(vertex_of[a_]), int(vertex_of[b_])))))
-                if f_ is not None:
-                    sel.append(int(f_))
-        named[name] = np.unique(np.array(sel, dtype=np.int64))
-    if sum(len(v) for v in named.values()) != len(bf):
+    mesh, facets_on = gmsh_p2_mesh(gmsh, lambda xy: xy * scale, "shaft")
+    named = {name: np.unique(np.array([f for ctag in ctags for f in facets_on(ctag)], dtype=np.int64))
+             for name, ctags in names.items()}
+    if sum(len(v) for v in named.values()) != len(mesh.boundary_facets()):
         raise InputError("shaft", None, "could not match every boundary facet to a boundary curve")
     return mesh.with_boundaries(named)
 

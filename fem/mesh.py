@@ -302,21 +302,25 @@ def _set_sizes(gmsh, info: BoundaryInfo, o: MeshOptions, h: float, size_field) -
         f.setAsBackgroundMesh(m)
 
 
-def _to_skfem(gmsh, info: BoundaryInfo, frame: Frame):
+def gmsh_p2_mesh(gmsh, to_metres, field: str):
+    """gmsh's 6-node triangles as a :class:`MeshTri2` with counter-clockwise vertices (node coordinates
+    mapped by ``to_metres``, a function of a (2, n) array), and ``facets_on(curve_tag)``: the boundary
+    facets that lie on one gmsh curve. ``field`` names the case-file field of the error raised when
+    gmsh made no second-order triangles."""
     tags, coords, _ = gmsh.model.mesh.getNodes()
     xy = np.reshape(coords, (-1, 3))[:, :2]
     index = np.full(int(tags.max()) + 1, -1, dtype=np.int64)
     index[tags.astype(np.int64)] = np.arange(len(tags))
     etags, enodes = gmsh.model.mesh.getElementsByType(9)  # 6-node triangles
     if len(etags) == 0:
-        raise InputError("section", None, "gmsh produced no second-order triangles")
+        raise InputError(field, None, "gmsh produced no second-order triangles")
     t = index[np.asarray(enodes, dtype=np.int64)].reshape(-1, 6).T
     used = np.unique(t)
     remap = np.full(len(xy), -1, dtype=np.int64)
     remap[used] = np.arange(len(used))
     t = remap[t]
-    p = frame.from_frame(xy[used].T)  # back to metres
-    # counter-clockwise vertices (the exact geometry is in the z = 0 plane, normal +z)
+    p = to_metres(xy[used].T)
+    # counter-clockwise vertices (the geometry is in the z = 0 plane, normal +z)
     a, b, c = p[:, t[0]], p[:, t[1]], p[:, t[2]]
     cw = ((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])) < 0
     if np.any(cw):
@@ -325,23 +329,31 @@ def _to_skfem(gmsh, info: BoundaryInfo, frame: Frame):
     vertex_of = np.full(p.shape[1], -1, dtype=np.int64)
     vertex_of[corner_nodes] = np.arange(len(corner_nodes))  # MeshTri2 numbers vertices this way
     mesh = MeshTri2(p, t)
-    # named boundaries: which loop and which exact curve each boundary facet lies on
-    bf = mesh.boundary_facets()
-    fkey = {tuple(sorted(mesh.facets[:, f])): f for f in bf}
-    facet_curve: dict[int, int] = {}
-    for ctag, curve in info.curves.items():
+    fkey = {tuple(sorted(mesh.facets[:, f])): f for f in mesh.boundary_facets()}
+
+    def facets_on(ctag: int) -> list[int]:
         _, lnodes = gmsh.model.mesh.getElementsByType(8, ctag)  # 3-node lines on that curve
         ln = remap[index[np.asarray(lnodes, dtype=np.int64)]].reshape(-1, 3)
+        out = []
         for a_, b_, _m in ln:
             f_ = fkey.get(tuple(sorted((int(vertex_of[a_]), int(vertex_of[b_])))))
             if f_ is not None:
-                facet_curve[int(f_)] = ctag
+                out.append(int(f_))
+        return out
+
+    return mesh, facets_on
+
+
+def _to_skfem(gmsh, info: BoundaryInfo, frame: Frame):
+    mesh, facets_on = gmsh_p2_mesh(gmsh, frame.from_frame, "section")  # back to metres
+    # named boundaries: which loop and which exact curve each boundary facet lies on
+    facet_curve: dict[int, int] = {f: ctag for ctag in info.curves for f in facets_on(ctag)}
     names = {}
     loop_of = {ct: cv.loop for ct, cv in info.curves.items()}
     for li in range(len(info.loops)):
         sel = np.array([f for f, ct in facet_curve.items() if loop_of[ct] == li], dtype=np.int64)
         names["outer" if li == 0 else f"hole{li}"] = np.sort(sel)
-    if sum(len(v) for v in names.values()) != len(bf):
+    if sum(len(v) for v in names.values()) != len(mesh.boundary_facets()):
         raise InputError("section", None, "could not match every boundary facet to a boundary curve")
     mesh = mesh.with_boundaries(names)
     return mesh, facet_curve
