@@ -50,6 +50,60 @@ _LAYOUT_LABELS = {"kg/m**3": "kg/m³", "kg*m**2": "kg·m²", "N/mm": "N/mm", "N/
                   "lb*inch**2": "lb·in²", "lbf/inch": "lbf/in", "rpm": "rpm", "kg": "kg", "lb": "lb"}
 
 
+#: The units a case commonly writes, each with pint's own factor to SI and back, as pint 0.25 gives them
+#: (``Quantity(1.0, unit).to(si)`` and the reverse; checked bit for bit against pint by
+#: tests/test_compare_units.py). pint converts a multiplicative unit with one multiplication by
+#: that factor, so these give exactly pint's result without loading pint, which takes about 0.3 s of
+#: every run. Any other unit, and every temperature, goes through pint.
+_FACTORS = {
+    ("mm", "length"): (0.001, 1000.0),
+    ("m", "length"): (1.0, 1.0),
+    ("inch", "length"): (0.0254, 39.37007874015748),
+    ("in", "length"): (0.0254, 39.37007874015748),
+    ("cm", "length"): (0.01, 100.0),
+    ("ft", "length"): (0.30479999999999996, 3.2808398950131235),
+    ("N", "force"): (1.0, 1.0),
+    ("kN", "force"): (1000.0, 0.001),
+    ("lbf", "force"): (4.4482216152605005, 0.22480894309971053),
+    ("kip", "force"): (4448.221615260501, 0.00022480894309971047),
+    ("Pa", "stress"): (1.0, 1.0),
+    ("kPa", "stress"): (1000.0, 0.001),
+    ("MPa", "stress"): (1000000.0, 1e-06),
+    ("GPa", "stress"): (1000000000.0, 1e-09),
+    ("psi", "stress"): (6894.7572931683635, 0.0001450377377302092),
+    ("ksi", "stress"): (6894757.293168363, 1.4503773773020921e-07),
+    ("N*m", "moment"): (1.0, 1.0),
+    ("N*mm", "moment"): (0.001, 1000.0),
+    ("kN*m", "moment"): (1000.0, 0.001),
+    ("lbf*in", "moment"): (0.11298482902761671, 8.850745791327187),
+    ("lbf*inch", "moment"): (0.11298482902761671, 8.850745791327187),
+    ("lbf*ft", "moment"): (1.3558179483314006, 0.7375621492772655),
+    ("deg", "angle"): (0.017453292519943295, 57.29577951308232),
+    ("rad", "angle"): (1.0, 1.0),
+    ("rpm", "angular_speed"): (0.10471975511965977, 9.549296585513721),
+    ("rad/s", "angular_speed"): (1.0, 1.0),
+    ("kg", "mass"): (1.0, 1.0),
+    ("g", "mass"): (0.001, 1000.0),
+    ("lb", "mass"): (0.4535923700000001, 2.2046226218487757),
+    ("kg/m**3", "density"): (1.0, 1.0),
+    ("lb/inch**3", "density"): (27679.90471020313, 3.6127292000083674e-05),
+    ("kg*m**2", "mass_inertia"): (1.0, 1.0),
+    ("lb*inch**2", "mass_inertia"): (0.0002926396534292, 3417.1718982093994),
+    ("N/mm", "stiffness"): (1000.0, 0.001),
+    ("N/m", "stiffness"): (1.0, 1.0),
+    ("lbf/inch", "stiffness"): (175.12683524647645, 0.0057101471547326465),
+    ("deg/mm", "twist"): (17.453292519943297, 0.057295779513082325),
+    ("deg/m", "twist"): (0.017453292519943295, 57.29577951308232),
+    ("deg/inch", "twist"): (0.6871375007851691, 1.455312799632291),
+    ("mm**2", "area"): (1e-06, 1000000.0),
+    ("inch**2", "area"): (0.00064516, 1550.0031000062002),
+    ("m**2", "area"): (1.0, 1.0),
+    ("mm**4", "second_moment"): (1.0000000000000002e-12, 999999999999.9999),
+    ("inch**4", "second_moment"): (4.1623142559999997e-07, 2402509.610028831),
+    ("m**4", "second_moment"): (1.0, 1.0),
+}
+
+
 @dataclass(frozen=True)
 class UnitSystem:
     name: str
@@ -167,16 +221,19 @@ def _to_si(value, dimension: str, field: str, system: UnitSystem | None) -> floa
 
 
 def _convert(text: str, dimension: str, field: str) -> float:
-    u = ureg()
     # pint evaluates powers: "1 mm**9**9**9" would run for ever. Units need small whole powers only.
     powers = re.findall(r"(?:\*\*|\^)\s*\(?\s*[-+]?\s*([0-9.]*)", text)
     if len(text) > 80 or re.search(r"(?:\*\*|\^)[^*^/a-zA-Z]*(?:\*\*|\^)", text) or any(
             not p or len(p) > 2 for p in powers):
         raise InputError(field, text, "cannot be read as a quantity with a unit (write a number and a unit, "
                          "e.g. \"25 mm\", \"150 N*m\", \"1 mm**4\")")
+    # number and unit apart: pint refuses offset units (°C) inside an expression like "80 degC"
+    m = re.fullmatch(r"\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*?)\s*", text)
+    if m and (m.group(2), dimension) in _FACTORS:
+        v = float(m.group(1)) * _FACTORS[m.group(2), dimension][0]  # pint's result, without pint
+        return round_significant(v) if dimension in _ROUNDED else v
+    u = ureg()
     try:
-        # number and unit apart: pint refuses offset units (°C) inside an expression like "80 degC"
-        m = re.fullmatch(r"\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*?)\s*", text)
         q = u.Quantity(float(m.group(1)), m.group(2) or "") if m else u.Quantity(text)
     except Exception:
         raise InputError(field, text, "cannot be read as a quantity with a unit") from None
@@ -196,7 +253,9 @@ def from_si(value: float, dimension: str, system: UnitSystem) -> float:
     """An SI float in the system's unit for ``dimension`` (for reports)."""
     if dimension == "dimensionless":
         return value
-    u = ureg()
     if dimension == "temperature":
         return value
-    return float(u.Quantity(value, SI[dimension]).to(system.unit(dimension)).magnitude)
+    unit = system.unit(dimension)
+    if (unit, dimension) in _FACTORS:
+        return float(value) * _FACTORS[unit, dimension][1]  # pint's result, without pint
+    return float(ureg().Quantity(value, SI[dimension]).to(unit).magnitude)
