@@ -33,6 +33,7 @@ import scipy.sparse as sp
 from skfem import CellBasis, ElementTriP2, ElementVector, FacetBasis, MeshTri2
 
 from . import forms
+from .bases import interpolate
 from .errors import InputError
 from .gmshload import initialize as initialize_gmsh, load_gmsh
 from .linalg import solve_spd
@@ -471,7 +472,7 @@ def _match(basis, a: np.ndarray, b: np.ndarray):
 
 def _stress_at(fb, x, load_case, E, nu, G):
     """(max principal, von Mises, r, z) at the facet basis points; torsion: (τ, √3·τ, r, z)."""
-    u = fb.interpolate(x)
+    u = interpolate(fb, x)
     r, z = np.asarray(fb.global_coordinates())
     if load_case == "torsion":
         g = u.grad
@@ -558,7 +559,7 @@ def feature_stress_components(mm: MeridianMesh, basis, x, load_case: str, E: flo
     for tension (σ_rr, σ_θθ, σ_zz, τ_rz) and torsion (τ_rθ = G·r·∂ω/∂r, τ_θz = G·r·∂ω/∂z)."""
     feature = mm.facets("fillet")
     fb = _facet_basis(mm, basis, feature if len(feature) else mm.facets("surface"))
-    u = fb.interpolate(x)
+    u = interpolate(fb, x)
     r, z = (np.asarray(c) for c in fb.global_coordinates())
     G = E / (2 * (1 + nu))
     lam = E * nu / ((1 + nu) * (1 - 2 * nu))

@@ -11,6 +11,7 @@ from __future__ import annotations
 import numpy as np
 from skfem import Basis
 
+from .bases import interpolate
 from .mesh import SectionMesh
 
 
@@ -41,7 +42,7 @@ def recovered_gradient(basis: Basis, u: np.ndarray) -> np.ndarray:
         nb = CellBasis(basis.mesh, e, mapping=basis.mapping,
                        quadrature=(ref, np.full(ref.shape[1], 1.0 / ref.shape[1])))
         basis.__dict__["_nodal_p2_basis"] = nb
-    g = np.asarray(nb.interpolate(u).grad)  # (2, nel, 6)
+    g = np.asarray(interpolate(nb, u).grad)  # (2, nel, 6)
     dofs = nb.element_dofs  # (6, nel)
     out = np.zeros((2, basis.N))
     count = np.zeros(basis.N)
@@ -56,9 +57,9 @@ def recovered_gradient(basis: Basis, u: np.ndarray) -> np.ndarray:
 
 def recovery_indicator(basis: Basis, u: np.ndarray) -> np.ndarray:
     """Per-element RMS of ∇u − G(∇u), G the recovered (continuous) gradient [unit of ∇u]."""
-    g = basis.interpolate(u).grad
+    g = interpolate(basis, u).grad
     G = recovered_gradient(basis, u)
-    diff2 = (g[0] - np.asarray(basis.interpolate(G[0]))) ** 2 + (g[1] - np.asarray(basis.interpolate(G[1]))) ** 2
+    diff2 = (g[0] - np.asarray(interpolate(basis, G[0]))) ** 2 + (g[1] - np.asarray(interpolate(basis, G[1]))) ** 2
     dx = basis.dx
     return np.sqrt(np.sum(diff2 * dx, axis=1) / np.sum(dx, axis=1))
 

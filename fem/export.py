@@ -10,12 +10,13 @@ from skfem import Basis, ElementTriP2
 from scipy.sparse.linalg import splu
 
 from . import forms
+from .bases import interpolate
 from .mesh import SectionMesh
 
 
 def nodal_gradient(basis: Basis, u: np.ndarray) -> np.ndarray:
     """∇u projected (L2) onto the P2 space: (2, N) nodal values."""
-    g = basis.interpolate(u).grad
+    g = interpolate(basis, u).grad
     return np.vstack([basis.project(g[0]), basis.project(g[1])])
 
 

@@ -9,6 +9,8 @@ import numpy as np
 from scipy.spatial import cKDTree
 from skfem import CellBasis, ElementTriP2, MeshTri1
 
+from .bases import interpolate
+
 
 def _locate(mesh, p: np.ndarray):
     """(element, reference coordinates) of point p, or None if it is outside the mesh."""
@@ -53,7 +55,7 @@ def probe(mesh, u: np.ndarray, points) -> tuple[np.ndarray, np.ndarray]:
             continue
         e, r = hit
         b = CellBasis(mesh, ElementTriP2(), elements=np.array([e]), quadrature=(r[:, None], np.array([1.0])))
-        f = b.interpolate(u)
+        f = interpolate(b, u)
         val[i] = float(np.asarray(f)[0, 0])
         grad[:, i] = np.asarray(f.grad)[:, 0, 0]
     return val, grad

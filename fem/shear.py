@@ -22,6 +22,7 @@ import numpy as np
 from skfem import Basis, CellBasis, ElementTriP2, Functional
 
 from . import forms
+from .bases import interpolate
 from .linalg import solve_spd
 from .mesh import SectionMesh
 from .properties import AreaMoments
@@ -83,7 +84,7 @@ class ShearResult:
         """(τzx, τzy) for (Vx, Vy) through the shear centre, at the quadrature points of ``basis``
         (a basis on the centroidal mesh; default: the solver's)."""
         b = basis or self.basis
-        gp, gf = b.interpolate(self.psi).grad, b.interpolate(self.phi).grad
+        gp, gf = interpolate(b, self.psi).grad, interpolate(b, self.phi).grad
         x = b.global_coordinates()
         ux, uy = self._unit_fields(gp, gf, x)
         return Vx * ux[0] + Vy * uy[0], Vx * ux[1] + Vy * uy[1]
@@ -101,7 +102,7 @@ class ShearResult:
 
     def unit_stresses_at(self, basis):
         """Unit-force stress fields at the points of ``basis``: ((τx, τy) for Vx=1, (τx, τy) for Vy=1)."""
-        gp, gf = basis.interpolate(self.psi).grad, basis.interpolate(self.phi).grad
+        gp, gf = interpolate(basis, self.psi).grad, interpolate(basis, self.phi).grad
         return self._unit_fields(gp, gf, np.asarray(basis.global_coordinates()))
 
 
@@ -180,8 +181,8 @@ def shear_peak(sm: SectionMesh, sr: ShearResult, Vx: float, Vy: float) -> ShearP
     elems = np.flatnonzero((sr.basis.element_dofs == k).any(axis=0))
     lat = _lattice()
     local = CellBasis(cm, ElementTriP2(), elements=elems, quadrature=(lat, np.full(lat.shape[1], 1.0 / lat.shape[1])))
-    gp = np.array([np.asarray(local.interpolate(Gp[i])) for i in range(2)])
-    gf = np.array([np.asarray(local.interpolate(Gf[i])) for i in range(2)])
+    gp = np.array([np.asarray(interpolate(local, Gp[i])) for i in range(2)])
+    gf = np.array([np.asarray(interpolate(local, Gf[i])) for i in range(2)])
     xl = np.asarray(local.global_coordinates())
     (ax, ay), (bx, by) = sr._unit_fields(gp, gf, xl)
     ti = np.hypot(Vx * ax + Vy * bx, Vx * ay + Vy * by)

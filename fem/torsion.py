@@ -24,6 +24,7 @@ import scipy.sparse as sp
 from skfem import Basis, ElementTriP2, FacetBasis, Functional, condense
 
 from . import forms
+from .bases import interpolate
 from .linalg import solve_spd
 from .mesh import SectionMesh, boundary_mapping
 
@@ -60,7 +61,7 @@ class TorsionResult:
 
     def stress(self, T: float, x: np.ndarray | None = None):
         """(τzx, τzy) at the basis quadrature points for torque T [Pa] (``x`` unused: reserved)."""
-        g = self.basis.interpolate(self.phi).grad
+        g = interpolate(self.basis, self.phi).grad
         k = T / self.J
         return k * g[1], -k * g[0]
 
@@ -105,7 +106,7 @@ def boundary_gradients(sm: SectionMesh, u: np.ndarray, points: str = "sample"):
     at the peak-sampling or the Gauss points (see :meth:`SectionMesh.boundary_basis`).
     Arrays of shape (2, nf, np), (2, nf, np) and (nf, np)."""
     fb = sm.boundary_basis(points)
-    return np.asarray(fb.global_coordinates()), fb.interpolate(u).grad, fb.dx
+    return np.asarray(fb.global_coordinates()), interpolate(fb, u).grad, fb.dx
 
 
 def boundary_correction(sm: SectionMesh, tau_sq: np.ndarray, ds: np.ndarray) -> float:
@@ -161,7 +162,7 @@ def solve_torsion(sm: SectionMesh, centroid: tuple[float, float], warping: bool 
     ur = solve_spd(Kr, fr)
     phi = P @ ur
     consts = [float(c) for c in ur[nfree:]]
-    J_mesh = 2.0 * float(forms.integral_of.assemble(basis, u=basis.interpolate(phi))) + 2.0 * float(np.dot(consts, areas))
+    J_mesh = 2.0 * float(forms.integral_of.assemble(basis, u=interpolate(basis, phi))) + 2.0 * float(np.dot(consts, areas))
     t2 = time.perf_counter()
 
     # --- boundary correction and boundary peak, per unit torque
@@ -202,7 +203,7 @@ def add_warping(sm: SectionMesh, tr: TorsionResult, centroid: tuple[float, float
     omega = np.zeros(tr.basis.N)
     Kc, gc, _, I = condense(K, g, D=np.array([0]))
     omega[I] = solve_spd(Kc, gc)
-    J_w_mesh = float(forms.warping_torsion_constant.assemble(cbasis, omega=cbasis.interpolate(omega)))
+    J_w_mesh = float(forms.warping_torsion_constant.assemble(cbasis, omega=interpolate(cbasis, omega)))
 
     def warping_stress(x, gw):  # τ/Gθ from the warping function
         return gw[0] - (x[1] - centroid[1]), gw[1] + (x[0] - centroid[0])

@@ -38,6 +38,7 @@ from skfem import CellBasis, ElementTriP2
 from classic import properties as cp
 from classic import stress as cs
 from classic.fatigue import load_factor
+from fem.bases import interpolate
 from fem.mesh import _boundary_basis
 from fem.shear import _NODES
 from fem.torsion import singular_mask
@@ -101,8 +102,8 @@ def build_field(a) -> Field:
     xb3 = np.asarray(fb.global_coordinates())  # (2, facets, points per facet)
     xb = xb3.reshape(2, -1)
     xi = np.asarray(ib.global_coordinates()).reshape(2, -1)
-    gb = np.asarray(fb.interpolate(tr.phi).grad).reshape(2, -1)
-    gi = np.asarray(ib.interpolate(tr.phi).grad).reshape(2, -1)
+    gb = np.asarray(interpolate(fb, tr.phi).grad).reshape(2, -1)
+    gi = np.asarray(interpolate(ib, tr.phi).grad).reshape(2, -1)
     # interior reads that fall on a boundary node (vertices and edge nodes of boundary facets) are
     # dropped: the boundary is read from each facet's own element, as for every peak in the project
     bdofs = tr.basis.get_dofs().all()

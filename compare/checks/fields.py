@@ -14,6 +14,7 @@ from __future__ import annotations
 import numpy as np
 from classic import fatigue as cf
 from classic import stress as cs
+from fem.bases import interpolate
 from fem.export import projector
 from fem.torsion import singular_mask
 
@@ -30,7 +31,7 @@ def node_field(a) -> Field:
     xc, yc = pr.centroid
     n = xy.shape[1]
     proj_t = projector(tr.basis)
-    gq = tr.basis.interpolate(tr.phi).grad
+    gq = interpolate(tr.basis, tr.phi).grad
     g = np.vstack([proj_t(gq[0]), proj_t(gq[1])])
     S, TX, TY = np.zeros((6, n)), np.zeros((6, n)), np.zeros((6, n))
     S[0] = cs.axial_stress(1.0, pr.area)

@@ -24,6 +24,7 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from classic.gci import convergence_study
+from fem.bases import interpolate
 from fem.errors import LimitError
 from fem.estimate import adapted_sizes, element_sizes, near_points, recovery_indicator, triangles_xy
 from fem.linalg import record_solves, reuse_factorisations
@@ -108,7 +109,7 @@ def indicator(sol: Solution) -> tuple[np.ndarray, np.ndarray]:
     corner."""
     tr = sol.torsion
     peak = tr.peak_per_torque * tr.J
-    w = _weight(tr.basis, peak, lambda b: np.sum(np.asarray(b.interpolate(tr.phi).grad) ** 2, axis=0))
+    w = _weight(tr.basis, peak, lambda b: np.sum(np.asarray(interpolate(b, tr.phi).grad) ** 2, axis=0))
     rel = w * recovery_indicator(tr.basis, tr.phi) / peak
     if sol.shear is not None:
         sr = sol.shear

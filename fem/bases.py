@@ -1,0 +1,22 @@
+"""Field values of a solution at a basis's points, without a needless cost of scikit-fem.
+
+``Basis.interpolate`` first splits the solution into its components (``split_indices``); for a scalar
+element that runs ``np.unique`` over every element's DOFs on every call and then uses none of it
+(scikit-fem 12; the field is built from the basis alone). With numpy 2.4 this took 0.65 s per call
+at a million unknowns and about a tenth of a demo case's solve time (profiled, tests/benchmarks).
+:func:`interpolate` gives the same :class:`~skfem.element.DiscreteField`, bit for bit, without it.
+"""
+from __future__ import annotations
+
+from skfem.element import ElementComposite, ElementVector
+
+
+def _whole() -> list:
+    return [slice(None)]  # the whole vector: one component, the basis itself
+
+
+def interpolate(basis, w):
+    """``basis.interpolate(w)``; for a scalar element the component split is skipped."""
+    if not isinstance(basis.elem, (ElementComposite, ElementVector)) and "split_indices" not in vars(basis):
+        basis.split_indices = _whole
+    return basis.interpolate(w)
