@@ -23,7 +23,6 @@ from __future__ import annotations
 import math
 
 import numpy as np
-from scipy.optimize import brentq
 
 from .errors import InputError
 from .geometry import SLIVER, Disk, Section
@@ -238,6 +237,8 @@ def involute_spline_section(teeth, module, pressure_angle, major_diameter=None, 
             if not (g(t_lo) <= 0 < g(t_hi)):
                 raise InputError("section.fillet", fillet, "the root fillet does not fit between the root circle and the "
                                  "flank below the major diameter")
+            from scipy.optimize import brentq  # noqa: PLC0415  lazy import: ~0.07 s, needed only for a fillet on a flank
+
             t_f = brentq(g, t_lo, t_hi, xtol=1e-15, rtol=1e-15, maxiter=200) if g(t_lo) < 0 else t_lo
             n = flank.tangent(t_f) @ np.array([[0.0, 1.0], [-1.0, 0.0]])
             C = flank.point(t_f) + rho * n
