@@ -85,6 +85,13 @@ def test_figures_in_both_formats(demo):
         assert svg.read_text(encoding="utf-8").lstrip().startswith("<?xml") and "<svg" in svg.read_text(encoding="utf-8")
 
 
+def test_convergence_figure_marks_each_mesh_and_each_decade(demo):
+    svg = (demo["out"] / "figures" / "convergence.svg").read_text(encoding="utf-8")
+    for n in demo["res"]["accuracy"]["meshes"]:  # the x ticks are the meshes' unknowns
+        assert f"{n:,}".replace(",", "\u2009") in svg, n
+    assert "10\u207b" in svg  # decades such as 10⁻⁶ on the error axis
+
+
 def test_csv_parses_and_matches_json(demo):
     res = demo["res"]
     system = SYSTEMS[res["case"]["units"]]

@@ -11,7 +11,7 @@ import matplotlib
 matplotlib.use("Agg")
 import matplotlib.pyplot as plt  # noqa: E402
 import numpy as np  # noqa: E402
-from matplotlib.ticker import LogLocator, NullLocator  # noqa: E402
+from matplotlib.ticker import FixedLocator, FuncFormatter, LogLocator, NullLocator  # noqa: E402
 from matplotlib.tri import LinearTriInterpolator, Triangulation  # noqa: E402
 from skfem import Basis, ElementTriP2  # noqa: E402
 
@@ -361,13 +361,35 @@ def convergence_figure(res) -> Figure | None:
         ax.set_xlabel("unknowns (DOFs)")
         ax.set_ylabel("relative difference [1]" if v.get("relative_to") == "value" else "difference / √A [1]")
         ax.grid(True, which="major")
+        # the x ticks are the meshes themselves (their unknowns); the decades of the y axis are written
+        # with Unicode superscripts, which draws in a third of the time of mathtext's 10^x
+        ax.xaxis.set_major_locator(FixedLocator(d))
+        ax.xaxis.set_major_formatter(FuncFormatter(_count))
+        ax.tick_params(axis="x", labelsize=7)
+        ax.yaxis.set_major_locator(LogLocator(numticks=4))
+        ax.yaxis.set_major_formatter(FuncFormatter(_decade))
         for axis in (ax.xaxis, ax.yaxis):
-            axis.set_major_locator(LogLocator(numticks=4))
             axis.set_minor_locator(NullLocator())
     for ax in list(axes.flat)[len(keys):]:
         ax.axis("off")
     axes.flat[0].legend(loc="lower left", fontsize=6.5)
     return Figure("convergence", "Convergence of each quantity against the number of unknowns", fig)
+
+
+_SUPERSCRIPT = str.maketrans("-0123456789", "\u207b\u2070\u00b9\u00b2\u00b3\u2074\u2075\u2076\u2077\u2078\u2079")
+
+
+def _decade(v: float, _pos=None) -> str:
+    """A tick label of a log axis: '10⁻⁶' at a power of ten, nothing elsewhere."""
+    if not v > 0:
+        return ""
+    e = math.log10(v)
+    return f"10{str(round(e)).translate(_SUPERSCRIPT)}" if abs(e - round(e)) < 1e-9 else ""
+
+
+def _count(v: float, _pos=None) -> str:
+    """A count of unknowns, thousands apart by a thin space: '12 400'."""
+    return f"{v:,.0f}".replace(",", "\u2009")
 
 
 def _n(v: float) -> str:
