@@ -140,8 +140,10 @@ def sweep(n):
     workers = []
     try:
         time.sleep(3)
-        workers = [subprocess.Popen(["dask", "worker", f"tcp://127.0.0.1:{port}", "--nthreads", "1",
-                                     "--no-dashboard"], cwd=ROOT, env=dict(os.environ, PYTHONPATH=str(ROOT)), stdout=subprocess.DEVNULL,
+        # the workers as README starts them: no nanny (so no MALLOC_TRIM_THRESHOLD_) and no profiler
+        env = dict(os.environ, PYTHONPATH=str(ROOT), DASK_DISTRIBUTED__WORKER__PROFILE__ENABLED="False")
+        workers = [subprocess.Popen(["dask", "worker", f"tcp://127.0.0.1:{port}", "--nthreads", "1", "--no-nanny",
+                                     "--no-dashboard"], cwd=ROOT, env=env, stdout=subprocess.DEVNULL,
                                     stderr=subprocess.DEVNULL) for _ in range(2)]
         time.sleep(5)
         _sweep(case, n, ["--scheduler", f"tcp://127.0.0.1:{port}"], "--scheduler (2 dask workers)")
