@@ -216,3 +216,34 @@ def test_two_runs_give_identical_results_apart_from_timings(tmp_path, run_cli, m
             r["case"]["file"] = None
             outs.append(json.dumps(strip(r), sort_keys=True))
         assert outs[0] == outs[1]
+
+
+def test_the_pilot_mesh_is_not_made_twice_and_changes_nothing(tmp_path, run_cli, monkeypatch):
+    """At fineness ≤ 0.5 the pilot (made to keep max_dofs before work) is the first mesh itself: it is
+    solved, not made again, and the results equal those of a run that meshes it afresh."""
+    import compare.solve.accuracy as acc
+
+    def strip(d):
+        if isinstance(d, dict):
+            return {k: strip(v) for k, v in d.items() if k not in ("seconds", "file")}
+        if isinstance(d, list):
+            return [strip(v) for v in d]
+        return d
+
+    calls = []
+    real_mesh = acc.mesh_section
+    monkeypatch.setattr(acc, "mesh_section", lambda s, o=None, f=None: calls.append((o.fineness, f is None)) or real_mesh(s, o, f))
+    text = KEYED + '[analysis]\nfineness = 0.5\naccuracy = "1 %"\n'
+    (tmp_path / "a").mkdir()
+    (tmp_path / "b").mkdir()
+    code, _, err, reused = run(tmp_path / "a", run_cli, text)
+    assert code == 0, err
+    assert calls.count((0.5, True)) == 1  # the pilot, solved as the first mesh
+
+    real_first = acc.first_mesh_dofs
+    monkeypatch.setattr(acc, "first_mesh_dofs", lambda c, f: (real_first(c, f)[0], None))  # mesh it again
+    calls.clear()
+    code, _, err, fresh = run(tmp_path / "b", run_cli, text)
+    assert code == 0, err
+    assert calls.count((0.5, True)) == 2
+    assert json.dumps(strip(reused), sort_keys=True) == json.dumps(strip(fresh), sort_keys=True)

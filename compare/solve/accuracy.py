@@ -62,11 +62,12 @@ class Solution:
         return self.torsion.dofs
 
 
-def solve_on(case, fineness: float, size_field=None, warping: bool = False) -> Solution:
-    """Mesh and solve; the warping check is left out unless asked (the final mesh adds it)."""
+def solve_on(case, fineness: float, size_field=None, warping: bool = False, mesh=None) -> Solution:
+    """Mesh and solve; the warping check is left out unless asked (the final mesh adds it). ``mesh``,
+    if given, is this very mesh made already (the pilot at the same fineness): it is not made again."""
     t0 = time.perf_counter()
     tick("mesh and solve")
-    sm = mesh_section(case.section, MeshOptions(fineness=fineness), size_field)
+    sm = mesh if mesh is not None else mesh_section(case.section, MeshOptions(fineness=fineness), size_field)
     pr = area_moments(sm)
     tr = solve_torsion(sm, pr.centroid, warping=warping)
     sr = pk = None
@@ -74,7 +75,10 @@ def solve_on(case, fineness: float, size_field=None, warping: bool = False) -> S
         sr = solve_shear(sm, pr, case.material.poisson)
         Vx, Vy = case.loads.shear if case.loads.shear else (0.0, 1.0)
         pk = shear_peak(sm, sr, Vx, Vy)
-    return Solution(sm, pr, tr, sr, pk, (fineness, size_field), time.perf_counter() - t0, case.loads.shear is not None)
+    # a mesh made earlier still counts its meshing time: later steps are predicted from this one
+    made = mesh.seconds if mesh is not None else 0.0
+    return Solution(sm, pr, tr, sr, pk, (fineness, size_field), time.perf_counter() - t0 + made,
+                    case.loads.shear is not None)
 
 
 def quantities(sol: Solution) -> dict[str, float]:
@@ -162,21 +166,22 @@ def _predict_seconds(sol: Solution, dofs: float) -> float:
     return sol.seconds * (max(dofs, 1.0) / sol.dofs) ** COST_EXPONENT
 
 
-def first_mesh_dofs(case, fineness: float) -> int:
+def first_mesh_dofs(case, fineness: float) -> tuple[int, object]:
     """Estimate the unknowns of the first mesh before making it: a pilot mesh at fineness ≤ 0.5
     (a few thousand unknowns), its bulk part (8/√3·A/h², P2 on equilateral triangles) scaled by
     the fineness squared and the rest (feature refinement, which grows at most linearly with the
     fineness) by the fineness. Measured 0.84–1.13× the real count (two demo and two verification
-    cases at fineness 1 and 3): not a strict bound, a first mesh may pass max_dofs by about a fifth."""
+    cases at fineness 1 and 3): not a strict bound, a first mesh may pass max_dofs by about a fifth.
+    Returns the estimate and, when the pilot is the first mesh itself (fineness ≤ 0.5), that mesh."""
     fp = min(fineness, 0.5)
     pilot = mesh_section(case.section, MeshOptions(fineness=fp))
     n = int(pilot.mesh.p.shape[1])
     if fp == fineness:
-        return n
+        return n, pilot
     A = float(pilot.boundary.integrals["A"])
     bulk = min(n, 8.0 / math.sqrt(3.0) * A / pilot.h_global**2)
     k = fineness / fp
-    return int(bulk * k**2 + (n - bulk) * k)
+    return int(bulk * k**2 + (n - bulk) * k), None
 
 
 def _next_dofs_from_field(sol: Solution, sizes: np.ndarray) -> float:
@@ -224,19 +229,19 @@ def refine_to_accuracy(case, target: float, max_dofs: int, fineness: float | Non
         return time.perf_counter() + seconds <= deadline
 
     f0 = fineness if fineness is not None else case.analysis.fineness
-    est0 = first_mesh_dofs(case, f0)
+    est0, first = first_mesh_dofs(case, f0)
     if est0 > max_dofs:
         raise LimitError(f"the first mesh at fineness {f0:g} would have about {est0} unknowns, above "
                          f"analysis.max_dofs = {max_dofs}: lower the fineness or raise max_dofs")
     with record_solves() as solves, reuse_factorisations():
-        study = _refine(case, target, max_dofs, f0, fits, LimitError, max_seconds)
+        study = _refine(case, target, max_dofs, f0, fits, LimitError, max_seconds, first)
     study.solves = solves
     study.seconds = time.perf_counter() - t0
     return study
 
 
-def _refine(case, target, max_dofs, f0, fits, LimitError, max_seconds) -> Study:
-    sol = solve_on(case, f0)
+def _refine(case, target, max_dofs, f0, fits, LimitError, max_seconds, first=None) -> Study:
+    sol = solve_on(case, f0, mesh=first)
     h_max = sol.mesh.h_global
     study = Study([], target, max_dofs)
     # the final steps (warping check, stresses) cost about one more solve on the finest mesh
