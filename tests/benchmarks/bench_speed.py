@@ -164,7 +164,7 @@ if __name__ == "__main__":
     if what == "demos":
         demos()
     elif what == "large":
-        large([int(float(s)) for s in sys.argv[2:]] or [125_000, 250_000, 500_000, 1_000_000])
+        large([int(float(s)) for s in sys.argv[2:]] or [125_000, 250_000, 500_000, 1_050_000])
     elif what == "sweep":
         sweep(int(sys.argv[2]) if len(sys.argv) > 2 else 200)
     else:
