@@ -16,7 +16,7 @@ from fem.errors import InputError
 
 @lru_cache(maxsize=1)
 def ureg():
-    import pint  # noqa: PLC0415  lazy import of a slow dependency: pint takes ~0.3 s to load; plain numbers never need it
+    import pint  # noqa: PLC0415  lazy import of a slow dependency: pint takes ~0.3 s to load; the units in _FACTORS never need it
 
     return pint.UnitRegistry()
 
