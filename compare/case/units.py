@@ -2,7 +2,8 @@
 
 A case declares one unit system (``units = "mm-N-MPa"`` or ``"in-lbf-psi"``); a plain number in the
 case takes that system's unit for its field's dimension, and a string carries its own unit
-(``"25 mm"``, ``"150 N*m"``, ``"900 lbf*in"``). Conversion goes through pint.
+(``"25 mm"``, ``"150 N*m"``, ``"900 lbf*in"``). Conversion is pint's: the common units with pint's
+own factors (:data:`_FACTORS`, without loading pint), any other unit through pint itself.
 """
 from __future__ import annotations
 
