@@ -32,7 +32,7 @@ from .outlines import parse_file_shape, parse_spline
 from .shaft import Shaft, check_with_case, parse_shaft
 from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
 from .units import UnitSystem, from_si, to_si, unit_system
-from .fields import known as _known, angle as _angle
+from .fields import angle as _angle, chart_factor, known as _known
 
 if sys.version_info >= (3, 11):
     import tomllib
@@ -590,15 +590,9 @@ def parse_fatigue(d: dict, units) -> Fatigue:
             if f"{key}_source" in d:
                 raise InputError(f"fatigue.{key}_source", d[f"{key}_source"], f"is given without fatigue.{key}")
             continue
-        v = to_si(d[key], "dimensionless", f"fatigue.{key}", None)
-        if not v >= 1:
-            raise InputError(f"fatigue.{key}", d[key], "a stress-concentration factor is at least 1")
-        src = d.get(f"{key}_source")
-        if not isinstance(src, str) or not src.strip():
-            raise InputError(f"fatigue.{key}_source", src, f"is required with fatigue.{key}: name the chart it was "
-                             "read from (book, edition, figure)")
+        v, src = chart_factor(d, key, "fatigue")
         setattr(f, key, v)
-        setattr(f, f"{key}_source", escape_text(src.strip()))
+        setattr(f, f"{key}_source", src)
     if "notch_radius" in d:
         f.notch_radius = to_si(d["notch_radius"], "length", "fatigue.notch_radius", units)
         if not f.notch_radius > 0:

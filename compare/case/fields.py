@@ -1,10 +1,10 @@
 """Small checks shared by every case-file parser (case.py, shapes.py, outlines.py, shaft.py): unknown
-keys and angles. Each raises :class:`~fem.errors.InputError` naming the field and the value as written."""
+keys, angles, and a stress-concentration factor read from a chart with its source. Each raises :class:`~fem.errors.InputError` naming the field and the value as written."""
 from __future__ import annotations
 
 import math
 
-from fem.errors import InputError
+from fem.errors import InputError, escape_text
 
 from .units import to_si
 
@@ -27,3 +27,19 @@ def angle(v, name) -> float:
             raise InputError(name, v, "is not a finite angle")
         return float(v)
     return math.degrees(to_si(v, "angle", name, None))
+
+
+def chart_factor(d: dict, key: str, where: str) -> tuple[float, str] | None:
+    """``d[key]``, a stress-concentration factor read from a chart (at least 1), and ``d[key + '_source']``,
+    the chart it was read from (required, escaped for output); None when ``key`` is not given.
+    ``where`` names the table (``fatigue``, ``shaft.stations[0].fatigue``)."""
+    if key not in d:
+        return None
+    v = to_si(d[key], "dimensionless", f"{where}.{key}", None)
+    if not v >= 1:
+        raise InputError(f"{where}.{key}", d[key], "a stress-concentration factor is at least 1")
+    src = d.get(f"{key}_source")
+    if not isinstance(src, str) or not src.strip():
+        raise InputError(f"{where}.{key}_source", src, f"is required with {where}.{key}: name the chart it was "
+                         "read from (book, edition, figure)")
+    return v, escape_text(src.strip())

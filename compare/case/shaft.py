@@ -76,7 +76,7 @@ from dataclasses import dataclass, field
 from fem.errors import InputError, escape_text
 
 from .units import to_si
-from .fields import known as _known, angle as _angle
+from .fields import angle as _angle, chart_factor, known as _known
 
 #: Relative tolerance of the torque balance: the torques of the loads must sum to zero within this
 #: share of the largest one. Values typed with 4-6 figures balance far better than this; a torque
@@ -396,16 +396,9 @@ def _station(s, i, sh: Shaft, units, parse_section) -> Station:
         f = s["fatigue"]
         _known(f, _STATION_FATIGUE, f"{w}.fatigue")
         for key in ("kt_bending", "kts_torsion"):
-            if key in f:
-                v = to_si(f[key], "dimensionless", f"{w}.fatigue.{key}", None)
-                if not v >= 1:
-                    raise InputError(f"{w}.fatigue.{key}", f[key], "a stress-concentration factor is at least 1")
-                src = f.get(f"{key}_source")
-                if not isinstance(src, str) or not src.strip():
-                    raise InputError(f"{w}.fatigue.{key}_source", src, f"is required with {key}: name the chart it was "
-                                     "read from (book, edition, figure)")
-                st.fatigue[key] = v
-                st.fatigue[f"{key}_source"] = escape_text(src.strip())
+            got = chart_factor(f, key, f"{w}.fatigue")
+            if got is not None:
+                st.fatigue[key], st.fatigue[f"{key}_source"] = got
             elif f"{key}_source" in f:
                 raise InputError(f"{w}.fatigue.{key}_source", f[f"{key}_source"], f"is given without {key}")
         if "notch_radius" in f:
