@@ -37,7 +37,7 @@ from .bases import interpolate
 from .errors import InputError
 from .gmshload import initialize as initialize_gmsh, load_gmsh
 from .linalg import solve_spd
-from .mesh import BOUNDARY_POINTS, boundary_mapping, gmsh_p2_mesh
+from .mesh import BOUNDARY_POINTS, boundary_mapping, gmsh_p2_mesh, threshold_field
 
 #: Elements along the smaller diameter at fineness 1 (global size d/ACROSS).
 ACROSS = 6.0
@@ -260,15 +260,8 @@ def mesh_profile(profile: Profile, fineness: float = 1.0) -> MeridianMesh:
         if "fillet" in names and profile.radius > 0:
             rho = profile.radius / s
             hmin = min(h, 0.5 * math.pi * rho / (PER_QUARTER_ARC * fineness))
-            dist = f.add("Distance")
-            f.setNumbers(dist, "CurvesList", names["fillet"])
-            f.setNumber(dist, "Sampling", 100)
-            th = f.add("Threshold")
-            f.setNumber(th, "InField", dist)
-            f.setNumber(th, "SizeMin", hmin)
-            f.setNumber(th, "SizeMax", h)
-            f.setNumber(th, "DistMin", 0.25 * rho)
-            f.setNumber(th, "DistMax", 0.25 * rho + (h - hmin) / 0.3)
+            th = threshold_field(f, hmin, h, 0.25 * rho, 0.25 * rho + (h - hmin) / 0.3, curves=names["fillet"],
+                                 sampling=100)
             f.setAsBackgroundMesh(th)
         gmsh.option.setNumber("Mesh.ElementOrder", 2)
         gmsh.option.setNumber("Mesh.SecondOrderLinear", 0)

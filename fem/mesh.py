@@ -241,6 +241,26 @@ def mesh_section(section: Section, options: MeshOptions | None = None,
     return sm
 
 
+def threshold_field(f, size_min: float, size_max: float, dist_min: float, dist_max: float, curves=None,
+                    points=None, sampling: int | None = None) -> int:
+    """A gmsh size field (``f`` is ``gmsh.model.mesh.field``): ``size_min`` within ``dist_min`` of the
+    given curves or points, growing linearly to ``size_max`` at ``dist_max``. Returns its tag."""
+    d = f.add("Distance")
+    if curves is not None:
+        f.setNumbers(d, "CurvesList", curves)
+    if points is not None:
+        f.setNumbers(d, "PointsList", points)
+    if sampling is not None:
+        f.setNumber(d, "Sampling", sampling)
+    t = f.add("Threshold")
+    f.setNumber(t, "InField", d)
+    f.setNumber(t, "SizeMin", size_min)
+    f.setNumber(t, "SizeMax", size_max)
+    f.setNumber(t, "DistMin", dist_min)
+    f.setNumber(t, "DistMax", dist_max)
+    return t
+
+
 def _set_sizes(gmsh, info: BoundaryInfo, o: MeshOptions, h: float, size_field) -> None:
     f = gmsh.model.mesh.field
     gmsh.option.setNumber("Mesh.MeshSizeMax", h)
@@ -258,16 +278,7 @@ def _set_sizes(gmsh, info: BoundaryInfo, o: MeshOptions, h: float, size_field) -
     for _, tags in radii.items():
         r = info.curves[tags[0]].radius
         smin = min(h, 2 * math.pi * r / (o.per_circle * o.fineness))
-        d = f.add("Distance")
-        f.setNumbers(d, "CurvesList", tags)
-        f.setNumber(d, "Sampling", 40)
-        t = f.add("Threshold")
-        f.setNumber(t, "InField", d)
-        f.setNumber(t, "SizeMin", smin)
-        f.setNumber(t, "SizeMax", h)
-        f.setNumber(t, "DistMin", 0.5 * r)
-        f.setNumber(t, "DistMax", 0.5 * r + (h - smin) / o.grading)
-        fields.append(t)
+        fields.append(threshold_field(f, smin, h, 0.5 * r, 0.5 * r + (h - smin) / o.grading, curves=tags, sampling=40))
     corner_pts = []
     for c in info.reentrant_sharp_corners:
         corner_pts.append(c.point)
@@ -275,15 +286,7 @@ def _set_sizes(gmsh, info: BoundaryInfo, o: MeshOptions, h: float, size_field) -
         smin = h * o.corner_ratio
         pts = [gmsh.model.occ.addPoint(x, y, 0.0) for x, y in corner_pts]
         gmsh.model.occ.synchronize()
-        d = f.add("Distance")
-        f.setNumbers(d, "PointsList", pts)
-        t = f.add("Threshold")
-        f.setNumber(t, "InField", d)
-        f.setNumber(t, "SizeMin", smin)
-        f.setNumber(t, "SizeMax", h)
-        f.setNumber(t, "DistMin", 0.0)
-        f.setNumber(t, "DistMax", (h - smin) / o.grading)
-        fields.append(t)
+        fields.append(threshold_field(f, smin, h, 0.0, (h - smin) / o.grading, points=pts))
     if size_field is not None:
         tri, sizes = size_field
         tri = np.asarray(tri, float)
