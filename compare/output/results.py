@@ -102,6 +102,7 @@ def build_results(a: Analysis) -> dict:
     _qualify_pass(out)
     add_shaft_results(out, a, build_results)  # the shaft layout's blocks, if the case has one
     add_feature_results(out, a)  # shaft.features: shoulders and grooves
+    out["exit_code"] = int(out.get("exit_code") or 0)  # in every results.json, 0 included (README)
     return _clean(out)
 
 
