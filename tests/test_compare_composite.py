@@ -92,3 +92,14 @@ def test_the_demo_overmoulded_shaft_runs(tmp_path, run_cli):
     # a square body with a pin has no closed form: the pairs say so rather than compare
     assert all(p["kind"] == "not applicable" for p in res["compare"])
     assert sorted(p.name for p in (tmp_path / "o").iterdir()) == ["results.json"]
+
+
+def test_the_python_api_gives_the_cli_numbers_with_units():
+    from compare import Case, analyse
+
+    r = analyse(Case.load(ROOT / "cases" / "overmoulded_gear_shaft.toml"))
+    assert r.exit_code == 0
+    GJ = r.q.torsion.GJ
+    assert str(GJ.units) in ("meter ** 2 * newton", "newton * meter ** 2")
+    assert GJ.magnitude == r.torsion.GJ
+    assert r.q.regions[1].tau_max.to("MPa").magnitude == pytest.approx(r.regions[1]["tau_max"] / 1e6)
