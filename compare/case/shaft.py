@@ -64,7 +64,8 @@ Dataclasses (stable: later steps build on them; fields are added, never renamed)
   {"kt_bending": (value, source), "kts_torsion": (value, source)}; the station check uses a value
   the user gave in ``fatigue`` first, then these), raw (the station's case-file table), extent
   ((z0, z1) [m] of the section's longest feature with a length: centred on ``at``, or from
-  ``feature_from``; None without one), extent_field (the case-file field of that length))
+  ``feature_from``; None without one), extent_field (the case-file field of that length), geometry
+  (the section's resolved dimensions, as Case.geometry))
 - :class:`Shaft` (length, segments, grooves, supports, loads, stations, density, speed [rad/s],
   rotating, self_weight)
 
@@ -173,6 +174,7 @@ class Station:
     raw: dict = field(default_factory=dict)  # the station's case-file table (to build its own case)
     extent: tuple[float, float] | None = None  # (z0, z1) of the section's feature with a length, or None
     extent_field: str = ""  # the case-file field of that feature's length
+    geometry: dict = field(default_factory=dict)  # the section's resolved dimensions (Case.geometry of its run)
 
 
 @dataclass
@@ -387,7 +389,7 @@ def _station(s, i, sh: Shaft, units, parse_section, feature_lengths=None) -> Sta
         if not isinstance(s["section"], dict):
             raise InputError(f"{w}.section", s["section"], "must be a table with the keys of [section]")
         try:
-            st.section = parse_section(s["section"], units)
+            st.section = parse_section(s["section"], units, st.geometry)
         except InputError as exc:
             if exc.field.startswith("section"):
                 raise InputError(f"{w}.{exc.field}", exc.value, exc.reason, exc.unit) from None

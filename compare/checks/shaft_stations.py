@@ -101,7 +101,8 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
     lo = section_loads(loads, shaft.rotating)
     title = f"{case.title} — station at z = {_where(case, st.at)}" + (f" ({st.name})" if st.name else "")
     sc = Case(title, case.units, section, lo, case.material, case.analysis, path=case.path, fatigue=fat,
-              feature_lengths=parse_feature_lengths(st.raw.get("section", {}), case.units) if st.section else [])
+              feature_lengths=parse_feature_lengths(st.raw.get("section", {}), case.units) if st.section else [],
+              geometry=st.geometry)
     features = (["shoulder"] if step else []) + (["groove"] * bool(near))
     rec = {"at": st.at, "name": st.name, "diameter": d, "bore": bore, "features": features,
            "section_kind": section.kind, "kt_from": kt_from}
