@@ -260,6 +260,10 @@ name = "plain"
     assert flat["used_at"] == pytest.approx(0.040)
     assert {(round(r["z"] * 1e3, 6), r["side"]) for r in ext["candidates"]} >= {(40, "left"), (40, "right")}
     assert plain["extent"] is None and plain["used_at"] == pytest.approx(0.1) and plain["at_load_point"] is None
-    assert "loads at z = 40 mm" in stdout and "its flat runs from 10 mm to 50 mm (feature_from)" in stdout
+    assert "loads at z = 40 mm" in stdout and "its flat runs from 10 mm to 50 mm (placed by feature_from)" in stdout
+    from compare.api import QuantityRecord
+    q = QuantityRecord(res)  # what r.q gives in the Python API
+    assert q.section_loads[0].used_at.to("mm").magnitude == pytest.approx(40.0)
+    assert q.section_loads[0].extent.governing.z.to("mm").magnitude == pytest.approx(40.0)
     rows = (out / "results.csv").read_text()
     assert "section_loads[0].used_at" in rows and "section_loads[1].used_at" not in rows

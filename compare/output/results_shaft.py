@@ -185,7 +185,7 @@ def station_place_lines(st: dict, f: Fmt) -> list[str]:
         word = _feature_word(ext["field"])
         g = ext["governing"]
         text = (f"its {word} runs from {f.q(ext['from'], 'length', 4)} to {f.q(ext['to'], 'length', 4)} "
-                f"({ext['placed']}); checked at {len(ext['candidates'])} points along it; lowest factor at "
+                f"({'placed by feature_from' if ext['placed'] == 'feature_from' else ext['placed']}); checked at {len(ext['candidates'])} points along it; lowest factor at "
                 f"{_point_words(g, f, word)}")
         for key, label in (("static_governing", "static"), ("fatigue_governing", "fatigue")):
             p = ext.get(key)
