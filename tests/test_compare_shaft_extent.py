@@ -267,3 +267,20 @@ name = "plain"
     assert q.section_loads[0].extent.governing.z.to("mm").magnitude == pytest.approx(40.0)
     rows = (out / "results.csv").read_text()
     assert "section_loads[0].used_at" in rows and "section_loads[1].used_at" not in rows
+
+
+def test_spline_engagement_over_a_load_point_takes_both_sides():
+    spline = {"shape": "spline", "form": "straight", "splines": 6, "minor_diameter": 26, "major_diameter": 30,
+              "width": 6, "fillet": 0.2, "length": 50}
+    c = shaft_case([{"at": 200, "name": "splined hub", "section": spline}],
+                   loads=[{"at": 60, "torque": "-40 N*m"}, {"at": 215, "force": [500, 0], "torque": "40 N*m"}])
+    lay = solve_layout(c.shaft, c.section, c.material)
+    cands = candidates(lay, c.shaft.stations[0])
+    assert [(round(x["z"] * 1e3, 9), x["side"]) for x in cands] == [(175, None), (200, None), (215, "left"),
+                                                                     (215, "right"), (225, None)]
+    # statics: simply supported span A (20) to B (280) with 500 N at 215 mm: My = R_B·(280 − z) right of it
+    RB = 500 * (215 - 20) / (280 - 20)
+    res = {"fem": cands[4]["loads"]["My"], "exact": -RB * 0.055}  # internal My on the +z face (signs: shaft_beam)
+    assert res["fem"] == pytest.approx(res["exact"], rel=1e-9)
+    assert cands[2]["loads"]["T"] == pytest.approx(40.0) and cands[3]["loads"]["T"] == pytest.approx(0.0, abs=1e-9)
+    assert cands[2]["parts"] == ["loads[1]"] and cands[1]["station"] and not cands[1]["parts"]

@@ -184,9 +184,9 @@ def station_place_lines(st: dict, f: Fmt) -> list[str]:
     if ext:
         word = _feature_word(ext["field"])
         g = ext["governing"]
-        text = (f"its {word} runs from {f.q(ext['from'], 'length', 4)} to {f.q(ext['to'], 'length', 4)} "
-                f"({'placed by feature_from' if ext['placed'] == 'feature_from' else ext['placed']}); checked at {len(ext['candidates'])} points along it; lowest factor at "
-                f"{_point_words(g, f, word)}")
+        placed = "placed by feature_from" if ext["placed"] == "feature_from" else ext["placed"]
+        text = (f"its {word} runs from {f.q(ext['from'], 'length', 4)} to {f.q(ext['to'], 'length', 4)} ({placed}); "
+                f"checked at {len(ext['candidates'])} points along it; governing loads at {_point_words(g, f, word)}")
         for key, label in (("static_governing", "static"), ("fatigue_governing", "fatigue")):
             p = ext.get(key)
             if p is not None and p["factor"] is not None:
