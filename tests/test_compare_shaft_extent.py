@@ -18,6 +18,7 @@ ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "cases" / "countershaft_layout.toml"
 BASE = {"case": {"units": "mm-N-MPa"}, "material": {"elastic_modulus": "205 GPa", "poisson": 0.29}}
 KEYWAY = {"width": 8, "depth": 4, "fillet": 0.25}
+KEYED40 = {"shape": "keyed", "diameter": 30, "keyways": [{**KEYWAY, "length": 40}]}
 
 
 def shaft_case(sections, **shaft):
@@ -61,11 +62,11 @@ def test_flat_spline_and_cut_lengths_place_the_feature():
 
 
 @pytest.mark.parametrize("station, field", [
-    ({"at": 10, "section": {"shape": "keyed", "diameter": 30, "keyways": [{**KEYWAY, "length": 40}]}},
+    ({"at": 10, "section": KEYED40},
      "shaft.sections[0].section.keyways[0].length"),  # centred: -10 to 30 mm, off the left end
-    ({"at": 290, "feature_from": 280, "section": {"shape": "keyed", "diameter": 30, "keyways": [{**KEYWAY, "length": 40}]}},
+    ({"at": 290, "feature_from": 280, "section": KEYED40},
      "shaft.sections[0].section.keyways[0].length"),  # 280 to 320 mm on a 300 mm shaft
-    ({"at": 100, "feature_from": 150, "section": {"shape": "keyed", "diameter": 30, "keyways": [{**KEYWAY, "length": 40}]}},
+    ({"at": 100, "feature_from": 150, "section": KEYED40},
      "shaft.sections[0].feature_from"),  # the station is not on its feature
     ({"at": 100, "feature_from": 90, "section": {"shape": "keyed", "diameter": 30, "keyways": [KEYWAY]}},
      "shaft.sections[0].feature_from"),  # no feature with a length to place

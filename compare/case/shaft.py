@@ -451,14 +451,14 @@ def _place_feature(s: dict, w: str, st: Station, sh: Shaft, units, feature_lengt
     where = "centred on the station" if "feature_from" not in s else "from feature_from"
     if z0 < -tol or z1 > sh.length + tol:
         raise InputError(len_field, shown, f"runs off the shaft ({where}, the feature would span "
-                         f"{_where(z0, units)} to {_where(z1, units)} of a {_where(sh.length, units)} shaft): shorten it or give feature_from",
-                         _unit(shown, units, "length"))
+                         f"{_where(z0, units)} to {_where(z1, units)} of a {_where(sh.length, units)} shaft): "
+                         "shorten it or give feature_from", _unit(shown, units, "length"))
     z0, z1 = max(z0, 0.0), min(z1, sh.length)
     for j in range(1, len(sh.segments)):
         a, b = sh.segments[j - 1], sh.segments[j]
         if a.diameter != b.diameter and z0 + tol < b.start < z1 - tol:
-            raise InputError(len_field, shown, f"runs across the step in diameter at {_where(b.start, units)} ({where}): the "
-                             "station's section does not hold beyond it; shorten it or give feature_from",
+            raise InputError(len_field, shown, f"runs across the step in diameter at {_where(b.start, units)} "
+                             f"({where}): the station's section does not hold beyond it; shorten it or give feature_from",
                              _unit(shown, units, "length"))
     for j, g in enumerate(sh.grooves):
         if g.at + g.width / 2 > z0 + tol and g.at - g.width / 2 < z1 - tol:

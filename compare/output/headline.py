@@ -97,8 +97,9 @@ def headline_rows(res: dict, system) -> list[dict]:
             "length")
         gi = ext["governing"]["index"]
         add("stations", f"{name}: bending moment |M| there", f"section_loads[{i}].extent.candidates[{gi}].M", "moment")
+        crit = ext["governing"]["criterion"]
         if ext["governing"]["factor"] is not None:
-            add("stations", f"{name}: lowest n along its feature ({LABELS.get(ext['governing']['criterion'], ext['governing']['criterion'])})",
+            add("stations", f"{name}: lowest n along its feature ({LABELS.get(crit, crit)})",
                 f"section_loads[{i}].extent.governing.factor", "dimensionless")
     acc = res.get("accuracy")
     if acc and acc.get("achieved") is not None:
