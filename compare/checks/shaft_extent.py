@@ -16,10 +16,11 @@ copy of the solved :class:`~compare.pairs.analysis.Analysis` with the candidate'
 no new solve. The lowest factor over the candidates governs; the lowest static and the lowest fatigue
 factor are recorded with where each was found (they may be at different z).
 
-Why these candidates are enough: each criterion's 1/n (von Mises, Tresca, Coulomb–Mohr; Goodman,
-Gerber, ASME elliptic, Soderberg, Langer on the von Mises amplitude and mean) is a convex function of
-the six section loads (a norm of stresses linear in the loads, composed with non-decreasing convex
-functions), and the largest over points and over the shaft's angle of convex functions is convex; along
+Why these candidates are enough: each criterion's 1/n (von Mises, Tresca, Coulomb–Mohr, modified Mohr
+(the larger of its two branches); Goodman, Gerber, ASME elliptic, Soderberg, Langer on the von Mises
+amplitude and mean) is a convex function of the six section loads (norms of stresses linear in the
+loads, and σ1, −σ3, composed with non-decreasing convex functions), and the largest over points and
+over the shaft's angle of convex functions is convex; along
 a stretch where the loads are linear in z, 1/n is therefore convex in z and largest at an end of the
 stretch. The self-weight bends the Mx diagram between candidates by at most q·h²/8 (q the weight per
 length, h the gap between candidates); that bound is recorded as ``self_weight_departure`` [N·m].
