@@ -279,6 +279,7 @@ UNITS = {
                      "kappa_y", "kappa_xy", "poisson", "ratio", "factor", "target", "achieved", "design_factor",
                      "margin", "value"], ""),
     "principal_angle_deg": "deg", "angle_deg": "deg",
+    "used_at": "m", "z": "m", "self_weight_departure": "N*m",
 }
 #: Units of keys whose name alone is ambiguous, by their path in the results (the shaft layout's).
 PATH_UNITS = {".shaft.max_deflection.value": "m", ".shaft.max_moment.value": "N*m",

@@ -206,7 +206,8 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
     region_materials: list = []
     section = parse_section(data["section"], units, geometry, base_dir, region_materials) if "section" in data else None
     loads = parse_loads(data.get("loads", {}), units)
-    shaft = parse_shaft(data["shaft"], units, parse_section, loads.rotating) if "shaft" in data else None
+    shaft = (parse_shaft(data["shaft"], units, parse_section, loads.rotating, parse_feature_lengths)
+             if "shaft" in data else None)
     if "section" not in data and not (shaft is not None and shaft.segments):
         raise InputError("section", None, "is missing: every case describes a section (a [shaft] without "
                          "segments takes its diameter from [section])")
@@ -376,9 +377,18 @@ def _parse_plain(s: dict, units: UnitSystem | None) -> Section:
 
 
 def parse_feature_lengths(s: dict, units) -> list:
-    """The optional ``length`` (along the shaft) of each keyway and each cut: [(field, metres)]."""
+    """The optional ``length`` (along the shaft) of each keyway, flat and cut, and a spline's engaged
+    length: [(feature field, metres)]; the length itself is ``<feature field>.length``."""
     out = []
-    groups = [("keyways", s.get("keyways"))] if s.get("shape") == "keyed" else [("cut", s.get("cut"))]
+    if s.get("shape") == "spline":
+        if "length" in s:
+            ln = to_si(s["length"], "length", "section.length", units)
+            if not ln > 0:
+                raise InputError("section.length", s["length"], "must be positive (the splined length along the shaft)")
+            out.append(("section", ln))
+        return out
+    groups = {"keyed": [("keyways", s.get("keyways"))], "flatted": [("flats", s.get("flats"))]}.get(
+        s.get("shape"), [("cut", s.get("cut"))])
     for key, items in groups:
         for i, item in enumerate(items if isinstance(items, list) else []):
             if isinstance(item, dict) and "length" in item:

@@ -16,9 +16,10 @@ from .units import UnitSystem, to_si
 from .fields import known as _known
 
 SPLINE_KEYS = {"involute": {"shape", "form", "teeth", "module", "diametral_pitch", "pressure_angle", "major_diameter",
-                            "minor_diameter", "root", "fillet", "bore", "tooth_thickness"},
+                            "minor_diameter", "root", "fillet", "bore", "tooth_thickness", "length"},
                "straight": {"shape", "form", "splines", "minor_diameter", "major_diameter", "width", "fillet", "bore",
-                            "series"}}
+                            "series", "length"}}
+#: ``length`` (both forms): the splined (engaged) length along the shaft, read by case.parse_feature_lengths
 FILE_KEYS = {"dxf": {"shape", "file", "units", "layer"}, "step": {"shape", "file"}, "brep": {"shape", "file", "units"},
              "mesh": {"shape", "file", "units"}}
 #: Mesh formats meshio reads as text (by file suffix); binary files are refused by the bounded reader.

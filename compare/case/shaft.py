@@ -46,6 +46,8 @@ Case-file schema (README, 'The shaft layout', is the reference)::
     name = "gear keyseat"                # optional
     section = { shape = "keyed", ... }   # optional, same keys as [section]; else the plain round
     fatigue = { kt_bending = 2.1, kt_bending_source = "..." }   # optional, same keys as [fatigue]
+    feature_from = 130                   # optional: where the section's feature (keyway, flat, spline,
+                                         # cut with a length) begins; without it the feature is centred on at
 
 Dataclasses (stable: later steps build on them; fields are added, never renamed):
 
@@ -60,7 +62,10 @@ Dataclasses (stable: later steps build on them; fields are added, never renamed)
 - :class:`Station` (at [m], name, section (fem Section | None = the segment's plain round),
   fatigue (dict of the [fatigue] keys given, SI), kt (dict filled by a later feature step:
   {"kt_bending": (value, source), "kts_torsion": (value, source)}; the station check uses a value
-  the user gave in ``fatigue`` first, then these), raw (the station's case-file table))
+  the user gave in ``fatigue`` first, then these), raw (the station's case-file table), extent
+  ((z0, z1) [m] of the section's longest feature with a length: centred on ``at``, or from
+  ``feature_from``; None without one), extent_field (the case-file field of that length), geometry
+  (the section's resolved dimensions, as Case.geometry))
 - :class:`Shaft` (length, segments, grooves, supports, loads, stations, density, speed [rad/s],
   rotating, self_weight)
 
@@ -75,7 +80,7 @@ from dataclasses import dataclass, field
 
 from fem.errors import InputError, escape_text
 
-from .units import to_si
+from .units import from_si, to_si
 from .fields import angle as _angle, chart_factor, known as _known
 
 #: Relative tolerance of the torque balance: the torques of the loads must sum to zero within this
@@ -99,7 +104,7 @@ _LOAD_KEYS = {
     "pulley": _COMMON | {"diameter", "tension_ratio", "pull_angle"},
     "sprocket": _COMMON | {"diameter", "pull_angle"},
 }
-_STATION = {"at", "name", "section", "fatigue"}
+_STATION = {"at", "name", "section", "fatigue", "feature_from"}
 _STATION_FATIGUE = {"kt_bending", "kt_bending_source", "kts_torsion", "kts_torsion_source", "notch_radius"}
 
 
@@ -167,6 +172,9 @@ class Station:
     fatigue: dict = field(default_factory=dict)  # [fatigue] keys given for this station, SI
     kt: dict = field(default_factory=dict)  # filled by a feature step: {"kt_bending": (value, source), ...}
     raw: dict = field(default_factory=dict)  # the station's case-file table (to build its own case)
+    extent: tuple[float, float] | None = None  # (z0, z1) of the section's feature with a length, or None
+    extent_field: str = ""  # the case-file field of that feature's length
+    geometry: dict = field(default_factory=dict)  # the section's resolved dimensions (Case.geometry of its run)
 
 
 @dataclass
@@ -206,9 +214,10 @@ class Shaft:
 # ----------------------------------------------------------------------------- parser
 
 
-def parse_shaft(d, units, parse_section, loads_rotating: bool = False) -> Shaft:
+def parse_shaft(d, units, parse_section, loads_rotating: bool = False, feature_lengths=None) -> Shaft:
     """``[shaft]`` as a :class:`Shaft` (SI). ``parse_section(table, units)`` parses a station's
-    section table (handed in by ``case.py``); ``loads_rotating`` is ``loads.rotating``."""
+    section table and ``feature_lengths(table, units)`` lists its features' lengths as [(field, m)]
+    (both handed in by ``case.py``); ``loads_rotating`` is ``loads.rotating``."""
     _known(d, _SHAFT, "shaft")
     length = _pos(d, "length", "length", "shaft", units, required=True)
     sh = Shaft(length=length)
@@ -228,7 +237,7 @@ def parse_shaft(d, units, parse_section, loads_rotating: bool = False) -> Shaft:
     sh.supports = [] if factors_only else _supports(d, length, units)
     sh.loads = [_load(x, i, length, units) for i, x in enumerate(_table_list(d.get("loads", []), "shaft.loads"))]
     _torque_balance(sh.loads, _table_list(d.get("loads", []), "shaft.loads"))
-    sh.stations = [_station(s, i, sh, units, parse_section)
+    sh.stations = [_station(s, i, sh, units, parse_section, feature_lengths)
                    for i, s in enumerate(_table_list(d.get("sections", []), "shaft.sections"))]
     return sh
 
@@ -371,7 +380,7 @@ def _torque_balance(loads: list[ShaftLoad], raw: list) -> None:
                          f"zero (they sum to {total:.6g} N·m); give the torque taken out as negative")
 
 
-def _station(s, i, sh: Shaft, units, parse_section) -> Station:
+def _station(s, i, sh: Shaft, units, parse_section, feature_lengths=None) -> Station:
     w = f"shaft.sections[{i}]"
     _known(s, _STATION, w)
     at = _at(s, w, sh.length, units)
@@ -380,7 +389,7 @@ def _station(s, i, sh: Shaft, units, parse_section) -> Station:
         if not isinstance(s["section"], dict):
             raise InputError(f"{w}.section", s["section"], "must be a table with the keys of [section]")
         try:
-            st.section = parse_section(s["section"], units)
+            st.section = parse_section(s["section"], units, st.geometry)
         except InputError as exc:
             if exc.field.startswith("section"):
                 raise InputError(f"{w}.{exc.field}", exc.value, exc.reason, exc.unit) from None
@@ -403,7 +412,71 @@ def _station(s, i, sh: Shaft, units, parse_section) -> Station:
                 raise InputError(f"{w}.fatigue.{key}_source", f[f"{key}_source"], f"is given without {key}")
         if "notch_radius" in f:
             st.fatigue["notch_radius"] = _pos(f, "notch_radius", "length", f"{w}.fatigue", units)
+    _place_feature(s, w, st, sh, units, feature_lengths)
     return st
+
+
+def _place_feature(s: dict, w: str, st: Station, sh: Shaft, units, feature_lengths) -> None:
+    """Where along the shaft the station's feature with a length lies: ``Station.extent``. The
+    longest feature of the section counts (the section, all its features, is checked over it); it is
+    centred on ``at`` unless ``feature_from`` gives its start. Refused: ``feature_from`` without such a
+    feature, a station off its own feature, a feature running off the shaft, across a step in diameter
+    or over a groove (the station's section does not hold there)."""
+    got = []
+    if "section" in s and feature_lengths is not None:
+        try:
+            got = feature_lengths(s["section"], units)
+        except InputError as exc:
+            raise InputError(f"{w}.{exc.field}", exc.value, exc.reason, exc.unit) from None
+    if not got:
+        if "feature_from" in s:
+            raise InputError(f"{w}.feature_from", s["feature_from"], "is given, but the station's section has no "
+                             "feature with a length (a keyway, flat or cut with length =, or a spline's length =)",
+                             _unit(s["feature_from"], units, "length"))
+        return
+    fld, ell = max(got, key=lambda x: x[1])
+    len_field = f"{w}.{fld}.length"
+    raw_len = s["section"] if fld == "section" else _raw_feature(s["section"], fld)
+    shown = raw_len.get("length") if isinstance(raw_len, dict) else None
+    tol = GAP_TOL * sh.length
+    if "feature_from" in s:
+        z0 = _len(s, "feature_from", w, units)
+        if not z0 - tol <= st.at <= z0 + ell + tol:
+            raise InputError(f"{w}.feature_from", s["feature_from"], "puts the feature where the station is not: the "
+                             "station's at must lie on its own feature (from feature_from to feature_from + length)",
+                             _unit(s["feature_from"], units, "length"))
+    else:
+        z0 = st.at - ell / 2
+    z1 = z0 + ell
+    where = "centred on the station" if "feature_from" not in s else "from feature_from"
+    if z0 < -tol or z1 > sh.length + tol:
+        raise InputError(len_field, shown, f"runs off the shaft ({where}, the feature would span "
+                         f"{_where(z0, units)} to {_where(z1, units)} of a {_where(sh.length, units)} shaft): "
+                         "shorten it or give feature_from", _unit(shown, units, "length"))
+    z0, z1 = max(z0, 0.0), min(z1, sh.length)
+    for j in range(1, len(sh.segments)):
+        a, b = sh.segments[j - 1], sh.segments[j]
+        if a.diameter != b.diameter and z0 + tol < b.start < z1 - tol:
+            raise InputError(len_field, shown, f"runs across the step in diameter at {_where(b.start, units)} "
+                             f"({where}): the station's section does not hold beyond it; shorten it or give feature_from",
+                             _unit(shown, units, "length"))
+    for j, g in enumerate(sh.grooves):
+        if g.at + g.width / 2 > z0 + tol and g.at - g.width / 2 < z1 - tol:
+            raise InputError(len_field, shown, f"runs over the groove shaft.grooves[{j}] ({where}): the station's "
+                             "section does not hold there; shorten it or give feature_from", _unit(shown, units, "length"))
+    st.extent, st.extent_field = (z0, z1), len_field
+
+
+def _raw_feature(sec: dict, fld: str):
+    """The case-file table of ``section.keyways[2]`` (a feature field of parse_feature_lengths)."""
+    key, _, idx = fld.removeprefix("section.").partition("[")
+    items = sec.get(key)
+    return items[int(idx.rstrip("]"))] if isinstance(items, list) else None
+
+
+def _where(v: float, units) -> str:
+    """A position for a refusal's text, in the case's units."""
+    return f"{from_si(v, 'length', units):.6g} {units.label('length')}" if units is not None else f"{v:.6g} m"
 
 
 def check_with_case(sh: Shaft, raw_loads: dict, material) -> None:

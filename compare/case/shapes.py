@@ -154,7 +154,7 @@ def parse_shape(s: dict, units) -> tuple:
         flats, recs = [], []
         for i, f in enumerate(fl):
             where = f"section.flats[{i}]"
-            _known(f, {"depth", "angle"}, where)
+            _known(f, {"depth", "angle", "length"}, where)  # length: case.parse_feature_lengths
             flats.append(Flat(_length(f, "depth", where, units), _angle(f.get("angle", 90.0), f"{where}.angle")))
             recs.append({"depth": _entry(flats[-1].depth, GIVEN),
                          "angle_deg": _entry(flats[-1].angle, GIVEN if "angle" in f else "default: 90° (top)"),

@@ -1,7 +1,9 @@
 """From the layout to every checked station: the whole-shaft beam step, the loads at each station
 (both sides of a jump, the larger used), one section check per station (the ordinary section
 analysis, handed in as ``analyse`` so this room does not import the pipeline), the beam solved again
-with each station's FE section over its feature length, and the governing station.
+with each station's FE section over its feature length, and the governing station. A station whose
+section has a feature with a length is then checked on that one solved section at every candidate
+point along the feature (:mod:`.shaft_extent`), and the worst candidate is the station's result.
 
 Kt hook for shoulders and grooves: a station's fatigue factors come, in this order, from the
 station's own ``fatigue`` table in the case file, from ``Station.kt`` (filled by a feature step that
@@ -19,12 +21,13 @@ from dataclasses import replace
 
 from fem.geometry import round_section
 
-from ..case.case import Case, Fatigue, Loads, parse_feature_lengths
+from ..case.case import Case, Fatigue, parse_feature_lengths
 from ..case.shaft import Segment, Shaft, Station
 from ..case.units import from_si
 from .feature_local import fillet_fe_path
 from .findings import EXIT_NO_VERDICT, withdraw_verdicts
 from .shaft_beam import SIDE, loads_at, solve_layout
+from .shaft_extent import at_load_point, check_over_extent, section_loads
 
 #: Relative change of a station's loads between the round-bar beam and the beam with the stations'
 #: FE sections above which the station is checked again (only an indeterminate shaft can change).
@@ -65,7 +68,7 @@ def station_loads(layout: dict, st: Station, d: float) -> dict:
     jump = any(abs(left[k] - right[k]) > 1e-9 * scale for k in LOAD_KEYS)
     use = "right" if nominal_equivalent(right, d) > nominal_equivalent(left, d) else "left"
     return {"left": left, "right": right, "jump": jump, "used_side": use if jump else None,
-            "used": right if use == "right" else left}
+            "used": right if use == "right" else left, "used_at": st.at}
 
 
 def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tuple[Case, dict]:
@@ -95,13 +98,11 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
         fat.notch_radius = st.kt["notch_radius"][0]
         src = st.kt["notch_radius"][1]
         fat.notch_radius_source = f"the {'groove bottom' if 'grooves' in src else 'fillet'} radius of the feature ({src})"
-    lo = Loads(torque=loads["T"], bending=(loads["Mx"], loads["My"]), shear=(loads["Vx"], loads["Vy"]),
-               axial=loads["N"], rotating=shaft.rotating)
-    where = (f"{from_si(st.at, 'length', case.units):.6g} {case.units.label('length')}" if case.units
-             else f"{st.at:.6g} m")
-    title = f"{case.title} — station at z = {where}" + (f" ({st.name})" if st.name else "")
+    lo = section_loads(loads, shaft.rotating)
+    title = f"{case.title} — station at z = {_where(case, st.at)}" + (f" ({st.name})" if st.name else "")
     sc = Case(title, case.units, section, lo, case.material, case.analysis, path=case.path, fatigue=fat,
-              feature_lengths=parse_feature_lengths(st.raw.get("section", {}), case.units) if st.section else [])
+              feature_lengths=parse_feature_lengths(st.raw.get("section", {}), case.units) if st.section else [],
+              geometry=st.geometry)
     features = (["shoulder"] if step else []) + (["groove"] * bool(near))
     rec = {"at": st.at, "name": st.name, "diameter": d, "bore": bore, "features": features,
            "section_kind": section.kind, "kt_from": kt_from}
@@ -111,6 +112,11 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
     if sharp:
         rec["sharp"] = sharp
     return sc, rec
+
+
+def _where(case: Case, z: float) -> str:
+    """A position along the shaft in the case's units, for a station case's title."""
+    return f"{from_si(z, 'length', case.units):.6g} {case.units.label('length')}" if case.units else f"{z:.6g} m"
 
 
 #: A station is at a sharp shoulder or groove bottom when it lies within this fraction of the shaft's
@@ -169,7 +175,8 @@ def layout_step(case: Case, analyse):
             sl = station_loads(layout2, st, d)
             old = stations[i]["loads"]["used"]
             scale = max(max(abs(v) for v in old.values()), 1e-300)
-            if any(abs(sl["used"][k] - old[k]) > RELOAD_TOL * scale for k in LOAD_KEYS):
+            # a station with a feature length is checked over its feature below, on the loads of this layout
+            if st.extent is None and any(abs(sl["used"][k] - old[k]) > RELOAD_TOL * scale for k in LOAD_KEYS):
                 sc, rec = station_case(case, shaft, st, segs, sl["used"])
                 rec.update(loads=sl, checked_again=True)
                 stations[i] = rec
@@ -179,10 +186,23 @@ def layout_step(case: Case, analyse):
         layout = layout2
     layout["fe_sections"] = [{"from": o[0], "to": o[1], "Ixx": o[2], "Iyy": o[3], "area": o[4], "kappa": o[5]}
                              for o in overrides]
-    for st, rec, a in zip(shaft.stations, stations, analyses):
-        if "fillet_stresses" in st.kt and not rec.get("sharp"):  # the FE path from the feature's local stresses
-            fillet_fe_path(a, st.kt["fillet_stresses"][0], keep_section_min=st.section is not None)
+    for i, (st, rec) in enumerate(zip(shaft.stations, stations)):
+        a = analyses[i]
+        rec["at_load_point"] = at_load_point(layout, st.at)
+        fillet = "fillet_stresses" in st.kt and not rec.get("sharp")
+        if fillet:
             rec["fe_path"] = "feature"
+        hook = (lambda b, st=st: fillet_fe_path(b, st.kt["fillet_stresses"][0], keep_section_min=st.section is not None)
+                ) if fillet else None
+        if st.extent is not None:  # the worst loads anywhere along the station's feature
+            a, used, rec["extent"] = check_over_extent(a, st, layout, shaft.rotating, at_station=hook)
+            g = rec["extent"]["governing"]
+            rec["loads"] = dict(rec["loads"], used=used, used_at=g["z"], used_side=g["side"])
+            if not g["station"]:  # the section results that follow say where their loads were taken
+                a = replace(a, case=replace(a.case, title=f"{a.case.title}, loads at z = {_where(case, g['z'])}"))
+            analyses[i] = a
+        elif hook is not None:  # the FE path from the feature's local stresses
+            hook(a)
         no_verdict_at_sharp(rec, a)
         gov = a.extra.get("governing") or {}
         rec["governing"] = gov or None
@@ -210,13 +230,8 @@ def _fe_overrides(shaft: Shaft, stations, analyses) -> list:
     """(z0, z1, Ixx, Iyy, A, κ) over the feature length of every station whose own section gives one."""
     out = []
     for st, rec, a in zip(shaft.stations, stations, analyses):
-        if st.section is None:
+        if st.section is None or st.extent is None or a.shear is None:
             continue
-        lengths = [ln for _, ln in a.case.feature_lengths]
-        if not lengths or a.shear is None:
-            continue
-        ell = max(lengths)
         kappa = min(a.shear.kappa_x, a.shear.kappa_y)
-        out.append((max(st.at - ell / 2, 0.0), min(st.at + ell / 2, shaft.length), a.props.Ixx, a.props.Iyy,
-                    a.props.area, kappa))
+        out.append((*st.extent, a.props.Ixx, a.props.Iyy, a.props.area, kappa))
     return out

@@ -89,6 +89,19 @@ def headline_rows(res: dict, system) -> list[dict]:
     if g and not g.get("no_verdict"):
         add("governing", f"lowest n ({LABELS.get(g['criterion'], g['criterion'])}, {g['path']} path)",
             "governing.factor", "dimensionless")
+    for i, sl in enumerate(res.get("section_loads") or []):  # stations checked along a feature's length
+        ext = sl.get("extent")
+        if not ext:
+            continue
+        name = sl["name"] or f"station {i}"
+        add("stations", f"{name}: governing loads taken at z (along its feature)", f"section_loads[{i}].used_at",
+            "length")
+        gi = ext["governing"]["index"]
+        add("stations", f"{name}: bending moment |M| there", f"section_loads[{i}].extent.candidates[{gi}].M", "moment")
+        crit = ext["governing"]["criterion"]
+        if ext["governing"]["factor"] is not None:
+            add("stations", f"{name}: lowest n along its feature ({LABELS.get(crit, crit)})",
+                f"section_loads[{i}].extent.governing.factor", "dimensionless")
     acc = res.get("accuracy")
     if acc and acc.get("achieved") is not None:
         rows.append({"group": "accuracy", "quantity": "largest estimated error (GCI)", "value": acc["achieved"],

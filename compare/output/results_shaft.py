@@ -52,6 +52,8 @@ def add_shaft_results(out: dict, a, build_results) -> None:
                  "jump": rec_st["loads"]["jump"], "used_side": rec_st["loads"]["used_side"],
                  "diameter": rec_st["diameter"], "features": rec_st["features"], "kt_from": rec_st["kt_from"],
                  "checked_again": rec_st.get("checked_again", False),
+                 "used_at": rec_st["loads"].get("used_at", rec_st["at"]),
+                 "at_load_point": rec_st.get("at_load_point"), "extent": rec_st.get("extent"),
                  "results": {k: r[k] for k in _STATION_KEYS if k in r}}
         loads.append(entry)
     out["section_loads"] = loads
@@ -137,12 +139,61 @@ def shaft_summary(res: dict, system) -> str:
         if "fe_local" in (st["results"].get("fatigue") or {}) or "fe_local" in (st["results"].get("static") or {}):
             verdict += "; FE path from the meridian-section FE at the fillet"
         M = math.hypot(st["Mx"], st["My"])
-        side = f", {st['used_side']} side of a jump" if st["jump"] else ""
+        ext = st.get("extent")
+        side = f", {st['used_side']} side of a jump" if st["used_side"] and (st["jump"] or ext) else ""
+        if ext and abs(st["used_at"] - st["at"]) > 1e-9 * ext["length"]:
+            side = f", loads at z = {f.q(st['used_at'], 'length', 4)}" + side
         lines.append(f"    {f.q(st['at'], 'length', 4)} {st['name'] or ''}: M {f.q(M, 'moment', 4)}, T "
                      f"{f.q(st['T'], 'moment', 4)}, N {f.q(st['N'], 'force', 4)}{side} — {verdict}")
+        lines.extend(f"      {x}" for x in station_place_lines(st, f))
     g = sh["governing_station"]
     lines.append(f"  the section summary below is the governing station's ({_station_name(res, g, f)})")
     return "\n".join(lines)
+
+
+def _feature_word(field: str) -> str:
+    """The kind of feature a length field belongs to (``shaft.sections[0].section.keyways[0].length``)."""
+    for key, word in (("keyways", "keyway"), ("flats", "flat"), ("cut", "cut")):
+        if f".{key}[" in field:
+            return word
+    return "splined length"
+
+
+def _point_words(p: dict, f: Fmt, word: str) -> str:
+    """Where a candidate point of a feature is: 'z = 45 mm (end of the keyway toward A)'."""
+    what = []
+    if p["end"]:
+        what.append(f"{p['end']} of the {word}" + (f" toward {p['toward']}" if p["toward"] else " toward the shaft's end"))
+    what += [f"at {n}" for n in p["parts"]] + [f"at support {n}" for n in p["supports"]]
+    if p["station"] and not p["parts"] and not p["supports"]:
+        what.append("the station")
+    if p["side"]:
+        what.append(f"{p['side']} side of the jump")
+    return f"z = {f.q(p['z'], 'length', 4)}" + (f" ({', '.join(what)})" if what else "")
+
+
+def station_place_lines(st: dict, f: Fmt) -> list[str]:
+    """What a station is placed on: a load point, and for a feature with a length where along it the
+    governing loads were (static and fatigue each)."""
+    out = []
+    lp = st.get("at_load_point")
+    if lp:
+        names = lp["parts"] + [f"support {n}" for n in lp["supports"]]
+        out.append(f"station at the load point of {' and '.join(names)}: the loads jump here")
+    ext = st.get("extent")
+    if ext:
+        word = _feature_word(ext["field"])
+        g = ext["governing"]
+        placed = "placed by feature_from" if ext["placed"] == "feature_from" else ext["placed"]
+        text = (f"its {word} runs from {f.q(ext['from'], 'length', 4)} to {f.q(ext['to'], 'length', 4)} ({placed}); "
+                f"checked at {len(ext['candidates'])} points along it; governing loads at {_point_words(g, f, word)}")
+        for key, label in (("static_governing", "static"), ("fatigue_governing", "fatigue")):
+            p = ext.get(key)
+            if p is not None and p["factor"] is not None:
+                there = "there" if p["index"] == g["index"] else f"at {_point_words(p, f, word)}"
+                text += f"; {label} lowest n = {p['factor']:.3g} {there}"
+        out.append(text)
+    return out
 
 
 def _station_name(res, g, f) -> str:
