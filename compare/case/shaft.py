@@ -77,6 +77,7 @@ from fem.errors import InputError, escape_text
 
 from .units import to_si
 from .fields import angle as _angle, chart_factor, known as _known
+from .shaft_checklist import STATION_KEYS, SUPPORT_KEYS, parse_rating, parse_station_checklist
 
 #: Relative tolerance of the torque balance: the torques of the loads must sum to zero within this
 #: share of the largest one. Values typed with 4-6 figures balance far better than this; a torque
@@ -89,7 +90,7 @@ _SHAFT = {"length", "density", "speed", "rotating", "self_weight", "supports", "
           "sections"}
 _SEGMENT = {"from", "to", "diameter", "bore", "fillet"}
 _GROOVE = {"at", "width", "depth", "radius"}
-_SUPPORT = {"at", "stiffness", "name", "bearing"}
+_SUPPORT = {"at", "stiffness", "name", "bearing"} | SUPPORT_KEYS  # rating: shaft_checklist.py
 #: Bearing types the slope check knows (classic.shaft.SLOPE_LIMITS, Shigley 9th ed., Table 7-2).
 BEARING_TYPES = ("tapered_roller", "cylindrical_roller", "deep_groove_ball", "spherical_ball", "self_aligning_ball")
 _COMMON = {"at", "kind", "name", "torque", "mass", "inertia"}
@@ -99,7 +100,7 @@ _LOAD_KEYS = {
     "pulley": _COMMON | {"diameter", "tension_ratio", "pull_angle"},
     "sprocket": _COMMON | {"diameter", "pull_angle"},
 }
-_STATION = {"at", "name", "section", "fatigue"}
+_STATION = {"at", "name", "section", "fatigue"} | STATION_KEYS  # key, fit, spline: shaft_checklist.py
 _STATION_FATIGUE = {"kt_bending", "kt_bending_source", "kts_torsion", "kts_torsion_source", "notch_radius"}
 
 
@@ -126,6 +127,7 @@ class Support:
     stiffness: float | None = None  # radial [N/m]; None: rigid
     name: str = ""
     bearing: str | None = None  # one of BEARING_TYPES; None: judged against the tightest limit
+    rating: object | None = None  # shaft_checklist.BearingRating: C, X, Y for the basic rating life
 
 
 @dataclass(frozen=True)
@@ -167,6 +169,7 @@ class Station:
     fatigue: dict = field(default_factory=dict)  # [fatigue] keys given for this station, SI
     kt: dict = field(default_factory=dict)  # filled by a feature step: {"kt_bending": (value, source), ...}
     raw: dict = field(default_factory=dict)  # the station's case-file table (to build its own case)
+    checklist: object | None = None  # shaft_checklist.StationChecklist: key, press fit, spline
 
 
 @dataclass
@@ -309,7 +312,7 @@ def _supports(d, length, units) -> list[Support]:
             raise InputError(f"{w}.bearing", bearing, f"unknown bearing type; use one of {', '.join(BEARING_TYPES)}")
         if any(abs(at - o.at) <= GAP_TOL * length for o in out):
             raise InputError(f"{w}.at", s["at"], "is where another support already is", _unit(s["at"], units, "length"))
-        out.append(Support(at, k, name, bearing))
+        out.append(Support(at, k, name, bearing, parse_rating(s, w, units, bearing)))
     return out
 
 
@@ -403,6 +406,15 @@ def _station(s, i, sh: Shaft, units, parse_section) -> Station:
                 raise InputError(f"{w}.fatigue.{key}_source", f[f"{key}_source"], f"is given without {key}")
         if "notch_radius" in f:
             st.fatigue["notch_radius"] = _pos(f, "notch_radius", "length", f"{w}.fatigue", units)
+    if STATION_KEYS & set(s):
+        seg = sh.segment_at(at)
+        st.checklist = parse_station_checklist(s, w, units, st.section, seg.diameter if seg else None, None)
+        fit = st.checklist.fit
+        if fit is not None and fit.kt_bending is not None:  # the press fit's chart factor is the station's Kt
+            if "kt_bending" in st.fatigue:
+                raise InputError(f"{w}.fit.kt_bending", s["fit"]["kt_bending"], f"is also given as {w}.fatigue.kt_bending: "
+                                 "give it once")
+            st.fatigue["kt_bending"], st.fatigue["kt_bending_source"] = fit.kt_bending, fit.kt_bending_source
     return st
 
 

@@ -1,0 +1,84 @@
+"""results.json blocks of the designer's checklist (compare/checks/shaft_checklist.py): ``keys``,
+``splines``, ``press_fits``, ``shaft.bearing_life``, ``shaft.torsional``, and their warnings (with a
+sentence each; SI numbers in the data). README ('Keys, fits, splines, bearing life and torsion along
+the shaft') documents the keys.
+"""
+from __future__ import annotations
+
+import math
+
+
+def add_checklist_results(out: dict, a) -> None:
+    """Put the checklist's records in ``out`` (a layout case only) and its warnings after the others."""
+    out.pop("checklist", None)
+    cl = a.extra.get("checklist")
+    if not cl or "shaft" not in out:
+        return
+    out["keys"] = cl["keys"]
+    out["splines"] = cl["splines"]
+    out["press_fits"] = cl["press_fits"]
+    out["shaft"]["bearing_life"] = cl["bearing_life"]
+    out["shaft"]["torsional"] = cl["torsional"]
+    out["warnings"] = list(out.get("warnings", [])) + checklist_warnings(cl)
+
+
+def _who(e: dict) -> str:
+    return e.get("name") or f"at z = {e['at']:.6g} m"
+
+
+def checklist_warnings(cl: dict) -> list[dict]:
+    out = []
+
+    def add(code, text, **data):
+        out.append({"code": code, "text": text, "data": data})
+
+    for k in cl["keys"]:
+        n, nd = k["factor"], k["design_factor"]
+        if n is not None and n < 1:
+            add("key_overloaded", f"key in keyway {k['keyway']} at station {_who(k)}: factor of safety {n:.3g} below 1 "
+                "(the key or its seat yields under the nominal stress)", station=k["station"], keyway=k["keyway"], factor=n)
+        elif k["ok"] is False:
+            add("key_below_design_factor", f"key in keyway {k['keyway']} at station {_who(k)}: factor of safety "
+                f"{n:.3g} below the design factor {nd:g}; it needs a key {k['required_length']['governing'] * 1e3:.4g} mm "
+                "long", station=k["station"], keyway=k["keyway"], factor=n)
+    for s in cl["splines"]:
+        add("spline_standard_governs", f"spline at station {_who(s)}: tooth shear and flank pressure are the simplified "
+            "formulas (from memory, all teeth sharing evenly): the spline standard's own rating governs",
+            station=s["station"])
+        if s["shear_factor"] is not None and s["shear_factor"] < 1:
+            add("spline_overloaded", f"spline at station {_who(s)}: tooth shear factor {s['shear_factor']:.3g} below 1",
+                station=s["station"], factor=s["shear_factor"])
+    for f in cl["press_fits"]:
+        if f["fit_lost"]:
+            add("fit_lost", f"press fit at station {_who(f)}: the temperature change takes the whole interference "
+                "away: the fit holds nothing at the operating temperatures", station=f["station"])
+        else:
+            if f["slip_factor_torque"] is not None and f["slip_factor_torque"] < 1:
+                add("fit_slips", f"press fit at station {_who(f)}: it holds {f['slip_factor_torque']:.3g} times the "
+                    "torque through it: it slips", station=f["station"], factor=f["slip_factor_torque"])
+            for who in ("hub", "shaft"):
+                n = f[f"{who}_factor"]
+                if n is not None and n < 1:
+                    add("fit_yields", f"press fit at station {_who(f)}: the {who} yields at the fit (factor {n:.3g})",
+                        station=f["station"], member=who, factor=n)
+        add("fit_fretting", f"press fit at station {_who(f)}: fretting at the hub's ends lowers the shaft's fatigue "
+            "strength; " + (f"the chart factor Kt = {f['kt_bending']:g} ({f['kt_bending_source']}) is used in the "
+                            "station's fatigue check" if f["kt_bending"] is not None else
+                            "no chart factor was given (fit.kt_bending with its source): the station's fatigue check "
+                            "leaves the fit out"), station=f["station"])
+    for b in cl["bearing_life"]:
+        if "skipped" in b:
+            add("bearing_life_skipped", f"bearing {b['name'] or b['at']}: no rating life ({b['skipped']})", at=b["at"])
+        elif b.get("ok") is False:
+            add("bearing_life_short", f"bearing {b['name'] or b['at']}: basic rating life {b['L10_hours']:.4g} h below "
+                f"the required {b['required_life_hours']:g} h", at=b["at"])
+        if b.get("heavy_load"):
+            add("bearing_heavy_load", f"bearing {b['name'] or b['at']}: P above half of C, outside the range of the "
+                "basic rating life formula", at=b["at"])
+    fr = (cl["torsional"] or {}).get("frequencies") or {}
+    if fr.get("ok") is False:
+        close = [w for w, r in zip(fr["values"], fr["ratios"]) if abs(r - 1) <= fr["margin"]]
+        add("torsional_resonance", "a torsional natural frequency of the shaft lies within "
+            f"±{fr['margin']:.0%} of the operating speed ({', '.join(f'{w * 30 / math.pi:.4g} rpm' for w in close)})",
+            values=close)
+    return out
