@@ -1,0 +1,236 @@
+"""The designer's checklist on a layout: case keys (compare/case/shaft_checklist.py), the checks
+(compare/checks/shaft_checklist.py) against hand-worked values of the published formulas, and the
+outputs (results.json keys, summary lines, results.csv rows, the report's section)."""
+import json
+import math
+
+import numpy as np
+import pytest
+
+from compare.api import Case, analyse
+from compare.case.case import parse_case
+from compare.checks.shaft_beam import solve_layout
+from compare.checks.shaft_checklist import bearing_life, fit_check, key_checks, torsional
+from compare.output.report_checklist import checklist_html, checklist_rows, checklist_summary
+from compare.output.results_checklist import checklist_warnings
+from fem.errors import InputError
+
+BASE = {"case": {"units": "mm-N-MPa"},
+        "material": {"elastic_modulus": "205 GPa", "poisson": 0.29, "yield": 540, "ultimate": 760}}
+
+
+def layout(**over):
+    d = {"length": 300, "speed": "1000 rpm",
+         "supports": [{"at": 50, "bearing": "deep_groove_ball", "dynamic_rating": "20 kN", "required_life": 10000},
+                      {"at": 250, "bearing": "cylindrical_roller", "dynamic_rating": "30 kN"}],
+         "segments": [{"from": 0, "to": 300, "diameter": 30}],
+         "loads": [{"at": 150, "force": [0, -2000], "torque": "100 N*m", "inertia": 0.01},
+                   {"at": 290, "torque": "-100 N*m", "inertia": 0.03}],
+         "sections": [{"at": 150}]}
+    d.update(over)
+    return parse_case({**BASE, "shaft": d})
+
+
+def station(**over):
+    s = {"at": 150, "section": {"shape": "keyed", "diameter": 30,
+                                "keyways": [{"width": 8, "depth": 4, "fillet": 0.25, "length": 40}]},
+         "key": {"height": 7, "yield": 390, "hub_yield": 250, "design_factor": 2}}
+    s.update(over)
+    return s
+
+
+# ----------------------------------------------------------------------------- case keys
+
+
+def test_case_keys_in_si():
+    c = layout(sections=[station(fit={"interference": 0.02, "hub_diameter": 60, "length": 40, "friction": 0.12,
+                                      "hub_yield": 300, "kt_bending": 1.9, "kt_bending_source": "a chart (test)"})])
+    a, b = c.shaft.supports
+    assert a.rating.C == 20e3 and a.rating.element == "ball" and a.rating.required_life == 10000
+    assert b.rating.element == "roller" and b.rating.X is None
+    cl = c.shaft.stations[0].checklist
+    assert cl.key.length == pytest.approx(0.040) and cl.key.length_from == "the keyway's length"
+    kw = cl.key.keyways[0]
+    y = 0.015 - math.sqrt(0.015**2 - 0.004**2)  # chordal height, ASME B17.1's Y
+    assert kw.shaft_engagement == pytest.approx(0.004 - y) and kw.hub_engagement == pytest.approx(0.007 - 0.004 + y)
+    assert cl.fit.interference == pytest.approx(2e-5) and cl.fit.hub_diameter == pytest.approx(0.060)
+    assert c.shaft.stations[0].fatigue["kt_bending"] == 1.9  # the fit's chart factor becomes the station's Kt
+
+
+def test_standard_keyway_gives_the_key_height():
+    # ISO/R773 and DIN 6885-1: shafts over 22 up to 30 mm take an 8 x 7 key
+    s = station(section={"shape": "keyed", "diameter": 30, "keyways": [{"standard": "metric", "length": 40}]},
+                key={"yield": 390, "hub_yield": 250})
+    kw = layout(sections=[s]).shaft.stations[0].checklist.key.keyways[0]
+    assert kw.height == pytest.approx(0.007) and "6885" in kw.height_from
+
+
+@pytest.mark.parametrize("sections, supports, field", [
+    ([station(key={"yield": 390, "hub_yield": 250})], None, "shaft.sections[0].key.height"),
+    ([station(key={"height": 7, "hub_yield": 250})], None, "shaft.sections[0].key.yield"),
+    ([station(key={"height": 3, "yield": 390, "hub_yield": 250})], None, "shaft.sections[0].key.height"),
+    ([station(key={"height": 7, "yield": 390, "hub_yield": 250, "colour": 1})], None, "shaft.sections[0].key.colour"),
+    ([{"at": 150, "key": {"height": 7, "yield": 390, "hub_yield": 250}}], None, "shaft.sections[0].key"),
+    ([{"at": 150, "fit": {"interference": 0.02, "hub_diameter": 25, "length": 40, "friction": 0.1}}], None,
+     "shaft.sections[0].fit.hub_diameter"),
+    ([{"at": 150, "fit": {"interference": 0.02, "hub_diameter": 60, "length": 40}}], None,
+     "shaft.sections[0].fit.friction"),
+    ([{"at": 150, "fit": {"interference": 0.02, "hub_diameter": 60, "length": 40, "friction": 0.1,
+                          "hub_temperature_rise": 30}}], None, "shaft.sections[0].fit.hub_expansion"),
+    ([{"at": 150, "fit": {"interference": 0.02, "hub_diameter": 60, "length": 40, "friction": 0.1,
+                          "kt_bending": 2}}], None, "shaft.sections[0].fit.kt_bending_source"),
+    ([{"at": 150, "spline": {"length": 20, "depth": 1}}], None, "shaft.sections[0].spline"),
+    (None, [{"at": 50, "dynamic_rating": "20 kN"}, {"at": 250}], "shaft.supports[0].bearing"),
+    (None, [{"at": 50, "bearing": "tapered_roller", "dynamic_rating": "20 kN", "x_factor": 0.4}, {"at": 250}],
+     "shaft.supports[0].y_factor"),
+    (None, [{"at": 50, "required_life": 100}, {"at": 250}], "shaft.supports[0].required_life"),
+    (None, [{"at": 50, "bearing": "tapered_roller", "dynamic_rating": 0}, {"at": 250}],
+     "shaft.supports[0].dynamic_rating"),
+])
+def test_refusals_name_the_field(sections, supports, field):
+    over = {}
+    if sections is not None:
+        over["sections"] = sections
+    if supports is not None:
+        over["supports"] = supports
+    with pytest.raises(InputError) as e:
+        layout(**over)
+    assert e.value.field == field
+
+
+# ----------------------------------------------------------------------------- checks (no section FE needed)
+
+
+def _srec(T):
+    z = {"N": 0.0, "Vx": 0.0, "Vy": 0.0, "Mx": 0.0, "My": 0.0, "T": T}
+    return {"loads": {"left": z, "right": z}, "diameter": 0.030, "bore": None}
+
+
+def test_key_checks_hand_worked():
+    # Shigley 9th ed., Sec. 7-7: τ = 2T/(d·w·L), σ = 2T/(d·t·L); the part at the station carries 100 N·m
+    c = layout(sections=[station()])
+    st = c.shaft.stations[0]
+    (k,) = key_checks(0, st, _srec(100.0), st.checklist.key, c.shaft, 540e6, None)
+    ts = st.checklist.key.keyways[0].shaft_engagement
+    assert k["torque"] == pytest.approx(100.0) and "part" in k["torque_basis"]
+    assert k["shear_stress"] == pytest.approx(2 * 100 / (0.030 * 0.008 * 0.040), rel=1e-12)
+    assert k["bearing_stress_shaft"] == pytest.approx(2 * 100 / (0.030 * ts * 0.040), rel=1e-12)
+    assert k["factors"]["shear"] == pytest.approx(0.577 * 390e6 / k["shear_stress"], rel=1e-12)
+    assert k["factors"]["bearing_hub"] == pytest.approx(250e6 / k["bearing_stress_hub"], rel=1e-12)
+    # at the required length each factor is the design factor
+    for side, n in k["factors"].items():
+        assert n * k["required_length"][side] / k["length"] == pytest.approx(2.0, rel=1e-12)
+
+
+def test_two_keys_share_as_common_practice():
+    kws = [{"width": 8, "depth": 4, "fillet": 0.25, "length": 40, "angle": 90},
+           {"width": 8, "depth": 4, "fillet": 0.25, "length": 40, "angle": 270}]
+    c = layout(sections=[station(section={"shape": "keyed", "diameter": 30, "keyways": kws})])
+    st = c.shaft.stations[0]
+    ks = key_checks(0, st, _srec(100.0), st.checklist.key, c.shaft, 540e6, None)
+    assert len(ks) == 2 and all(k["torque_per_key"] == pytest.approx(100 / 1.5) for k in ks)
+
+
+def test_bearing_life_from_the_reactions_hand_worked():
+    # a 2 kN load midway between bearings 200 mm apart: 1 kN on each (statics); ISO 281 L10 = (C/P)^p
+    c = layout()
+    lay = solve_layout(c.shaft, c.section, c.material)
+    a, b = bearing_life(c.shaft, lay)
+    assert a["Fr"] == pytest.approx(1000.0, rel=1e-9) and b["Fr"] == pytest.approx(1000.0, rel=1e-9)
+    assert a["L10_revolutions"] == pytest.approx(20.0**3 * 1e6, rel=1e-8)
+    assert b["L10_revolutions"] == pytest.approx(30.0 ** (10 / 3) * 1e6, rel=1e-8)
+    assert a["L10_hours"] == pytest.approx(8e9 / (1000 * 60), rel=1e-8) and a["ok"] is True
+    assert "adjusted" in a["caution"]
+
+
+def test_bearing_with_thrust_needs_x_and_y():
+    c = layout(loads=[{"at": 150, "force": [0, -2000], "axial": 500, "torque": "100 N*m"},
+                      {"at": 290, "torque": "-100 N*m"}])
+    lay = solve_layout(c.shaft, c.section, c.material)
+    a, b = bearing_life(c.shaft, lay)
+    assert "skipped" in a and "x_factor" in a["skipped"] and "L10_revolutions" in b  # the locating bearing takes Fa
+    c = layout(loads=[{"at": 150, "force": [0, -2000], "axial": 500, "torque": "100 N*m"},
+                                  {"at": 290, "torque": "-100 N*m"}],
+               supports=[{"at": 50, "bearing": "deep_groove_ball", "dynamic_rating": "20 kN", "x_factor": 0.56,
+                          "y_factor": 1.6}, {"at": 250}])
+    (a,) = bearing_life(c.shaft, solve_layout(c.shaft, c.section, c.material))
+    assert a["P"] == pytest.approx(0.56 * 1000 + 1.6 * 500, rel=1e-8)
+
+
+def test_fit_check_hand_worked():
+    # Shigley 9th ed., eq. (3-57), one material, solid shaft: p = E·δ(ro² − R²)/(2R·ro²), δ radial
+    c = layout(sections=[{"at": 150, "fit": {"interference": 0.03, "hub_diameter": 60, "length": 40,
+                                             "friction": 0.12, "hub_yield": 300}}])
+    st = c.shaft.stations[0]
+    f = fit_check(0, st, _srec(100.0), st.checklist.fit, c)
+    R, ro, d = 0.015, 0.030, 15e-6
+    p = 205e9 * d * (ro**2 - R**2) / (2 * R * ro**2)
+    assert {"fem": f["contact_pressure"], "exact": p} == pytest.approx({"fem": p, "exact": p}, rel=1e-12)
+    assert f["torque_capacity"] == pytest.approx(2 * math.pi * 0.12 * p * R**2 * 0.040, rel=1e-12)
+    assert f["slip_factor_torque"] == pytest.approx(f["torque_capacity"] / 100.0)
+    codes = [w["code"] for w in checklist_warnings({"keys": [], "splines": [], "press_fits": [f], "bearing_life": [],
+                                                    "torsional": {}})]
+    assert codes == ["fit_fretting"]  # the caution on fretting is always given
+
+
+def test_fit_lost_to_temperature():
+    c = layout(sections=[{"at": 150, "fit": {"interference": 0.01, "hub_diameter": 60, "length": 40,
+                                             "friction": 0.12, "hub_expansion": 23e-6, "hub_temperature_rise": 40}}])
+    st = c.shaft.stations[0]
+    f = fit_check(0, st, _srec(100.0), st.checklist.fit, c)
+    assert f["fit_lost"] and f["contact_pressure"] == 0 and f["torque_capacity"] == 0
+
+
+def test_torsional_two_discs_on_a_massless_shaft():
+    # Den Hartog, Mechanical Vibrations, 4th ed. (1956): ω² = k(J1 + J2)/(J1·J2), k = GJ/L; and the
+    # twist between the parts θ = T·L/(GJ) (Shigley 9th ed., eq. (3-35)), round bars (no FE stations)
+    c = layout()
+    lay = solve_layout(c.shaft, c.section, c.material)
+    tor = torsional(c.shaft, c, lay, [], [])
+    G = c.material.shear_modulus
+    J = math.pi * 0.030**4 / 32
+    k = G * J / 0.140
+    exact = math.sqrt(k * (0.01 + 0.03) / (0.01 * 0.03))
+    w = tor["frequencies"]["values"]
+    assert len(w) == 1 and {"fem": w[0], "exact": exact} == pytest.approx({"fem": exact, "exact": exact}, rel=1e-9)
+    (bt,) = tor["between"]
+    assert bt["angle"]["fe"] == pytest.approx(-100 * 0.140 / (G * J), rel=1e-9)  # T on the +z face is −100 N·m
+    assert bt["angle"]["classic"] == pytest.approx(bt["angle"]["fe"], rel=1e-12)  # no FE section: the same
+    assert tor["frequencies"]["ok"] is True and tor["frequencies"]["ratios"][0] == pytest.approx(exact / (1000 * math.pi / 30))
+
+
+# ----------------------------------------------------------------------------- whole run
+
+
+@pytest.fixture(scope="module")
+def small_run(tmp_path_factory):
+    d = {**BASE, "analysis": {"accuracy": "5 %"},
+         "shaft": {"length": 300, "speed": "1000 rpm", "density": 7850,
+                   "supports": [{"at": 50, "bearing": "deep_groove_ball", "dynamic_rating": "20 kN",
+                                 "required_life": 10000}, {"at": 250}],
+                   "segments": [{"from": 0, "to": 300, "diameter": 30}],
+                   "loads": [{"at": 150, "force": [0, -2000], "torque": "100 N*m", "inertia": 0.01},
+                             {"at": 290, "torque": "-100 N*m", "inertia": 0.03}],
+                   "sections": [{"at": 150, "fit": {"interference": 0.03, "hub_diameter": 60, "length": 40,
+                                                    "friction": 0.12, "hub_yield": 300}}]}}
+    r = analyse(Case.from_dict(d))
+    out = tmp_path_factory.mktemp("run")
+    r.save(out, vtu=False, report=True)
+    return r, out
+
+
+def test_results_summary_csv_and_report_carry_the_checklist(small_run):
+    r, out = small_run
+    res = json.loads((out / "results.json").read_text())
+    assert set(res["shaft"]["bearing_life"][0]) >= {"L10_revolutions", "L10_hours", "C", "P", "caution"}
+    assert res["press_fits"][0]["contact_pressure"] > 0 and res["keys"] == [] and res["splines"] == []
+    fr = res["shaft"]["torsional"]["frequencies"]
+    assert fr["values"][0] > 0 and "speed" in fr
+    assert any(w["code"] == "fit_fretting" for w in res["warnings"])
+    csv = (out / "results.csv").read_text()
+    assert "press fit" in csv and "basic rating life L10" in csv and "first torsional natural frequency" in csv
+    assert "Keys, fits, splines, bearings and torsion along the shaft" in (out / "report.html").read_text()
+    text = checklist_summary(res, r.analysis.case.units)
+    assert "press fit" in text and "L10" in text and "torsional natural frequencies" in text
+    assert checklist_rows(res, r.analysis.case.units) and "<li>" in checklist_html(res, r.analysis.case.units)
+    assert np.isfinite(res["shaft"]["torsional"]["between"][0]["angle"]["fe"])
