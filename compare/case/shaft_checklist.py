@@ -250,3 +250,18 @@ def _fit(f, w, units, d) -> FitData:
     if kt is None and "kt_bending_source" in f:
         raise InputError(f"{w}.kt_bending_source", f["kt_bending_source"], "is given without kt_bending")
     return FitData(delta, D, L, mu, E, nu, sy, a_s, a_h, dT_s, dT_h, *(kt or (None, None)))
+
+
+def check_fits_with_section(shaft, section, units=None) -> None:
+    """A shaft without segments takes its diameter from [section]: a press fit's hub must be larger
+    than that diameter too (checked here, where the section is known)."""
+    if shaft is None or shaft.segments:
+        return
+    for i, st in enumerate(shaft.stations):
+        fit = st.checklist.fit if st.checklist is not None else None
+        sec = st.section if st.section is not None else section
+        d = getattr(sec, "diameter", None)
+        if fit is not None and d is not None and not fit.hub_diameter > d:
+            raw = st.raw["fit"]["hub_diameter"]
+            raise InputError(f"shaft.sections[{i}].fit.hub_diameter", raw, "must be larger than the shaft's diameter at "
+                             "the fit", _unit(raw, units, "length"))

@@ -160,14 +160,15 @@ def spline_check(i, st, srec, sp, shaft, shaft_yield) -> dict:
 def fit_check(i, st, srec, fit, case: Case) -> dict:
     shaft, mat = case.shaft, case.material
     d, bore = srec["diameter"], srec.get("bore") or 0.0
+    nu_s = mat.poisson if mat.poisson is not None else mat.elastic_modulus / (2 * mat.shear_modulus) - 1
     E_h = fit.hub_elastic_modulus or mat.elastic_modulus
-    nu_h = fit.hub_poisson if fit.hub_poisson is not None else mat.poisson
+    nu_h = fit.hub_poisson if fit.hub_poisson is not None else nu_s
     dd = cp.thermal_interference_change(d, fit.shaft_expansion, fit.shaft_temperature_rise, fit.hub_expansion,
                                         fit.hub_temperature_rise)
     delta = fit.interference + dd
     R, ro, ri = d / 2, fit.hub_diameter / 2, bore / 2
     lost = delta <= 0
-    p = 0.0 if lost else cp.contact_pressure(delta / 2, R, ro, ri, E_h, nu_h, mat.elastic_modulus, mat.poisson)
+    p = 0.0 if lost else cp.contact_pressure(delta / 2, R, ro, ri, E_h, nu_h, mat.elastic_modulus, nu_s)
     s = cp.fit_stresses(p, R, ro, ri)
     vm_hub = math.sqrt(s.hub_tangential**2 - s.hub_tangential * s.hub_radial + s.hub_radial**2)
     vm_shaft = math.sqrt(s.shaft_tangential**2 - s.shaft_tangential * s.shaft_radial + s.shaft_radial**2)
