@@ -234,3 +234,12 @@ def test_results_summary_csv_and_report_carry_the_checklist(small_run):
     assert "press fit" in text and "L10" in text and "torsional natural frequencies" in text
     assert checklist_rows(res, r.analysis.case.units) and "<li>" in checklist_html(res, r.analysis.case.units)
     assert np.isfinite(res["shaft"]["torsional"]["between"][0]["angle"]["fe"])
+
+
+def test_api_quantities_of_the_checklist(small_run):
+    r, _ = small_run
+    assert r.q.press_fits[0].contact_pressure.to("MPa").magnitude == pytest.approx(
+        r.press_fits[0]["contact_pressure"] / 1e6)
+    assert str(r.q.shaft.bearing_life[0].L10_hours.units) == "hour"
+    assert r.q.shaft.torsional.frequencies.values.to("rpm").magnitude[0] == pytest.approx(
+        r.shaft["torsional"]["frequencies"]["values"][0] * 30 / math.pi)
