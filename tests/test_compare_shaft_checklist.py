@@ -10,7 +10,7 @@ import pytest
 from compare.api import Case, analyse
 from compare.case.case import parse_case
 from compare.checks.shaft_beam import solve_layout
-from compare.checks.shaft_checklist import bearing_life, fit_check, key_checks, torsional
+from compare.checks.shaft_checklist import bearing_life, fit_check, key_checks, spline_check, torsional
 from compare.output.report_checklist import checklist_html, checklist_rows, checklist_summary
 from compare.output.results_checklist import checklist_warnings
 from fem.errors import InputError
@@ -243,3 +243,21 @@ def test_api_quantities_of_the_checklist(small_run):
     assert str(r.q.shaft.bearing_life[0].L10_hours.units) == "hour"
     assert r.q.shaft.torsional.frequencies.values.to("rpm").magnitude[0] == pytest.approx(
         r.shaft["torsional"]["frequencies"]["values"][0] * 30 / math.pi)
+
+
+def test_spline_check_hand_worked():
+    # from memory (Dudley, Gear Handbook, 1962): τ = 2T/(d_p·z·t·L), p = 2T/(d_p·z·h·L); involute spline
+    # module 1.25, 24 teeth: d_p = m·z = 30 mm, basic tooth thickness half the circular pitch
+    sec = {"shape": "spline", "form": "involute", "module": 1.25, "teeth": 24, "pressure_angle": 30, "root": "flat"}
+    c = layout(segments=[{"from": 0, "to": 300, "diameter": 31.25}],
+               sections=[{"at": 150, "section": sec, "spline": {"length": 20, "depth": 1.0}}])
+    st = c.shaft.stations[0]
+    s = spline_check(0, st, _srec(100.0), st.checklist.spline, c.shaft, 540e6)
+    t = math.pi * 1.25e-3 / 2
+    assert s["pitch_diameter"] == pytest.approx(0.030) and s["tooth_thickness"] == pytest.approx(t)
+    assert s["shear_stress"] == pytest.approx(2 * 100 / (0.030 * 24 * t * 0.020), rel=1e-12)
+    assert s["bearing_pressure"] == pytest.approx(2 * 100 / (0.030 * 24 * 0.001 * 0.020), rel=1e-12)
+    assert s["from_memory"] and s["bearing_factor"] is None
+    codes = [w["code"] for w in checklist_warnings({"keys": [], "splines": [s], "press_fits": [], "bearing_life": [],
+                                                    "torsional": {}})]
+    assert codes == ["spline_standard_governs"]

@@ -19,7 +19,19 @@ def add_checklist_results(out: dict, a) -> None:
     out["press_fits"] = cl["press_fits"]
     out["shaft"]["bearing_life"] = cl["bearing_life"]
     out["shaft"]["torsional"] = cl["torsional"]
-    out["warnings"] = list(out.get("warnings", [])) + checklist_warnings(cl)
+    ws = checklist_warnings(cl)
+    severe = [w for w in ws if w["code"] in SEVERE]
+    rest = [w for w in ws if w["code"] not in SEVERE]
+    before = list(out.get("warnings", []))
+    # after the warnings that withdraw a verdict, before the rest: a key, fit or bearing that fails matters
+    # as much as a factor below 1
+    k = sum(1 for w in before if "no_verdict" in w["code"])
+    out["warnings"] = before[:k] + severe + before[k:] + rest
+
+
+#: Warnings of the checklist that report a failure (put first); the others are cautions (put last).
+SEVERE = ("key_overloaded", "key_below_design_factor", "spline_overloaded", "fit_lost", "fit_slips", "fit_yields",
+          "bearing_life_short", "bearing_heavy_load", "torsional_resonance")
 
 
 def _who(e: dict) -> str:
