@@ -261,3 +261,23 @@ def test_spline_check_hand_worked():
     codes = [w["code"] for w in checklist_warnings({"keys": [], "splines": [s], "press_fits": [], "bearing_life": [],
                                                     "torsional": {}})]
     assert codes == ["spline_standard_governs"]
+
+
+def test_failures_are_warned():
+    # a key of soft material (n < 1), a small bearing below its required life, and an operating speed at
+    # the two-disc torsional frequency (Den Hartog, 4th ed.: ω² = k(J1 + J2)/(J1·J2))
+    G = 205e9 / (2 * 1.29)
+    k = G * math.pi * 0.030**4 / 32 / 0.140
+    w = math.sqrt(k * 0.04 / 0.0003)
+    c = layout(speed=f"{w} rad/s",
+               supports=[{"at": 50, "bearing": "deep_groove_ball", "dynamic_rating": "2 kN", "required_life": 1e6},
+                         {"at": 250}],
+               sections=[station(key={"height": 7, "yield": 5, "hub_yield": 250, "design_factor": 2})])
+    st = c.shaft.stations[0]
+    lay = solve_layout(c.shaft, c.section, c.material)
+    cl = {"keys": key_checks(0, st, _srec(100.0), st.checklist.key, c.shaft, 540e6, None), "splines": [],
+          "press_fits": [], "bearing_life": bearing_life(c.shaft, lay), "torsional": torsional(c.shaft, c, lay, [], [])}
+    codes = {x["code"] for x in checklist_warnings(cl, c.units)}
+    assert {"key_overloaded", "bearing_life_short", "torsional_resonance"} <= codes
+    assert cl["keys"][0]["factor"] < 1 and cl["bearing_life"][0]["ok"] is False
+    assert cl["torsional"]["frequencies"]["ratios"][0] == pytest.approx(1.0, rel=1e-9)

@@ -247,6 +247,8 @@ def torsional(shaft, case: Case, lay, stations, analyses) -> dict:
     fe = []
     for st, srec, a in zip(shaft.stations, stations, analyses):
         lengths = [ln for _, ln in a.case.feature_lengths] if st.section is not None else []
+        if st.section is not None and not lengths and st.checklist is not None and st.checklist.spline is not None:
+            lengths = [st.checklist.spline.length]  # a splined length: its engagement length
         if lengths:
             ell = max(lengths)
             fe.append((max(st.at - ell / 2, 0.0), min(st.at + ell / 2, shaft.length), a.torsion.J, a.props.polar,

@@ -7,6 +7,8 @@ from __future__ import annotations
 
 import math
 
+from .report import Fmt
+
 
 def add_checklist_results(out: dict, a) -> None:
     """Put the checklist's records in ``out`` (a layout case only) and its warnings after the others."""
@@ -19,7 +21,7 @@ def add_checklist_results(out: dict, a) -> None:
     out["press_fits"] = cl["press_fits"]
     out["shaft"]["bearing_life"] = cl["bearing_life"]
     out["shaft"]["torsional"] = cl["torsional"]
-    ws = checklist_warnings(cl)
+    ws = checklist_warnings(cl, a.case.units)
     severe = [w for w in ws if w["code"] in SEVERE]
     rest = [w for w in ws if w["code"] not in SEVERE]
     before = list(out.get("warnings", []))
@@ -34,12 +36,13 @@ SEVERE = ("key_overloaded", "key_below_design_factor", "spline_overloaded", "fit
           "bearing_life_short", "bearing_heavy_load", "torsional_resonance")
 
 
-def _who(e: dict) -> str:
-    return e.get("name") or f"at z = {e['at']:.6g} m"
-
-
-def checklist_warnings(cl: dict) -> list[dict]:
+def checklist_warnings(cl: dict, system=None) -> list[dict]:
+    """The warnings of the checklist: {code, text (in the case's units), data (SI)}."""
+    f = Fmt(system)
     out = []
+
+    def _who(e: dict) -> str:
+        return e.get("name") or f"at z = {f.q(e['at'], 'length', 4)}"
 
     def add(code, text, **data):
         out.append({"code": code, "text": text, "data": data})
@@ -51,7 +54,7 @@ def checklist_warnings(cl: dict) -> list[dict]:
                 "(the key or its seat yields under the nominal stress)", station=k["station"], keyway=k["keyway"], factor=n)
         elif k["ok"] is False:
             add("key_below_design_factor", f"key in keyway {k['keyway']} at station {_who(k)}: factor of safety "
-                f"{n:.3g} below the design factor {nd:g}; it needs a key {k['required_length']['governing'] * 1e3:.4g} mm "
+                f"{n:.3g} below the design factor {nd:g}; it needs a key {f.q(k['required_length']['governing'], 'length', 4)} "
                 "long", station=k["station"], keyway=k["keyway"], factor=n)
     for s in cl["splines"]:
         add("spline_standard_governs", f"spline at station {_who(s)}: tooth shear and flank pressure are the simplified "
@@ -60,32 +63,35 @@ def checklist_warnings(cl: dict) -> list[dict]:
         if s["shear_factor"] is not None and s["shear_factor"] < 1:
             add("spline_overloaded", f"spline at station {_who(s)}: tooth shear factor {s['shear_factor']:.3g} below 1",
                 station=s["station"], factor=s["shear_factor"])
-    for f in cl["press_fits"]:
-        if f["fit_lost"]:
-            add("fit_lost", f"press fit at station {_who(f)}: the temperature change takes the whole interference "
-                "away: the fit holds nothing at the operating temperatures", station=f["station"])
+    for pf in cl["press_fits"]:
+        if pf["fit_lost"]:
+            add("fit_lost", f"press fit at station {_who(pf)}: the temperature change takes the whole interference "
+                "away: the fit holds nothing at the operating temperatures", station=pf["station"])
         else:
-            if f["slip_factor_torque"] is not None and f["slip_factor_torque"] < 1:
-                add("fit_slips", f"press fit at station {_who(f)}: it holds {f['slip_factor_torque']:.3g} times the "
-                    "torque through it: it slips", station=f["station"], factor=f["slip_factor_torque"])
+            if pf["slip_factor_torque"] is not None and pf["slip_factor_torque"] < 1:
+                add("fit_slips", f"press fit at station {_who(pf)}: it holds {pf['slip_factor_torque']:.3g} times the "
+                    "torque through it: it slips", station=pf["station"], factor=pf["slip_factor_torque"])
+            if pf["slip_factor_axial"] is not None and pf["slip_factor_axial"] < 1:
+                add("fit_slips", f"press fit at station {_who(pf)}: it holds {pf['slip_factor_axial']:.3g} times the "
+                    "axial force through it: it slides", station=pf["station"], factor=pf["slip_factor_axial"])
             for who in ("hub", "shaft"):
-                n = f[f"{who}_factor"]
+                n = pf[f"{who}_factor"]
                 if n is not None and n < 1:
-                    add("fit_yields", f"press fit at station {_who(f)}: the {who} yields at the fit (factor {n:.3g})",
-                        station=f["station"], member=who, factor=n)
-        add("fit_fretting", f"press fit at station {_who(f)}: fretting at the hub's ends lowers the shaft's fatigue "
-            "strength; " + (f"the chart factor Kt = {f['kt_bending']:g} ({f['kt_bending_source']}) is used in the "
-                            "station's fatigue check" if f["kt_bending"] is not None else
+                    add("fit_yields", f"press fit at station {_who(pf)}: the {who} yields at the fit (factor {n:.3g})",
+                        station=pf["station"], member=who, factor=n)
+        add("fit_fretting", f"press fit at station {_who(pf)}: fretting at the hub's ends lowers the shaft's fatigue "
+            "strength; " + (f"the chart factor Kt = {pf['kt_bending']:g} ({pf['kt_bending_source']}) is used in the "
+                            "station's fatigue check" if pf["kt_bending"] is not None else
                             "no chart factor was given (fit.kt_bending with its source): the station's fatigue check "
-                            "leaves the fit out"), station=f["station"])
+                            "leaves the fit out"), station=pf["station"])
     for b in cl["bearing_life"]:
         if "skipped" in b:
-            add("bearing_life_skipped", f"bearing {b['name'] or b['at']}: no rating life ({b['skipped']})", at=b["at"])
+            add("bearing_life_skipped", f"bearing {b['name'] or f.q(b['at'], 'length', 4)}: no rating life ({b['skipped']})", at=b["at"])
         elif b.get("ok") is False:
-            add("bearing_life_short", f"bearing {b['name'] or b['at']}: basic rating life {b['L10_hours']:.4g} h below "
+            add("bearing_life_short", f"bearing {b['name'] or f.q(b['at'], 'length', 4)}: basic rating life {b['L10_hours']:.4g} h below "
                 f"the required {b['required_life_hours']:g} h", at=b["at"])
         if b.get("heavy_load"):
-            add("bearing_heavy_load", f"bearing {b['name'] or b['at']}: P above half of C, outside the range of the "
+            add("bearing_heavy_load", f"bearing {b['name'] or f.q(b['at'], 'length', 4)}: P above half of C, outside the range of the "
                 "basic rating life formula", at=b["at"])
     fr = (cl["torsional"] or {}).get("frequencies") or {}
     if fr.get("ok") is False:
