@@ -271,7 +271,8 @@ def torsional(shaft, case: Case, lay, stations, analyses) -> dict:
     phi_round = twist(TorsionLine(z, GJ_round), Tel)
     parts = sorted([(ld.at, ld.name or f"loads[{j}]") for j, ld in enumerate(shaft.loads)])
     node = lambda at: int(np.argmin(np.abs(z - at)))  # noqa: E731
-    rot = [{"at": at, "name": nm, "rotation": float(phi[node(at)] - phi[node(parts[0][0])])} for at, nm in parts] if parts else []
+    first = node(parts[0][0]) if parts else 0
+    rot = [{"at": at, "name": nm, "rotation": float(phi[node(at)] - phi[first])} for at, nm in parts]
     between = []
     for p in range(len(parts)):
         for q in range(p + 1, len(parts)):

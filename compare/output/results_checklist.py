@@ -85,14 +85,15 @@ def checklist_warnings(cl: dict, system=None) -> list[dict]:
                             "no chart factor was given (fit.kt_bending with its source): the station's fatigue check "
                             "leaves the fit out"), station=pf["station"])
     for b in cl["bearing_life"]:
+        who = b["name"] or f.q(b["at"], "length", 4)
         if "skipped" in b:
-            add("bearing_life_skipped", f"bearing {b['name'] or f.q(b['at'], 'length', 4)}: no rating life ({b['skipped']})", at=b["at"])
+            add("bearing_life_skipped", f"bearing {who}: no rating life ({b['skipped']})", at=b["at"])
         elif b.get("ok") is False:
-            add("bearing_life_short", f"bearing {b['name'] or f.q(b['at'], 'length', 4)}: basic rating life {b['L10_hours']:.4g} h below "
-                f"the required {b['required_life_hours']:g} h", at=b["at"])
+            add("bearing_life_short", f"bearing {who}: basic rating life {b['L10_hours']:.4g} h below the required "
+                f"{b['required_life_hours']:g} h", at=b["at"])
         if b.get("heavy_load"):
-            add("bearing_heavy_load", f"bearing {b['name'] or f.q(b['at'], 'length', 4)}: P above half of C, outside the range of the "
-                "basic rating life formula", at=b["at"])
+            add("bearing_heavy_load", f"bearing {who}: P above half of C, outside the range of the basic rating life "
+                "formula", at=b["at"])
     fr = (cl["torsional"] or {}).get("frequencies") or {}
     if fr.get("ok") is False:
         close = [w for w, r in zip(fr["values"], fr["ratios"]) if abs(r - 1) <= fr["margin"]]
