@@ -52,7 +52,7 @@ Dataclasses (stable: later steps build on them; fields are added, never renamed)
 - :class:`Segment` (start, end, diameter, bore, fillet) [m]
 - :class:`Groove` (at, width, depth, radius) [m]
 - :class:`Support` (at [m], stiffness [N/m] or None = rigid, name, bearing (type for the slope
-  limit, one of :data:`BEARING_TYPES`, or None))
+  limit, one of :data:`BEARING_TYPES`, or None), rating (shaft_checklist.BearingRating or None))
 - :class:`ShaftLoad` (at, kind, name, force (Fx, Fy) [N], axial [N], moment (Mx, My) [N·m],
   torque [N·m], mass [kg], inertia [kg·m²], gear: :class:`Gear` | None, pulley: :class:`Pulley` | None)
 - :class:`Gear` (pitch_diameter [m], pressure_angle, helix_angle [deg], hand, mesh_angle [deg])
@@ -60,7 +60,8 @@ Dataclasses (stable: later steps build on them; fields are added, never renamed)
 - :class:`Station` (at [m], name, section (fem Section | None = the segment's plain round),
   fatigue (dict of the [fatigue] keys given, SI), kt (dict filled by a later feature step:
   {"kt_bending": (value, source), "kts_torsion": (value, source)}; the station check uses a value
-  the user gave in ``fatigue`` first, then these), raw (the station's case-file table))
+  the user gave in ``fatigue`` first, then these), raw (the station's case-file table), checklist
+  (shaft_checklist.StationChecklist: key, fit, spline; or None))
 - :class:`Shaft` (length, segments, grooves, supports, loads, stations, density, speed [rad/s],
   rotating, self_weight)
 
