@@ -84,9 +84,11 @@ def natural_frequencies(line: TorsionLine, inertias=(), count: int = 3) -> tuple
         Mc = M[np.ix_(a, a)]
     else:
         Kc, Mc, X = K, M, np.zeros((0, len(a)))
-    w2, vec = scipy.linalg.eigh(Kc, Mc)
-    # the rigid-body rotation: ω² = 0 up to round-off of the largest stiffness over the mass
-    tol = 1e-9 * abs(w2).max() if len(w2) else 0.0
+    # the lowest count + 1 pairs only (the rigid-body mode among them): a shaft's line has a few hundred nodes
+    w2, vec = scipy.linalg.eigh(Kc, Mc, subset_by_index=[0, min(count, len(Kc) - 1)])
+    # the rigid-body rotation: ω² = 0 up to round-off of the largest eigenvalue, which max(K_ii/M_ii) bounds
+    # from the order of magnitude (Gershgorin, to a factor of the row's few entries)
+    tol = 1e-9 * float(np.max(np.diag(Kc) / np.diag(Mc)))
     keep = np.where(w2 > tol)[0][:count]
     full = np.zeros((len(line.z), len(keep)))
     full[a] = vec[:, keep]
