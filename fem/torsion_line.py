@@ -86,10 +86,9 @@ def natural_frequencies(line: TorsionLine, inertias=(), count: int = 3) -> tuple
         Kc, Mc, X = K, M, np.zeros((0, len(a)))
     # the lowest count + 1 pairs only (the rigid-body mode among them): a shaft's line has a few hundred nodes
     w2, vec = scipy.linalg.eigh(Kc, Mc, subset_by_index=[0, min(count, len(Kc) - 1)])
-    # the rigid-body rotation: ω² = 0 up to round-off of the largest eigenvalue, which max(K_ii/M_ii) bounds
-    # from the order of magnitude (Gershgorin, to a factor of the row's few entries)
-    tol = 1e-9 * float(np.max(np.diag(Kc) / np.diag(Mc)))
-    keep = np.where(w2 > tol)[0][:count]
+    # the shaft is connected (GJ > 0 everywhere) and free at both ends: exactly one rigid-body rotation, the
+    # lowest pair (ω² = 0 up to round-off); it is left out by position, never by a tolerance on ω²
+    keep = np.arange(1, len(w2))
     full = np.zeros((len(line.z), len(keep)))
     full[a] = vec[:, keep]
     if len(b):

@@ -281,3 +281,15 @@ def test_failures_are_warned():
     assert {"key_overloaded", "bearing_life_short", "torsional_resonance"} <= codes
     assert cl["keys"][0]["factor"] < 1 and cl["bearing_life"][0]["ok"] is False
     assert cl["torsional"]["frequencies"]["ratios"][0] == pytest.approx(1.0, rel=1e-9)
+
+
+def test_near_coincident_points_do_not_upset_the_torsion_model():
+    # a station 1e-10 of the length beside a part would make a tiny element: the nodes are merged, and
+    # the two-disc frequency (Den Hartog, 4th ed.) still holds to the merge's share
+    c = layout(sections=[{"at": 150}, {"at": 290 - 3e-8}])
+    lay = solve_layout(c.shaft, c.section, c.material)
+    tor = torsional(c.shaft, c, lay, [], [])
+    G = c.material.shear_modulus
+    k = G * math.pi * 0.030**4 / 32 / 0.140
+    exact = math.sqrt(k * (0.01 + 0.03) / (0.01 * 0.03))
+    assert tor["frequencies"]["values"][0] == pytest.approx(exact, rel=1e-5)

@@ -70,3 +70,13 @@ def test_refusals():
         TorsionLine([0.0, 1.0], 0.0)
     w, _ = natural_frequencies(TorsionLine([0.0, 1.0], 1.0), [(0, 1.0)])
     assert len(w) == 0  # one inertia on a massless shaft: no vibration mode
+
+
+def test_a_tiny_element_loses_no_mode():
+    # two points of interest 1e-9 of the length apart make a very stiff element; the rigid-body mode is
+    # left out by position, so the two-disc mode (Den Hartog, 4th ed.) is still found exactly
+    L, GJ, J1, J2 = 0.4, 5000.0, 0.02, 0.05
+    z = np.array([0.0, 0.2, 0.2 + 1e-9 * L, L])
+    w, _ = natural_frequencies(TorsionLine(z, GJ), [(0, J1), (3, J2)], count=3)
+    exact = two_disc_frequency(GJ / L, J1, J2)
+    assert w[0] == pytest.approx(exact, rel=1e-6)
