@@ -293,3 +293,8 @@ def test_near_coincident_points_do_not_upset_the_torsion_model():
     k = G * math.pi * 0.030**4 / 32 / 0.140
     exact = math.sqrt(k * (0.01 + 0.03) / (0.01 * 0.03))
     assert tor["frequencies"]["values"][0] == pytest.approx(exact, rel=1e-5)
+
+
+def test_api_reads_the_key_list_by_item(small_run):
+    r, _ = small_run
+    assert r["keys"] == [] and callable(r.keys)  # r.keys is the mapping's method; the list is r["keys"]
