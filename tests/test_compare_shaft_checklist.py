@@ -298,3 +298,43 @@ def test_near_coincident_points_do_not_upset_the_torsion_model():
 def test_api_reads_the_key_list_by_item(small_run):
     r, _ = small_run
     assert r["keys"] == [] and callable(r.keys)  # r.keys is the mapping's method; the list is r["keys"]
+
+
+# ----------------------------------------------------------------------------- random values in the new fields
+
+hypothesis = pytest.importorskip("hypothesis")
+from hypothesis import HealthCheck, given, settings  # noqa: E402
+from hypothesis import strategies as hst  # noqa: E402
+
+_VALUES = hst.one_of(
+    hst.integers(min_value=-10**6, max_value=10**6), hst.floats(allow_nan=True, allow_infinity=True), hst.booleans(),
+    hst.text(max_size=8), hst.sampled_from(["25 mm", "-3 mm", "20 kN", "0 N", "1e400 N", "nan", "300 MPa", "12 %"]),
+    hst.lists(hst.integers(min_value=-5, max_value=5), max_size=2), hst.dictionaries(hst.text(max_size=4), hst.integers(), max_size=2))
+_KEY = ["height", "length", "yield", "hub_yield", "design_factor", "junk"]
+_FIT = ["interference", "hub_diameter", "length", "friction", "hub_elastic_modulus", "hub_poisson", "hub_yield",
+        "shaft_expansion", "hub_expansion", "shaft_temperature_rise", "hub_temperature_rise", "kt_bending",
+        "kt_bending_source"]
+_SUP = ["dynamic_rating", "x_factor", "y_factor", "required_life", "bearing"]
+
+
+@settings(max_examples=80, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@given(hst.sampled_from(["key", "fit", "support"]), hst.data())
+def test_random_values_are_refused_in_one_field_or_checked_without_error(where, data):
+    # the input promise: a bad value is an InputError naming a field; an accepted one runs every check
+    key = {"height": 7, "length": 36, "yield": 390, "hub_yield": 250, "design_factor": 2}
+    fit = {"interference": 0.02, "hub_diameter": 60, "length": 40, "friction": 0.12}
+    sup = {"at": 50, "bearing": "deep_groove_ball", "dynamic_rating": "20 kN"}
+    target = {"key": (key, _KEY), "fit": (fit, _FIT), "support": (sup, _SUP)}[where]
+    for name in data.draw(hst.lists(hst.sampled_from(target[1]), min_size=1, max_size=3)):
+        target[0][name] = data.draw(_VALUES)
+    try:
+        c = layout(sections=[station(key=key, fit=fit)], supports=[sup, {"at": 250}])
+    except InputError as e:
+        assert e.field.startswith(("shaft.sections[0]", "shaft.supports[0]")) and "\n" not in str(e)
+        return
+    st = c.shaft.stations[0]
+    lay = solve_layout(c.shaft, c.section, c.material)
+    key_checks(0, st, _srec(100.0), st.checklist.key, c.shaft, 540e6, None)
+    fit_check(0, st, _srec(100.0), st.checklist.fit, c)
+    bearing_life(c.shaft, lay)
+    torsional(c.shaft, c, lay, [], [])
