@@ -25,6 +25,7 @@ _POS = "must be positive"
 _F = Validity("force", low=0.0, unit="N", source="a load is not negative")
 _C = Validity("C", low=0.0, strict_low=True, unit="N", source=_POS)
 _P = Validity("P", low=0.0, strict_low=True, unit="N", source="the life under no load is not defined")
+_SPEED = Validity("speed", low=0.0, strict_low=True, unit="rad/s", source=_POS)
 _XY = Validity("factor", low=0.0, unit="", source="X and Y are not negative")
 
 
@@ -192,5 +193,5 @@ def life_hours(L10_revolutions: float, speed: float) -> float:
     >>> round(life_hours(3240e6, 1800 * 2 * math.pi / 60), 3)
     30000.0
     """
-    Validity("speed", low=0.0, strict_low=True, unit="rad/s", source=_POS).check(speed)
+    _SPEED.check(speed)
     return L10_revolutions / (speed * 60.0 / (2.0 * math.pi)) / 60.0

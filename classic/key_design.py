@@ -33,6 +33,7 @@ _W = Validity("w", low=0.0, strict_low=True, unit="m", source=_POS)
 _L = Validity("L", low=0.0, strict_low=True, unit="m", source=_POS)
 _T = Validity("t", low=0.0, strict_low=True, unit="m", source="an engagement depth must be positive")
 _S = Validity("strength", low=0.0, strict_low=True, unit="Pa", source=_POS)
+_NKEYS = Validity("n_keys", low=1.0, source="at least one key")
 _N = Validity("n_d", low=0.0, strict_low=True, source="a design factor must be positive")
 
 #: Share of the torque counted per key when two keys (at 180°) carry it: the pair is counted as 1.5
@@ -392,5 +393,5 @@ def effective_key_count(n_keys: int) -> float:
     >>> effective_key_count(1), effective_key_count(2)
     (1.0, 1.5)
     """
-    Validity("n_keys", low=1.0, source="at least one key").check(n_keys)
+    _NKEYS.check(n_keys)
     return 1.0 if n_keys == 1 else 2.0 * TWO_KEY_SHARE

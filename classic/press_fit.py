@@ -22,6 +22,9 @@ _POS = "must be positive"
 _R = Validity("R", low=0.0, strict_low=True, unit="m", source=_POS)
 _E = Validity("E", low=0.0, strict_low=True, unit="Pa", source=_POS)
 _NU = Validity("nu", low=-1.0, high=0.5, strict_low=True, source="Poisson's ratio of a stable isotropic solid")
+_LEN = Validity("L", low=0.0, strict_low=True, unit="m", source=_POS)
+_DELTA = Validity("delta", low=0.0, unit="m", source="an interference is not negative")
+_DIA = Validity("d", low=0.0, strict_low=True, unit="m", source=_POS)
 _MU = Validity("f", low=0.0, high=1.0, strict_low=True, action="warn",
                source="friction coefficients of fits lie between about 0.05 and 0.3")
 
@@ -79,7 +82,7 @@ def contact_pressure(delta: float, R: float, r_o: float, r_i: float, E_o: float,
     _R.check(R)
     Validity("r_o", low=R, strict_low=True, unit="m", source="the hub's outside radius exceeds the fit radius").check(r_o)
     Validity("r_i", low=0.0, high=R, strict_high=True, unit="m", source="the shaft's bore is inside the fit").check(r_i)
-    Validity("delta", low=0.0, unit="m", source="an interference is not negative").check(delta)
+    _DELTA.check(delta)
     for e in (E_o, E_i):
         _E.check(e)
     for n in (nu_o, nu_i):
@@ -182,7 +185,7 @@ def fit_torque(p: float, R: float, L: float, f: float) -> float:
     585.3
     """
     _R.check(R)
-    Validity("L", low=0.0, strict_low=True, unit="m", source=_POS).check(L)
+    _LEN.check(L)
     _MU.check(f)
     return 2.0 * math.pi * f * p * R * R * L
 
@@ -228,7 +231,7 @@ def fit_axial_force(p: float, R: float, L: float, f: float) -> float:
     23.41
     """
     _R.check(R)
-    Validity("L", low=0.0, strict_low=True, unit="m", source=_POS).check(L)
+    _LEN.check(L)
     _MU.check(f)
     return 2.0 * math.pi * f * p * R * L
 
@@ -275,5 +278,5 @@ def thermal_interference_change(d: float, alpha_shaft: float, dT_shaft: float, a
     >>> round(thermal_interference_change(0.050, 11.7e-6, 20.0, 23e-6, 40.0) * 1e6, 1)
     -34.3
     """
-    Validity("d", low=0.0, strict_low=True, unit="m", source=_POS).check(d)
+    _DIA.check(d)
     return d * (alpha_shaft * dT_shaft - alpha_hub * dT_hub)

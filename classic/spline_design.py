@@ -16,8 +16,11 @@ __all__ = ["spline_tooth_shear", "spline_bearing_pressure"]
 _POS = "must be positive"
 
 
-def _positive(name: str, value: float, unit: str) -> None:
-    Validity(name, low=0.0, strict_low=True, unit=unit, source=_POS).check(value)
+_DP = Validity("d_p", low=0.0, strict_low=True, unit="m", source=_POS)
+_Z = Validity("z", low=1.0, unit="", source="at least one tooth")
+_T = Validity("t", low=0.0, strict_low=True, unit="m", source=_POS)
+_H = Validity("h", low=0.0, strict_low=True, unit="m", source=_POS)
+_L = Validity("L", low=0.0, strict_low=True, unit="m", source=_POS)
 
 
 def spline_tooth_shear(T: float, d_p: float, z: int, t: float, L: float) -> float:
@@ -67,10 +70,10 @@ def spline_tooth_shear(T: float, d_p: float, z: int, t: float, L: float) -> floa
     >>> round(spline_tooth_shear(200.0, 0.0225, 18, math.pi * 0.0225 / 36, 0.020) / 1e6, 2)
     25.15
     """
-    _positive("d_p", d_p, "m")
-    _positive("z", z, "")
-    _positive("t", t, "m")
-    _positive("L", L, "m")
+    _DP.check(d_p)
+    _Z.check(z)
+    _T.check(t)
+    _L.check(L)
     return 2.0 * abs(T) / (d_p * z * t * L)
 
 
@@ -120,8 +123,8 @@ def spline_bearing_pressure(T: float, d_p: float, z: int, h: float, L: float) ->
     >>> round(spline_bearing_pressure(200.0, 0.0225, 18, 0.001, 0.020) / 1e6, 2)
     49.38
     """
-    _positive("d_p", d_p, "m")
-    _positive("z", z, "")
-    _positive("h", h, "m")
-    _positive("L", L, "m")
+    _DP.check(d_p)
+    _Z.check(z)
+    _H.check(h)
+    _L.check(L)
     return 2.0 * abs(T) / (d_p * z * h * L)

@@ -18,6 +18,16 @@ _POS = "must be positive"
 #: memory). The check is a warning, not an acceptance criterion.
 SEPARATION_MARGIN = 0.20
 
+_L0 = Validity("L", low=0.0, unit="m", source="a length is not negative")
+_L = Validity("L", low=0.0, strict_low=True, unit="m", source=_POS)
+_G = Validity("G", low=0.0, strict_low=True, unit="Pa", source=_POS)
+_J = Validity("J", low=0.0, strict_low=True, unit="m^4", source=_POS)
+_K = Validity("k", low=0.0, strict_low=True, unit="N*m/rad", source=_POS)
+_J1 = Validity("J1", low=0.0, strict_low=True, unit="kg*m^2", source=_POS)
+_J2 = Validity("J2", low=0.0, strict_low=True, unit="kg*m^2", source=_POS)
+_MODE = Validity("n", low=1.0, source="mode numbers start at 1")
+_RHO = Validity("rho", low=0.0, strict_low=True, unit="kg/m^3", source=_POS)
+
 
 def twist_angle(T: float, L: float, G: float, J: float) -> float:
     r"""Angle of twist of a length of shaft of constant section under a constant torque.
@@ -59,9 +69,9 @@ def twist_angle(T: float, L: float, G: float, J: float) -> float:
     >>> round(twist_angle(120.0, 0.1, 79.3e9, math.pi * 0.03**4 / 32) * 1e3, 3)
     1.903
     """
-    Validity("L", low=0.0, unit="m", source="a length is not negative").check(L)
-    Validity("G", low=0.0, strict_low=True, unit="Pa", source=_POS).check(G)
-    Validity("J", low=0.0, strict_low=True, unit="m^4", source=_POS).check(J)
+    _L0.check(L)
+    _G.check(G)
+    _J.check(J)
     return T * L / (G * J)
 
 
@@ -102,9 +112,9 @@ def two_disc_frequency(k: float, J1: float, J2: float) -> float:
     >>> round(two_disc_frequency(1000.0, 0.01, 0.04), 2)
     353.55
     """
-    Validity("k", low=0.0, strict_low=True, unit="N*m/rad", source=_POS).check(k)
-    Validity("J1", low=0.0, strict_low=True, unit="kg*m^2", source=_POS).check(J1)
-    Validity("J2", low=0.0, strict_low=True, unit="kg*m^2", source=_POS).check(J2)
+    _K.check(k)
+    _J1.check(J1)
+    _J2.check(J2)
     return math.sqrt(k * (J1 + J2) / (J1 * J2))
 
 
@@ -149,8 +159,8 @@ def free_free_shaft_frequency(n: int, L: float, G: float, rho: float) -> float:
     >>> round(free_free_shaft_frequency(1, 1.0, 79.3e9, 7850.0))
     9985
     """
-    Validity("n", low=1.0, source="mode numbers start at 1").check(n)
-    Validity("L", low=0.0, strict_low=True, unit="m", source=_POS).check(L)
-    Validity("G", low=0.0, strict_low=True, unit="Pa", source=_POS).check(G)
-    Validity("rho", low=0.0, strict_low=True, unit="kg/m^3", source=_POS).check(rho)
+    _MODE.check(n)
+    _L.check(L)
+    _G.check(G)
+    _RHO.check(rho)
     return n * math.pi / L * math.sqrt(G / rho)
