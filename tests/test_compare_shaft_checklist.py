@@ -338,3 +338,14 @@ def test_random_values_are_refused_in_one_field_or_checked_without_error(where, 
     fit_check(0, st, _srec(100.0), st.checklist.fit, c)
     bearing_life(c.shaft, lay)
     torsional(c.shaft, c, lay, [], [])
+
+
+def test_key_design_factor_defaults_to_the_cases():
+    c = parse_case({**BASE, "analysis": {"design_factor": 3}, "shaft": {
+        "length": 300, "supports": [{"at": 50}, {"at": 250}], "segments": [{"from": 0, "to": 300, "diameter": 30}],
+        "loads": [{"at": 150, "torque": "100 N*m"}, {"at": 290, "torque": "-100 N*m"}],
+        "sections": [station(key={"height": 7, "yield": 390, "hub_yield": 250})]}})
+    st = c.shaft.stations[0]
+    (k,) = key_checks(0, st, _srec(100.0), st.checklist.key, c.shaft, 540e6, c.analysis.design_factor)
+    assert k["design_factor"] == 3 and min(k["factors"].values()) * k["required_length"]["governing"] / k["length"] == \
+        pytest.approx(3.0, rel=1e-12)
