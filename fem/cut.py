@@ -10,6 +10,7 @@ import numpy as np
 
 from .geometry import Section
 from .gmshload import initialize as initialize_gmsh, load_gmsh
+from .mesh import normalised_section
 
 
 @dataclass
@@ -20,7 +21,9 @@ class Cut:
 
 
 def cut_section(section: Section, through, normal) -> Cut:
-    """Cut along the line through ``through`` perpendicular to ``normal``."""
+    """Cut along the line through ``through`` perpendicular to ``normal``. Built in the section's
+    scale-free frame (as it is meshed; OpenCASCADE's absolute tolerances fail at tiny scales) and
+    mapped back: areas by scale², first moments by scale³, chords by scale."""
     gmsh = load_gmsh()
     if not gmsh.isInitialized():
         initialize_gmsh(gmsh)
@@ -29,11 +32,13 @@ def cut_section(section: Section, through, normal) -> Cut:
     try:
         gmsh.model.add("cut")
         occ = gmsh.model.occ
-        surfaces = section.build(gmsh)
+        unit, frame = normalised_section(section)
+        k = frame.scale
+        surfaces = unit.build(gmsh)
         n = np.asarray(normal, float) / np.linalg.norm(normal)
         t = np.array([-n[1], n[0]])
-        p0 = np.asarray(through, float)
-        big = 10.0 * section.length_scale + float(np.linalg.norm(p0))
+        p0 = (np.asarray(through, float) - np.asarray(frame.origin, float)) / k
+        big = 10.0 * unit.length_scale + float(np.linalg.norm(p0))
         # half plane on the +normal side, as a big rectangle
         corners = [p0 - big * t, p0 + big * t, p0 + big * t + big * n, p0 - big * t + big * n]
         pts = [occ.addPoint(float(c[0]), float(c[1]), 0.0) for c in corners]
@@ -55,7 +60,7 @@ def cut_section(section: Section, through, normal) -> Cut:
             c = np.asarray(occ.getCenterOfMass(2, tag))[:2]
             area += m
             q += m * float((c - p0) @ n)
-        return Cut(float(area), float(q), float(chord))
+        return Cut(float(area) * k**2, float(q) * k**3, float(chord) * k)
     finally:
         gmsh.clear()
 

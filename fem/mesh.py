@@ -363,6 +363,10 @@ def _to_skfem(gmsh, info: BoundaryInfo, frame: Frame):
 
 
 
+#: Margin on the round-off floor of the inverse mapping's convergence test (boundary_mapping).
+ROUNDOFF_MARGIN = 64.0
+
+
 def boundary_mapping(mesh):
     """The mesh's isoparametric mapping, with an inverse that tolerates round-off.
 
@@ -374,7 +378,21 @@ def boundary_mapping(mesh):
 
     class _Tolerant(MappingIsoparametric):
         def invF(self, x, tind=None, newton_max_iters=50, newton_tol=1e-10):
-            return super().invF(x, tind=tind, newton_max_iters=newton_max_iters, newton_tol=newton_tol)
+            # scikit-fem's Newton iteration (MappingIsoparametric.invF), with a convergence test that
+            # knows round-off: coordinates carry about eps·|x|, which the inverse Jacobian (about 1/h)
+            # turns into eps·|x|/h of reference coordinates per point. On a fillet of 1e-4 of the
+            # section's size far from the origin that floor alone passes any fixed tolerance.
+            X = np.zeros(x.shape) + 0.5
+            xmax = float(np.max(np.abs(x))) if x.size else 0.0
+            for _ in range(newton_max_iters):
+                F = self.F(X, tind)
+                invDF = self.invDF(X, tind)
+                dX = np.einsum("ijkl,jkl->ikl", invDF, x - F)
+                X = np.clip(X + dX, 0.0, 1.0)
+                floor = ROUNDOFF_MARGIN * np.finfo(float).eps * xmax * np.sum(np.abs(invDF), axis=(0, 1, 3))
+                if (np.linalg.norm(dX, 1, (0, 2)) < newton_tol + floor).all():
+                    return X
+            raise Exception(f"Newton iteration didn't converge up to TOL={newton_tol}")
 
     if not hasattr(mesh, "_tolerant_mapping"):
         object.__setattr__(mesh, "_tolerant_mapping", _Tolerant(mesh, mesh.elem(), mesh.bndelem))

@@ -287,7 +287,8 @@ def involute_spline_section(teeth, module, pressure_angle, major_diameter=None, 
                 ("tooth_thickness", s, src["tooth_thickness"]), ("standard", standard, "given"))
     if bore:
         geometry += (("bore", bore, "given"),)
-    return Section(tuple(steps), kind="spline", diameter=major_diameter, bore=bore or None, geometry=geometry)
+    return Section(tuple(steps), kind="spline", diameter=major_diameter, bore=bore or None, geometry=geometry,
+                   nominal_diameter=minor_diameter)  # the shaft stress of a spline is taken on its minor (root) diameter
 
 
 def straight_spline_section(splines, minor_diameter, major_diameter, width, fillet=0.0, bore=None,
@@ -332,7 +333,8 @@ def straight_spline_section(splines, minor_diameter, major_diameter, width, fill
                 ("width", width, src.get("width", "given")), ("fillet", rho, "given"))
     if bore:
         geometry += (("bore", bore, "given"),)
-    return Section(tuple(steps), kind="spline", diameter=major_diameter, bore=bore or None, geometry=geometry)
+    return Section(tuple(steps), kind="spline", diameter=major_diameter, bore=bore or None, geometry=geometry,
+                   nominal_diameter=minor_diameter)  # the shaft stress of a spline is taken on its minor (root) diameter
 
 
 def iso14_size(series: str, splines: int, minor_mm: float, major_mm: float) -> float | None:

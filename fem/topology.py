@@ -17,13 +17,16 @@ from dataclasses import replace
 
 from .geometry import Section
 from .gmshload import load_gmsh
+from .mesh import normalised_section
 
 
 def _holes(gmsh, section: Section) -> int:
-    """The number of holes of ``section`` (inner boundary loops), built in a fresh gmsh model."""
+    """The number of holes of ``section`` (inner boundary loops), built in a fresh gmsh model in the
+    section's scale-free frame (as it is meshed: OpenCASCADE's absolute tolerances fail on a section
+    built in metres at a micrometre scale or below)."""
     gmsh.clear()
     gmsh.model.add("topology")
-    surfaces = section.build(gmsh)
+    surfaces = normalised_section(section)[0].build(gmsh)
     n = 0
     for s in surfaces:
         _tags, loops = gmsh.model.occ.getCurveLoops(s)

@@ -171,3 +171,62 @@ def test_a_pass_is_not_presented_when_the_2d_model_does_not_describe_the_feature
     assert verdict.startswith("VERDICT: NOT SHOWN") and "PASSES" not in verdict
     assert all(m["meets"] is not True for m in res["materials"])
     assert "meets" not in [x.rsplit(": ", 1)[-1] for x in out.splitlines()]
+
+
+TINY_FILLET = """
+[case]
+units = "mm-N-MPa"
+[section]
+shape = "keyed"
+diameter = 30
+[[section.keyways]]
+width = 8
+depth = 4
+fillet = {r}
+[loads]
+torque = "60 N*m"
+[material]
+shear_modulus = "80 GPa"
+[analysis]
+accuracy = "1 %"
+"""
+
+
+def _tiny(run_cli, tmp_path, r):
+    p = tmp_path / f"r{r}.toml"
+    p.write_text(TINY_FILLET.format(r=r))
+    code, out, err = run_cli("run", "--no-report", "--no-vtu", str(p), "--out", str(tmp_path / f"o{r}"))
+    res = json.loads((tmp_path / f"o{r}" / "results.json").read_text()) if code in (0, 3, 4) else None
+    return code, out, err, res
+
+
+@pytest.mark.slow
+def test_tiny_keyway_fillets_are_solved_and_follow_the_corner_law(run_cli, tmp_path):
+    """A fillet of 0.005 mm on a 30 mm shaft (r/d 1.7e-4) was refused with gmsh's words; it is a real
+    radius and is solved. Check against the corner law: the warping function near a re-entrant corner
+    of interior angle α is harmonic with free faces, so it goes as r^(π/α) (separation of variables in
+    the wedge) and the stress as r^(π/α − 1) = r^(-1/3) at α = 3π/2; a fillet of radius ρ, the only
+    length at the corner, then scales the peak as ρ^(-1/3) (a dimensional argument). Ten times smaller
+    gives Kts × 10^(1/3) = 2.154. Tolerance 1 %: the law is the leading term as ρ → 0 (at ρ/w = 6e-4
+    the next terms are small), plus the two runs' error estimates."""
+    kts = {}
+    for r in (0.005, 0.0005):
+        code, out, err, res = _tiny(run_cli, tmp_path, r)
+        assert code == 0 and "error" not in err, err
+        kts[r] = (res["torsion"]["kts"], res["convergence"]["tau_max"]["gci"])
+    ratio = {"fem": kts[0.0005][0] / kts[0.005][0], "exact": 10 ** (1 / 3)}
+    assert ratio["fem"] == pytest.approx(ratio["exact"], rel=0.01 + kts[0.005][1] + kts[0.0005][1])
+
+
+def test_a_fillet_below_a_millionth_of_the_size_is_a_sharp_corner_said_in_the_trades_words(run_cli, tmp_path):
+    """1e-6 mm on a 30 mm shaft: no mesher message; the corner is modelled sharp, the no-verdict rule of
+    a sharp corner applies (exit 4) and the warning says why in a designer's words."""
+    code, out, err, res = _tiny(run_cli, tmp_path, 1e-6)
+    assert code == EXIT_NO_VERDICT, err
+    assert "Newton" not in out + err and "circle arc" not in out + err
+    codes = [w["code"] for w in res["warnings"]]
+    assert "fillet_taken_sharp" in codes and "sharp_corner_no_verdict" in codes
+    w = res["warnings"][codes.index("fillet_taken_sharp")]
+    assert w["data"]["fillets"][0]["field"] == "section.keyways[0].fillet"
+    assert "PRACTICALLY SHARP CORNER: section.keyways[0].fillet" in out and "roughness" in out
+    assert res["torsion"]["kts"] is None and res["governing"]["no_verdict"]

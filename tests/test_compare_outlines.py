@@ -105,3 +105,14 @@ def test_results_of_a_spline_pair_it_with_the_round_bars(tmp_path, run_cli):
     assert lo["kind"] == "factor" and lo["within_tolerance"] is None
     assert r["section"]["geometry"]["width"]["value"] == pytest.approx(6e-3)
     assert "spline_2d_model" in [w["code"] for w in r["warnings"]]
+    # Kts on the minor (root) diameter, as spline practice takes the shaft stress (Machinery's
+    # Handbook, 26th ed., 'Involute Splines', from memory); the major-diameter ratio is context only
+    T = abs(r["torsion"]["torque"])
+    nominal = 16 * T / (math.pi * 0.023**3)  # elementary torsion of the minor-diameter round bar
+    assert r["torsion"]["kts_nominal"]["tau_nominal"] == pytest.approx(nominal, rel=1e-12)
+    assert "minor (root) diameter" in r["torsion"]["kts_nominal"]["formula"]
+    assert r["torsion"]["kts"] == pytest.approx(r["torsion"]["tau_max"] / nominal, rel=1e-12)
+    major = pairs["τmax relative to 16T/(πD³) on the major diameter"]
+    assert major["classic"] == pytest.approx(16 * T / (math.pi * 0.026**3), rel=1e-12)
+    assert major["ratio"] > r["torsion"]["kts"]  # the major diameter understates the nominal stress
+    assert "Kts (τmax / nominal on the minor diameter)" in out  # the convention named beside the number

@@ -206,3 +206,26 @@ def test_out_folder_with_a_foreign_file_among_the_figures_is_refused(tmp_path):
     with pytest.raises(InputError) as exc:
         check_out(out)
     assert "notes.txt" in str(exc.value) and "--out" in str(exc.value)
+
+
+def test_critical_points_at_one_place_are_one_point_with_their_criteria_together(demo):
+    """The combined-stress table listed several numbered points at one place, each 'critical for' other
+    criteria: points closer than SAME_PLACE of the section's size are merged, their criteria listed
+    together (each criterion's own state stays under ``states``)."""
+    import math as _m
+
+    from compare.output.figures import SAME_PLACE, critical_points
+
+    res = demo["res"]
+    pts = critical_points(res)
+    size = _m.sqrt(res["section"]["area"])
+    for i, p in enumerate(pts):
+        for q in pts[i + 1:]:
+            assert _m.dist(p["at"], q["at"]) > SAME_PLACE * size, (p["criteria"], q["criteria"])
+    raw = res["combined"]["points"]
+    assert sum(len(p["states"]) for p in pts) == len(raw)  # nothing lost
+    assert sorted(c for p in pts for c in p["criteria"]) == sorted({r["criterion"] for r in raw})
+    for p in pts:  # the state shown is the most severe of the merged ones
+        assert p["von_mises"] == max(s["von_mises"] for s in p["states"])
+    merged = [p for p in pts if len(p["criteria"]) > 1]
+    assert merged and all(", ".join(p["criteria"]) in demo["html"] for p in merged)

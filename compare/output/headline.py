@@ -67,7 +67,8 @@ def headline_rows(res: dict, system) -> list[dict]:
     nom = t.get("kts_nominal") or {}
     add("torsion", "torsion τmax", "torsion.tau_max", "stress", nom.get("tau_nominal") if t.get("kts") is not None else None,
         f"nominal {nom.get('formula', '')}: {nom.get('source', '')}" if t.get("kts") is not None else "")
-    add("torsion", "Kts (τmax / nominal)", "torsion.kts", "dimensionless")
+    add("torsion", "Kts (τmax / nominal on the minor diameter)" if s["kind"] == "spline" else "Kts (τmax / nominal)",
+        "torsion.kts", "dimensionless")
     if "centre" in res.get("shear", {}):
         add("shear", "shear centre x", "shear.centre[0]", "length", scale=size)
         add("shear", "shear centre y", "shear.centre[1]", "length", scale=size)

@@ -84,7 +84,7 @@ def warning_text(w: dict, f: Fmt) -> str:
     if code.startswith("feature_"):  # shoulders and grooves of [shaft]
         return feature_warning_text(w, f) or code
     if code in SECTION_WARNINGS:
-        return section_warning_text(w)
+        return section_warning_text(w, f)
     if code == "sharp_corner_no_verdict":
         where = []
         for c in w["corners"]:

@@ -104,6 +104,7 @@ def build_results(a: Analysis) -> dict:
     add_shaft_results(out, a, build_results)  # the shaft layout's blocks, if the case has one
     add_feature_results(out, a)  # shaft.features: shoulders and grooves
     add_checklist_results(out, a)  # keys, splines, press fits, bearing life, torsion along the shaft
+    out["exit_code"] = int(out.get("exit_code") or 0)  # in every results.json, 0 included (README)
     return _clean(out)
 
 

@@ -3,7 +3,7 @@ SI, each with where it came from) and the words of the section warnings of
 compare/checks/section_findings.py."""
 from __future__ import annotations
 
-SECTION_WARNINGS = {"straight_facet_outline", "spline_2d_model", "dimensions_from_memory"}
+SECTION_WARNINGS = {"straight_facet_outline", "spline_2d_model", "dimensions_from_memory", "fillet_taken_sharp"}
 
 
 def geometry_record(section) -> dict | None:
@@ -14,8 +14,15 @@ def geometry_record(section) -> dict | None:
     return {n: {"value": v, "from": src} for n, v, src in section.geometry}
 
 
-def section_warning_text(w: dict) -> str:
+def section_warning_text(w: dict, f=None) -> str:
     code = w["code"]
+    if code == "fillet_taken_sharp":
+        q = (lambda v: f.q(v, "length", 3)) if f is not None else (lambda v: f"{v:.3g} m")
+        which = ", ".join(f"{x['field']} = {q(x['radius'])}" for x in w["fillets"])
+        return (f"PRACTICALLY SHARP CORNER: {which} is below {w['below']:g} of the section's size "
+                f"({q(w['below'] * w['size'])}), smaller than the roughness of any machined surface. It is "
+                "modelled as a sharp corner, where the elastic peak stress is unbounded: no peak stress, no Kts "
+                "and no factor of safety are given there. Give the radius the cutter or the drawing specifies.")
     if code == "straight_facet_outline":
         return ("STRAIGHT FACETS ONLY: the outline is the boundary polygon of a triangle mesh, so curved edges "
                 "(fillets, arcs) are modelled as straight facets and no curved-boundary accuracy is claimed: peak "

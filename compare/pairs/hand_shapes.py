@@ -17,6 +17,7 @@ from .pairs import Pair
 HAND_KINDS = ("flatted", "square", "hexagon", "cross_slot")
 #: How each kind's default nominal diameter is chosen (for the Kts formula's wording).
 NOMINAL_OF = {"flatted": "the round diameter", "cross_slot": "the shaft diameter",
+              "spline": "the minor (root) diameter of the external spline, as spline practice takes the shaft stress",
               "square": "the size across flats", "hexagon": "the size across flats", "custom": "given"}
 
 COMMON = "common practice"

@@ -1,6 +1,7 @@
 """A splined shaft's FE results beside the round bars a designer would use for it (classic/splines.py):
-the round bar of the minor diameter (J and the shaft stress 16T/(πd³)), the round bar of the
-mean of the major and minor diameters (J) and of the major diameter (J, the upper bound). None is
+the round bar of the minor diameter (J; its shaft stress 16T/(πd³) is the nominal of Kts, as spline
+practice takes it), the round bar of the mean of the major and minor diameters (J) and of the major
+diameter (J, the upper bound; its 16T/(πD³) as context). None is
 exact for a spline: every pair is a factor (how far off the hand value is), never a check.
 """
 from __future__ import annotations
@@ -14,6 +15,7 @@ MINOR_SOURCE = ("round bar of the minor (root) diameter: common practice for the
                 "(Machinery's Handbook, 26th ed., 'Involute Splines', from memory)")
 MEAN_SOURCE = "round bar of the mean of the major and minor diameters: common practice (from memory)"
 MAJOR_SOURCE = "round bar of the major diameter: an upper bound of J (the section lies inside it)"
+MAJOR_NOMINAL_SOURCE = "elementary torsion of a round bar of the major diameter, 16T/(πD³): context, not the spline convention"
 
 
 def geometry(section) -> dict:
@@ -39,6 +41,9 @@ def spline_step(a) -> None:
     a.pairs.append(Pair("J relative to the round bar of the major diameter", tr.J, ct.round_torsion_constant(D),
                         MAJOR_SOURCE, "factor", "second_moment", note="the torsional stiffness kept (at most 1)"))
     if not tr.singular_corners:
-        a.pairs.append(Pair("τmax relative to 16T/(πd³) on the minor diameter", T * tr.peak_per_torque,
-                            csp.minor_diameter_shear(T, d), MINOR_SOURCE, "factor", "stress",
-                            note="the root-fillet stress concentration over the minor-diameter shaft stress"))
+        # Kts itself is on the minor diameter (Section.nominal_diameter; the spline convention); the
+        # major-diameter figure is kept as context, since a designer may meet charts on either
+        a.pairs.append(Pair("τmax relative to 16T/(πD³) on the major diameter", T * tr.peak_per_torque,
+                            ct.keyed_nominal_shear(T, D), MAJOR_NOMINAL_SOURCE, "factor", "stress",
+                            note="context only: Kts is on the minor diameter; the major diameter understates "
+                                 "the shaft stress of the spline's body"))

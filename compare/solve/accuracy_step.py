@@ -45,8 +45,11 @@ def accuracy_step(a) -> None:
                           "largest_relative_residual": max((s["residual"] for s in st.solves), default=None)},
         "safety_factor": FS,
         "adaptive_steps": st.adapt_steps,
+        "refinement_steps": st.refine_steps,
         "indicator_max": st.indicator_max,
-        "estimator": "recovery (Zienkiewicz–Zhu) indicator drives the mesh; the GCI of three similar meshes is the error estimate",
+        "estimator": ("recovery (Zienkiewicz–Zhu) indicator drives the mesh; the error estimate of each quantity is the "
+                      "GCI of three similar meshes, widened for the torsion peak by the parting of its two independent "
+                      "evaluations and for J by the J bracket (convergence.<q>.estimate_kind says which)"),
         "seconds": st.seconds,
         "singular_corners": bool(singular),
     }
