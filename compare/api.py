@@ -280,11 +280,25 @@ UNITS = {
                      "margin", "value"], ""),
     "principal_angle_deg": "deg", "angle_deg": "deg",
     "used_at": "m", "z": "m", "self_weight_departure": "N*m",
+    # the designer's checklist (keys, splines, press_fits, shaft.bearing_life, shaft.torsional)
+    **dict.fromkeys(["shear_stress", "bearing_stress_shaft", "bearing_stress_hub", "contact_pressure", "hub_tangential",
+                     "hub_radial", "shaft_tangential", "shaft_radial", "hub_von_mises", "shaft_von_mises", "key_yield",
+                     "hub_yield", "shaft_yield", "key_shear_yield", "bearing_shaft_strength", "bearing_hub_strength",
+                     "shear_yield", "bearing_pressure", "hub_elastic_modulus", "G"], "Pa"),
+    **dict.fromkeys(["interference", "interference_operating", "interference_thermal_change", "hub_diameter", "width",
+                     "height", "diameter", "bore", "shaft_engagement", "hub_engagement", "pitch_diameter",
+                     "tooth_thickness", "depth", "length"], "m"),
+    **dict.fromkeys(["torque_capacity", "torque_per_key"], "N*m"),
+    **dict.fromkeys(["axial_capacity", "axial_force", "C", "P", "Fr", "Fa"], "N"),
+    **dict.fromkeys(["friction", "hub_poisson", "slip_factor_torque", "slip_factor_axial", "hub_factor", "shaft_factor",
+                     "shear_factor", "exponent", "X", "Y", "L10_revolutions", "ratios"], ""),
+    **dict.fromkeys(["L10_hours", "required_life_hours"], "hour"),
+    "speed": "rad/s", "rotation": "rad",
 }
 #: Units of keys whose name alone is ambiguous, by their path in the results (the shaft layout's).
 PATH_UNITS = {".shaft.max_deflection.value": "m", ".shaft.max_moment.value": "N*m",
               ".shaft.critical_speeds.rayleigh": "rad/s", ".shaft.critical_speeds.values": "rad/s",
-              ".shaft.critical_speeds.speed": "rad/s"}
+              ".shaft.critical_speeds.speed": "rad/s", ".shaft.torsional.frequencies.values": "rad/s"}
 _PAIR_DIMENSIONS = {"second_moment": "m**4", "area": "m**2", "stress": "Pa", "length": "m", "rigidity": "N*m**2",
                     "per_cubic": "Pa/(N*m)", "dimensionless": ""}
 

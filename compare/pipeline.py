@@ -11,6 +11,7 @@ from .case.case import Case
 from .checks.composite_checks import composite_checks
 from .checks.feature_findings import factors_only, feature_findings
 from .checks.findings import findings_step
+from .checks.shaft_checklist import checklist_step
 from .checks.shaft_stations import layout_step
 from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
@@ -31,6 +32,7 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         if case.shaft.factors_only:  # no loads, no stations: the features' factors are the whole result
             return factors_only(case, feats)
         a = layout_step(case, lambda c: analyse(c, fineness, study))
+        checklist_step(a, case)  # keys, splines, press fits, bearing life, torsion along the shaft
         attach_features(a, feats)
         a.extra["warnings"] = feature_findings(a) + list(a.extra.get("warnings") or [])
         return a

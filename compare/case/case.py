@@ -30,6 +30,7 @@ from fem.geometry import Disk, Ellipse, Section, custom_section, polygon, rectan
 
 from .outlines import parse_file_shape, parse_spline
 from .shaft import Shaft, check_with_case, parse_shaft
+from .shaft_checklist import check_fits_with_section
 from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
 from .units import UnitSystem, from_si, to_si, unit_system
 from .composite import parse_composite
@@ -219,6 +220,7 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
     _fatigue_needs_ultimate(loads, material, data.get("material", {}))
     if shaft is not None:
         check_with_case(shaft, data.get("loads", {}), material)
+        check_fits_with_section(shaft, section, units)  # a press fit's hub on a shaft without segments
     if section.kind == "composite":
         _composite_limits(data, loads, shaft)
     return Case(title, units, section, loads, material, analysis, fatigue=fatigue, expected=expected,

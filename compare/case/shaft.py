@@ -54,7 +54,7 @@ Dataclasses (stable: later steps build on them; fields are added, never renamed)
 - :class:`Segment` (start, end, diameter, bore, fillet) [m]
 - :class:`Groove` (at, width, depth, radius) [m]
 - :class:`Support` (at [m], stiffness [N/m] or None = rigid, name, bearing (type for the slope
-  limit, one of :data:`BEARING_TYPES`, or None))
+  limit, one of :data:`BEARING_TYPES`, or None), rating (shaft_checklist.BearingRating or None))
 - :class:`ShaftLoad` (at, kind, name, force (Fx, Fy) [N], axial [N], moment (Mx, My) [N·m],
   torque [N·m], mass [kg], inertia [kg·m²], gear: :class:`Gear` | None, pulley: :class:`Pulley` | None)
 - :class:`Gear` (pitch_diameter [m], pressure_angle, helix_angle [deg], hand, mesh_angle [deg])
@@ -65,7 +65,8 @@ Dataclasses (stable: later steps build on them; fields are added, never renamed)
   the user gave in ``fatigue`` first, then these), raw (the station's case-file table), extent
   ((z0, z1) [m] of the section's longest feature with a length: centred on ``at``, or from
   ``feature_from``; None without one), extent_field (the case-file field of that length), geometry
-  (the section's resolved dimensions, as Case.geometry))
+  (the section's resolved dimensions, as Case.geometry), checklist
+  (shaft_checklist.StationChecklist: key, fit, spline; or None))
 - :class:`Shaft` (length, segments, grooves, supports, loads, stations, density, speed [rad/s],
   rotating, self_weight)
 
@@ -82,6 +83,7 @@ from fem.errors import InputError, escape_text
 
 from .units import from_si, to_si
 from .fields import angle as _angle, chart_factor, known as _known
+from .shaft_checklist import STATION_KEYS, SUPPORT_KEYS, parse_rating, parse_station_checklist
 
 #: Relative tolerance of the torque balance: the torques of the loads must sum to zero within this
 #: share of the largest one. Values typed with 4-6 figures balance far better than this; a torque
@@ -94,7 +96,7 @@ _SHAFT = {"length", "density", "speed", "rotating", "self_weight", "supports", "
           "sections"}
 _SEGMENT = {"from", "to", "diameter", "bore", "fillet"}
 _GROOVE = {"at", "width", "depth", "radius"}
-_SUPPORT = {"at", "stiffness", "name", "bearing"}
+_SUPPORT = {"at", "stiffness", "name", "bearing"} | SUPPORT_KEYS  # rating: shaft_checklist.py
 #: Bearing types the slope check knows (classic.shaft.SLOPE_LIMITS, Shigley 9th ed., Table 7-2).
 BEARING_TYPES = ("tapered_roller", "cylindrical_roller", "deep_groove_ball", "spherical_ball", "self_aligning_ball")
 _COMMON = {"at", "kind", "name", "torque", "mass", "inertia"}
@@ -104,7 +106,7 @@ _LOAD_KEYS = {
     "pulley": _COMMON | {"diameter", "tension_ratio", "pull_angle"},
     "sprocket": _COMMON | {"diameter", "pull_angle"},
 }
-_STATION = {"at", "name", "section", "fatigue", "feature_from"}
+_STATION = {"at", "name", "section", "fatigue", "feature_from"} | STATION_KEYS  # key, fit, spline: shaft_checklist.py
 _STATION_FATIGUE = {"kt_bending", "kt_bending_source", "kts_torsion", "kts_torsion_source", "notch_radius"}
 
 
@@ -131,6 +133,7 @@ class Support:
     stiffness: float | None = None  # radial [N/m]; None: rigid
     name: str = ""
     bearing: str | None = None  # one of BEARING_TYPES; None: judged against the tightest limit
+    rating: object | None = None  # shaft_checklist.BearingRating: C, X, Y for the basic rating life
 
 
 @dataclass(frozen=True)
@@ -175,6 +178,7 @@ class Station:
     extent: tuple[float, float] | None = None  # (z0, z1) of the section's feature with a length, or None
     extent_field: str = ""  # the case-file field of that feature's length
     geometry: dict = field(default_factory=dict)  # the section's resolved dimensions (Case.geometry of its run)
+    checklist: object | None = None  # shaft_checklist.StationChecklist: key, press fit, spline
 
 
 @dataclass
@@ -318,7 +322,7 @@ def _supports(d, length, units) -> list[Support]:
             raise InputError(f"{w}.bearing", bearing, f"unknown bearing type; use one of {', '.join(BEARING_TYPES)}")
         if any(abs(at - o.at) <= GAP_TOL * length for o in out):
             raise InputError(f"{w}.at", s["at"], "is where another support already is", _unit(s["at"], units, "length"))
-        out.append(Support(at, k, name, bearing))
+        out.append(Support(at, k, name, bearing, parse_rating(s, w, units, bearing)))
     return out
 
 
@@ -413,6 +417,15 @@ def _station(s, i, sh: Shaft, units, parse_section, feature_lengths=None) -> Sta
         if "notch_radius" in f:
             st.fatigue["notch_radius"] = _pos(f, "notch_radius", "length", f"{w}.fatigue", units)
     _place_feature(s, w, st, sh, units, feature_lengths)
+    if STATION_KEYS & set(s):
+        seg = sh.segment_at(at)
+        st.checklist = parse_station_checklist(s, w, units, st.section, seg.diameter if seg else None, None)
+        fit = st.checklist.fit
+        if fit is not None and fit.kt_bending is not None:  # the press fit's chart factor is the station's Kt
+            if "kt_bending" in st.fatigue:
+                raise InputError(f"{w}.fit.kt_bending", s["fit"]["kt_bending"], f"is also given as {w}.fatigue.kt_bending: "
+                                 "give it once")
+            st.fatigue["kt_bending"], st.fatigue["kt_bending_source"] = fit.kt_bending, fit.kt_bending_source
     return st
 
 

@@ -25,6 +25,7 @@ from ..output.report import summary
 from ..output.results import build_results
 from ..output.figure_shaft import shaft_figure_svg
 from ..output.results_composite import composite_summary
+from ..output.report_checklist import checklist_summary
 from ..output.results_shaft import shaft_summary
 from ..output.vtu import write_fields_vtu
 from ..pipeline import analyse
@@ -71,7 +72,7 @@ def run(args) -> int:
             written.append(out / "shaft.svg")
         if report:
             written += [out / "report.html", out / "results.csv", out / "figures"]
-        block = shaft_summary(res, case.units)
+        block = "\n".join(b for b in (shaft_summary(res, case.units), checklist_summary(res, case.units)) if b)
         if block:
             print(block + "\n")
         if "composite" in a.extra:  # bonded regions of several materials

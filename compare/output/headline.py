@@ -8,6 +8,7 @@ import io
 
 from ..case.units import from_si
 from .report import ROUND_OFF, Fmt
+from .report_checklist import checklist_rows
 from .report_combined import LABELS
 
 #: convergence key of each results entry whose error the study estimates
@@ -107,6 +108,7 @@ def headline_rows(res: dict, system) -> list[dict]:
         rows.append({"group": "accuracy", "quantity": "largest estimated error (GCI)", "value": acc["achieved"],
                      "unit": "1", "hand_value": None, "ratio": None, "source": "three-mesh study",
                      "estimated_error": None, "results_json_key": "accuracy.achieved"})
+    rows += checklist_rows(res, system)  # keys, fits, splines, bearing life, torsion along the shaft (layouts)
     return rows
 
 

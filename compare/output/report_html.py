@@ -9,6 +9,7 @@ import html
 
 from .figures import critical_points
 from .report import CAUTION, Fmt
+from .report_checklist import checklist_html
 from .report_combined import LABELS
 
 #: the sections of the report, in order (id, heading); the tests check every one is present
@@ -18,6 +19,7 @@ SECTIONS = (
     ("shear", "Transverse shear"), ("combined", "Combined stress at the worst instant"),
     ("mohr", "Mohr's circles of the critical points"), ("hand-vs-fe", "Hand calculation against FE"),
     ("factors", "Static and fatigue factors of safety"), ("materials", "Material ranking"),
+    ("checklist", "Keys, fits, splines, bearings and torsion along the shaft"),
     ("convergence", "Convergence"), ("assumptions", "Assumptions and limits of validity"), ("cautions", "Cautions"),
 )
 
@@ -130,6 +132,7 @@ def render(res: dict, system, figures: list, case_text: str | None, trace: dict,
                                  numeric=(1, 2, 3))
     parts["factors"] = _factors(res)
     parts["materials"] = _materials(res)
+    parts["checklist"] = checklist_html(res, system)
     parts["convergence"] = (_img(figs["convergence"]) if "convergence" in figs else "") + _convergence(res)
     parts["assumptions"] = ASSUMPTIONS
     parts["cautions"] = f"<p>{e(CAUTION)}</p><p>{e(CAUTION_MORE)}</p>"

@@ -10,6 +10,7 @@ from ..pairs.analysis import Analysis
 from .report import CAUTION, Fmt, warning_text
 from .report_combined import governing_text
 from .results_features import add_feature_results, factors_only_results
+from .results_checklist import add_checklist_results
 from .results_shaft import add_shaft_results
 from .section_geometry import geometry_record
 from .trace import input_hashes
@@ -105,6 +106,7 @@ def build_results(a: Analysis) -> dict:
     _qualify_pass(out)
     add_shaft_results(out, a, build_results)  # the shaft layout's blocks, if the case has one
     add_feature_results(out, a)  # shaft.features: shoulders and grooves
+    add_checklist_results(out, a)  # keys, splines, press fits, bearing life, torsion along the shaft
     out["exit_code"] = int(out.get("exit_code") or 0)  # in every results.json, 0 included (README)
     return _clean(out)
 
