@@ -163,6 +163,14 @@ def test_study_of_an_exact_power_law_recovers_order_and_limit():
     assert d["gci"] == pytest.approx(1.25 * abs(vals[1] - vals[0]) / vals[0] / (1.4**2 - 1), rel=1e-12)
 
 
+def test_a_quantity_zero_on_every_mesh_has_a_zero_estimate_not_a_traceback():
+    # a station on an overhang carrying torque only: its shear peak is 0 on every mesh (ZeroDivisionError before)
+    d = one_study("shear_tau_max", [0.0, 0.0, 0.0], [4000, 2000, 1000], (1.4, 1.4), 1.0)
+    assert d["gci"] == 0.0 and d["status"].startswith("zero on every mesh")
+    d = one_study("shear_tau_max", [0.0, 1e-3, 2e-3], [4000, 2000, 1000], (1.4, 1.4), 1.0)
+    assert d["gci"] is not None and d["gci"] > 0
+
+
 def test_oscillating_values_get_the_spread_based_estimate():
     d = one_study("tau_max", [1.0, 1.001, 0.9995], [4000, 2000, 1000], (1.4, 1.4), 1.0)
     assert d["status"] == "oscillatory" and d["observed_order"] is None

@@ -394,6 +394,12 @@ def one_study(key, vals, dofs, ratios, size) -> dict:
     if key in LENGTHS and spread <= 1e-7 * size:
         d.update(status="unchanged to round-off (fixed by symmetry)", gci=spread / size, extrapolated=vals[0], asymptotic=True)
         return d
+    if scale == 0.0:
+        if spread == 0.0:  # e.g. a shear peak under a zero shear force: nothing to estimate
+            d.update(status="zero on every mesh (the load that drives it is zero)", gci=0.0, extrapolated=0.0,
+                     asymptotic=True)
+            return d
+        scale = max(abs(v) for v in vals)  # zero on the finest mesh only: relative to the largest value
     if key == "tau_max_corner":
         grows = vals[0] > vals[1] > vals[2]
         d.update(status="singular corner: grows without bound as the mesh is refined" if grows else
