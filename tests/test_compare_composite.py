@@ -91,7 +91,22 @@ def test_the_demo_overmoulded_shaft_runs(tmp_path, run_cli):
     assert all(r["factor"] > 0 for r in res["regions"])
     # a square body with a pin has no closed form: the pairs say so rather than compare
     assert all(p["kind"] == "not applicable" for p in res["compare"])
-    assert sorted(p.name for p in (tmp_path / "o").iterdir()) == ["results.json"]
+    # the design report: self-contained page, both figures in both formats, a csv row per region result
+    assert sorted(p.name for p in (tmp_path / "o").iterdir()) == ["figures", "report.html", "results.csv", "results.json"]
+    html = (tmp_path / "o" / "report.html").read_text()
+    assert "http://" not in html.replace("http://www.w3.org", "") and "<script" not in html
+    for r in res["regions"]:
+        assert r["name"] in html
+    assert "material boundaries" in html and "not checked" in html.lower()
+    names = sorted(p.name for p in (tmp_path / "o" / "figures").iterdir())
+    assert names == ["composite_regions.png", "composite_regions.svg", "composite_torsion.png", "composite_torsion.svg"]
+    import csv as _csv
+
+    rows = list(_csv.DictReader((tmp_path / "o" / "results.csv").read_text().splitlines()))
+    keys = {r["results_json_key"] for r in rows}
+    assert {"torsion.GJ", "regions[0].tau_max", "regions[1].factor"} <= keys
+    gj = next(r for r in rows if r["results_json_key"] == "torsion.GJ")
+    assert float(gj["value"]) == pytest.approx(res["torsion"]["GJ"] * 1e6, rel=1e-9)  # N·m² in N·mm²
 
 
 def test_the_python_api_gives_the_cli_numbers_with_units():

@@ -24,6 +24,7 @@ from ..output.screen import print_summary, progress_bar
 from ..output.report import summary
 from ..output.results import build_results
 from ..output.figure_shaft import shaft_figure_svg
+from ..output.report_composite import composite_report_files
 from ..output.results_composite import composite_summary
 from ..output.report_checklist import checklist_summary
 from ..output.results_shaft import shaft_summary
@@ -62,9 +63,10 @@ def run(args) -> int:
     if (res.get("shaft") or {}).get("diagrams"):  # the layout's diagrams and deflected shape
         files["shaft.svg"] = shaft_figure_svg(res, case.units)
     vtu = not args.no_vtu and a.mesh is not None  # no section mesh when only feature factors were asked for
-    report = not args.no_report and a.mesh is not None
+    composite = "composite" in a.extra  # bonded regions of several materials: their own report
+    report = not args.no_report and (a.mesh is not None or composite)
     if report:
-        files.update(report_files(a, res))
+        files.update(composite_report_files(a, res) if composite else report_files(a, res))
     write_outputs(out, files, a if vtu else None)
     if not args.quiet:
         written = [out / "results.json"] + ([out / "section.vtu"] if vtu else [])

@@ -88,5 +88,5 @@ def composite_summary(res: dict, system) -> str:
             lines.append(f"    {p['quantity']}: FE/exact {p['ratio']:.6f}")
     lines.append("")
     lines.append("Not checked: " + "; ".join(res["not_checked"]) + ".")
-    lines.append("report.html and section.vtu are not drawn for composite sections yet.")
+    lines.append("section.vtu is not written for composite sections yet.")
     return "\n".join(lines)
