@@ -239,3 +239,17 @@ at = 50
     assert r.section_loads[0]["Mx"] == pytest.approx(-25.0)  # R1·a = 500 N × 0.05 m, sagging
     out = r.save(tmp_path / "out", vtu=False, report=False)
     assert sorted(p.name for p in out.iterdir()) == ["results.json", "shaft.svg"]
+
+
+@pytest.mark.parametrize("offset", [1e-10, 1e-8])
+def test_a_station_a_hair_from_a_load_shares_its_node(offset):
+    """A station 1e-10 of the length from a load was refused as 'supports leave the shaft free to move': the
+    element between them made the stiffness ill-conditioned. Points closer than NODE_MERGE of the length now
+    share a node; the reactions are still the statics of the simply supported beam (Roark's Formulas for
+    Stress and Strain, 7th ed., Table 8.1, case 1e)."""
+    a, P = 0.3, 1000.0
+    c, r = layout(loads=[{"at": a, "force": [0.0, -P]}], sections=[{"at": a + offset}])
+    R1, R2 = r["reactions"]
+    res = {"R1": {"fem": R1["Fy"], "exact": P * (1 - a)}, "R2": {"fem": R2["Fy"], "exact": P * a}}
+    for k, v in res.items():
+        assert v["fem"] == pytest.approx(v["exact"], rel=1e-9), k
