@@ -29,6 +29,7 @@ from fem.errors import InputError, escape_text
 from fem.geometry import Disk, Ellipse, Section, custom_section, polygon, rectangle, round_section
 
 from .outlines import parse_file_shape, parse_spline
+from .polymer import apply_polymer
 from .shaft import Shaft, check_with_case, parse_shaft
 from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
 from .units import UnitSystem, from_si, to_si, unit_system
@@ -71,6 +72,8 @@ class Material:
     reliability: float | None = None
     temperature: float | None = None
     kind: str = "ductile"
+    #: [material.polymer] read at the [service] conditions (compare/case/polymer.py PolymerAtService), or None
+    polymer: object | None = None
 
 
 @dataclass
@@ -114,7 +117,7 @@ class Case:
     geometry: dict = field(default_factory=dict)
 
 
-_TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue", "shaft",
+_TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue", "shaft", "service",
         "sweep"}  # [sweep]: read by `shaftcheck sweep` (compare/sweep.py), not by a single run
 _CASE = {"title", "units", "description", "source"}
 _LOAD_SCALARS = {"torque": "moment", "axial": "force"}
@@ -208,6 +211,7 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
                          "segments takes its diameter from [section])")
     section = section if section is not None else _shaft_section(shaft)
     material = parse_material(data.get("material", {}), units)
+    apply_polymer(material, data, units, _alternates(loads) or (shaft is not None and shaft.rotating), shaft)
     analysis = parse_analysis(data.get("analysis", {}))
     fatigue = parse_fatigue(data.get("fatigue", {}), units)
     expected = parse_expected(data["expected"], units) if "expected" in data else {}
@@ -237,13 +241,18 @@ def parse_expected(d, units) -> dict:
 def _fatigue_needs_ultimate(loads: Loads, m: Material, raw: dict) -> None:
     """An alternating load on a ductile part whose case gives strengths but not the ultimate: the
     fatigue check (Se' = 0.5·Sut, Goodman, Gerber) cannot be made. Refused rather than left out."""
-    alternating = any(_nonzero(v) for v in loads.alternating.values()) or (
-        loads.rotating and (_nonzero(loads.bending) or _nonzero(loads.shear)))
+    alternating = _alternates(loads)
     gives_strength = m.yield_strength is not None or m.endurance_limit is not None
     if alternating and gives_strength and m.kind == "ductile" and m.ultimate is None:
         raise InputError("material.ultimate", None, "is needed: the loads alternate, and the fatigue check "
                          "(Se' = 0.5·Sut, Goodman, Gerber) cannot be made without it; give the minimum ultimate "
                          "tensile strength")
+
+
+def _alternates(loads: Loads) -> bool:
+    """The section's loads alternate (a given amplitude, or a bending load on a rotating shaft)."""
+    return any(_nonzero(v) for v in loads.alternating.values()) or (
+        loads.rotating and (_nonzero(loads.bending) or _nonzero(loads.shear)))
 
 
 def _nonzero(v) -> bool:
@@ -455,7 +464,7 @@ def parse_loads(d: dict, units) -> Loads:
 
 
 def parse_material(d: dict, units) -> Material:
-    _known(d, set(_MATERIAL), "material")
+    _known(d, set(_MATERIAL) | {"polymer"}, "material")  # [material.polymer]: compare/case/polymer.py
     m = Material()
     for key, dim in _MATERIAL.items():
         if key not in d:

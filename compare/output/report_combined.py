@@ -21,6 +21,8 @@ CRITERION_LABEL = {
     "goodman": "fatigue, DE-Goodman", "gerber": "fatigue, DE-Gerber", "asme_elliptic": "fatigue, DE-ASME elliptic",
     "soderberg": "fatigue, DE-Soderberg", "yield_langer": "first-cycle yield, Langer",
     "first_cycle_yield": "first-cycle yield, von Mises at the peak",
+    "polymer_static_tensile": "polymer static, von Mises against the tensile strength at the service conditions",
+    "polymer_fatigue_goodman": "polymer fatigue, Goodman line on the stress-life strength at the service cycles",
 }
 
 

@@ -1,0 +1,147 @@
+"""A polymer shaft checked at its service conditions (numbers and records only): the static check on
+the tensile strength at the service temperature and moisture state, the fatigue check with the
+stress-life strength at the cycles the service requires and the Goodman line, the long-term twist
+with the creep modulus at the service life; for a layout, the long-term deflections.
+
+The data were read at the service conditions when the case was parsed (compare/case/polymer.py):
+``case.material.polymer``. Results key ``polymer`` (README, 'Polymer shafts').
+"""
+from __future__ import annotations
+
+import math
+
+import numpy as np
+
+from classic import polymer as cp
+
+from .combined import where_of
+
+#: What the polymer check does not cover, whatever the data (said in every polymer record).
+NOT_CHECKED = [
+    "weld (knit) lines, fibre orientation and residual stresses of the moulding: the data are for test bars",
+    "moisture uptake beyond the states the data give (swelling, the change of size at fits)",
+    "hysteretic heating under cyclic load (the tests' frequency against the service speed)",
+    "creep rupture and stress relaxation at press fits (the creep modulus gives deformation only)",
+    "creep at a stress level other than the data's (the isochronous modulus falls as the stress rises)",
+    "temperature peaks and cycles above the service temperature; chemical attack; ultraviolet ageing",
+    "wear at the bearing seats and the gear bore",
+]
+CAUTION = ("Polymer data depend on the grade, processing, weld lines and orientation in the moulding: the "
+           "supplier's data for the grade and the part's own tests decide.")
+STATIC_SOURCE = ("the largest von Mises stress over the cycle against the tensile strength at the service "
+                 "temperature and moisture state (common practice for a polymer without a yield point; from memory)")
+
+
+def _steady_torque(case) -> float:
+    ld = case.loads
+    return float(ld.mean.get("torque", ld.torque))
+
+
+def polymer_check(a, fld, fs, worst) -> dict | None:
+    """The ``polymer`` record of a section case whose material has polymer data, else None.
+    ``fs``: the fatigue stresses (von Mises amplitude and mean at every point); ``worst``: the worst
+    von Mises over the cycle at every point."""
+    p = a.case.material.polymer
+    if p is None:
+        return None
+    sv = p.service
+    usable = ~fld.excluded
+    nd = a.case.analysis.design_factor
+    out: dict = {
+        "conditions": {"temperature": sv.temperature, "moisture": sv.moisture, "life": sv.life,
+                       "cycles": sv.cycles, "cycles_source": sv.cycles_source, "speed": sv.speed,
+                       "cycles_per_revolution": sv.cycles_per_revolution},
+        "data": {"source": p.data.source, "illustrative": p.data.illustrative, "note": p.data.note},
+        "strengths": {"tensile_strength": p.tensile_strength, "yield": p.yield_strength,
+                      "elastic_modulus": p.elastic_modulus, "shear_modulus": p.shear_modulus,
+                      "poisson": p.poisson, "fatigue_strength": p.fatigue_strength,
+                      "source": (f"{p.data.where}.{sv.moisture}, linear in temperature between the data points "
+                                 "(nothing read outside them)")},
+        "factors": {},
+        "at": {}, "where": {},
+        "design_factor": nd,
+        "not_checked": list(NOT_CHECKED),
+        "notes": list(p.notes),
+        "caution": CAUTION,
+    }
+    # static: largest von Mises over the cycle against the tensile strength at the service conditions
+    w = worst["von_mises"]
+    i = w.best(usable)
+    vm = float(w.value[i])
+    out["von_mises_max"] = vm
+    n_st = p.tensile_strength / vm if vm > 0 else math.inf
+    out["factors"]["static_tensile"] = n_st
+    out["at"]["static_tensile"] = [float(fld.xy[0, i]), float(fld.xy[1, i])]
+    out["where"]["static_tensile"] = where_of(a, fld, i)
+    out["sources"] = {"static_tensile": STATIC_SOURCE}
+    # fatigue: Goodman line from the S-N strength at the required cycles to the tensile strength
+    if p.fatigue_strength is not None:
+        front = fs.pareto(usable)
+        sa, sm = fs.sa[front], fs.sm[front]
+        inv = sa / p.fatigue_strength + sm / p.tensile_strength
+        with np.errstate(divide="ignore"):
+            n = np.where(inv > 0, 1.0 / np.where(inv > 0, inv, 1.0), np.inf)
+        k = int(np.argmin(n))
+        j = int(front[k])
+        nf = float(n[k])
+        # the same factor through the published form, at the governing point (one formula, coded once in classic/)
+        nf_check = cp.goodman_factor_polymer(float(fs.sa[j]), float(fs.sm[j]), p.fatigue_strength, p.tensile_strength)
+        out["factors"]["fatigue_goodman"] = nf_check
+        out["at"]["fatigue_goodman"] = [float(fld.xy[0, j]), float(fld.xy[1, j])]
+        out["where"]["fatigue_goodman"] = where_of(a, fld, j)
+        out["fatigue"] = {"S_f": p.fatigue_strength, "cycles": sv.cycles, "sigma_a_vm": float(fs.sa[j]),
+                          "sigma_m_vm": float(fs.sm[j]), "fits": p.sn_fits, "source": p.fatigue_source,
+                          "mean_stress_correction": cp.GOODMAN_SOURCE,
+                          "vectorised_and_formula_agree": bool(math.isclose(nf, nf_check, rel_tol=1e-12)
+                                                               or nf == nf_check)}
+        out["sources"]["fatigue_goodman"] = cp.GOODMAN_SOURCE
+    elif bool(np.any(fs.sa[usable] > 0)):
+        out["notes"].append("the loads alternate but no stress-life data are given for this state: fatigue not checked")
+    # long-term twist: the steady torque for the whole service life, creep modulus at that duration
+    T = _steady_torque(a.case)
+    J = a.torsion.J
+    tw = {"torque": T, "J": J, "short_term": T / (p.shear_modulus * J),
+          "shear_modulus": p.shear_modulus,
+          "assumption": "G = E/(2(1 + ν)) with ν held at the given value under creep (ν of a polymer rises "
+                        "somewhat with time: the creep twist is then slightly underestimated)"}
+    if p.creep_modulus is not None:
+        Gc = p.creep_shear_modulus
+        tw.update(long_term=T / (Gc * J), creep_modulus=p.creep_modulus, creep_shear_modulus=Gc,
+                  duration=sv.life, curves=p.creep_curves, source=p.creep_source,
+                  formula="θ = T/(G_c·J), G_c = E_c/(2(1 + ν)), J from the FE (stress function)")
+    out["twist"] = tw
+    if nd is not None:
+        out["meets_design_factor"] = {k: bool(v >= nd) for k, v in out["factors"].items()}
+    return out
+
+
+def governs(polymer: dict, gov: dict | None, nd) -> dict | None:
+    """The governing record with the polymer factors among the candidates (the smallest wins)."""
+    best = gov
+    for crit, n in polymer["factors"].items():
+        if n is None or not math.isfinite(n):
+            continue
+        if best is None or best.get("factor") is None or n < best["factor"]:
+            best = {"factor": n, "criterion": f"polymer_{crit}", "path": "FE", "at": polymer["at"][crit],
+                    "where": polymer["where"][crit], "design_factor": nd,
+                    "meets_design_factor": None if nd is None else bool(n >= nd)}
+    return best
+
+
+def long_term_deflections(shaft_block: dict, p) -> dict | None:
+    """A layout's deflections and slopes scaled to the service life: the beam was solved with the
+    short-term modulus at the service temperature; under the steady loads for the whole life the
+    bending deflection grows as E/E_c (the shear part as G/G_c, the same ratio at a fixed ν)."""
+    if p is None or p.creep_modulus is None:
+        return None
+    ratio = p.elastic_modulus / p.creep_modulus
+    out = {"ratio_E_over_E_creep": ratio, "elastic_modulus": p.elastic_modulus, "creep_modulus": p.creep_modulus,
+           "duration": p.service.life,
+           "assumption": ("every load on the shaft acts steadily for the whole service life and the whole shaft is at "
+                          "the service temperature: the deflections and slopes scale by E/E_c (linear beam, "
+                          "pseudo-elastic creep modulus; " + cp.ISOCHRONOUS_SOURCE + ")")}
+    for key in ("max_deflection", "max_slope"):
+        v = shaft_block.get(key)
+        if isinstance(v, (int, float)) and v is not None:
+            out[key] = float(v) * ratio
+    return out
