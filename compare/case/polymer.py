@@ -340,10 +340,10 @@ def parse_service(d, units, material_temperature: float | None, material_raw: di
                          "check needs the cycles the service life brings")
     k = per_rev if per_rev is not None else 1.0
     N = speed / (2 * math.pi) * life * k
-    how = (f"{src_speed} × service.life × {k:g} cycle(s) per revolution" +
+    how = (f"{src_speed} × service.life × {k:g} per revolution" +
            ("" if per_rev is not None else
-            " (service.cycles_per_revolution not given: one, as a rotating shaft's bending" +
-            ("" if rotating else "; this shaft is not declared rotating: give the load cycles per revolution") + ")"))
+            "; service.cycles_per_revolution not given: one, as a rotating shaft's bending" +
+            ("" if rotating else " (this shaft is not declared rotating: give the load cycles per revolution)")))
     return Service(T, moist, life, N, how, speed, k, raw=dict(d))
 
 

@@ -145,3 +145,11 @@ def long_term_deflections(shaft_block: dict, p) -> dict | None:
         if isinstance(v, (int, float)) and v is not None:
             out[key] = float(v) * ratio
     return out
+
+
+def polymer_findings(a) -> list[dict]:
+    """Warnings of a polymer case: invented (illustrative) data cannot carry a verdict on a real part."""
+    p = a.case.material.polymer
+    if p is None or not p.data.illustrative:
+        return []
+    return [{"code": "polymer_illustrative_data", "source": p.data.source, "field": f"{p.data.where}.illustrative"}]

@@ -7,6 +7,7 @@ from ..case.units import SYSTEMS, UnitSystem, from_si
 from .report_combined import combined_lines
 from .report_features import factors_only_summary, feature_lines, feature_warning_text
 from .report_geometry import geometry_lines
+from .report_polymer import polymer_lines, polymer_warning_text
 from .section_geometry import SECTION_WARNINGS, section_warning_text
 
 CAUTION = ("shaftcheck is a cross-check aid for the designer. It does not replace the governing codes and "
@@ -81,6 +82,8 @@ _CRIT = {"von_mises": "static yield, von Mises", "tresca": "static yield, Tresca
 def warning_text(w: dict, f: Fmt) -> str:
     """One warning record of :mod:`compare.findings` in words, in the case's units."""
     code = w["code"]
+    if code.startswith("polymer_"):  # a polymer's own data (compare/output/report_polymer.py)
+        return polymer_warning_text(w, f)
     if code.startswith("feature_"):  # shoulders and grooves of [shaft]
         return feature_warning_text(w, f) or code
     if code in SECTION_WARNINGS:
@@ -192,6 +195,8 @@ def summary(res: dict, system: UnitSystem | None) -> str:
         lines += ["", *shear_lines(res["shear"], f, size)]
     if "combined" in res:
         lines += ["", *combined_lines(res, f)]
+    if "polymer" in res:
+        lines += ["", *polymer_lines(res, f)]
     if "accuracy" in res:
         lines += ["", *accuracy_lines(res)]
     lines += ["", *feature_lines(res, f)] if feature_lines(res, f) else []
