@@ -128,22 +128,37 @@ def governs(polymer: dict, gov: dict | None, nd) -> dict | None:
     return best
 
 
-def long_term_deflections(shaft_block: dict, p) -> dict | None:
-    """A layout's deflections and slopes scaled to the service life: the beam was solved with the
-    short-term modulus at the service temperature; under the steady loads for the whole life the
-    bending deflection grows as E/E_c (the shear part as G/G_c, the same ratio at a fixed ν)."""
-    if p is None or p.creep_modulus is None:
+def long_term_layout(a) -> dict | None:
+    """A layout's deflections and slopes after the service life (results ``polymer_layout``): the beam
+    was solved with the short-term modulus at the service temperature; under loads held for the whole
+    life the bending and shear deflections grow as E/E_c (G/G_c is the same ratio at a fixed ν), each
+    against the same limit as the short-term value. None without polymer data or creep data."""
+    p = a.case.material.polymer
+    shaft = (a.extra.get("shaft") or {}).get("layout")
+    if p is None or shaft is None:
         return None
-    ratio = p.elastic_modulus / p.creep_modulus
-    out = {"ratio_E_over_E_creep": ratio, "elastic_modulus": p.elastic_modulus, "creep_modulus": p.creep_modulus,
-           "duration": p.service.life,
-           "assumption": ("every load on the shaft acts steadily for the whole service life and the whole shaft is at "
-                          "the service temperature: the deflections and slopes scale by E/E_c (linear beam, "
-                          "pseudo-elastic creep modulus; " + cp.ISOCHRONOUS_SOURCE + ")")}
-    for key in ("max_deflection", "max_slope"):
-        v = shaft_block.get(key)
-        if isinstance(v, (int, float)) and v is not None:
-            out[key] = float(v) * ratio
+    out: dict = {"duration": p.service.life, "temperature": p.service.temperature, "moisture": p.service.moisture}
+    if p.creep_modulus is None:
+        out["skipped"] = "no creep data in the service moisture state: the long-term deflections are not computed"
+        return out
+    r = p.elastic_modulus / p.creep_modulus
+    rotating = bool(a.case.shaft is not None and a.case.shaft.rotating)
+    out.update(ratio_E_over_E_creep=r, elastic_modulus=p.elastic_modulus, creep_modulus=p.creep_modulus,
+               source=p.creep_source,
+               assumption=("the loads act for the whole service life with the whole shaft at the service temperature; "
+                           "a linear beam, so every deflection and slope scales by E/E_c (pseudo-elastic creep modulus)" +
+                           ("; on a rotating shaft each fibre's bending stress reverses every turn, which creeps less "
+                            "than a steady stress: the scaled values are taken as an upper bound (from memory)"
+                            if rotating else "")))
+    md = shaft["diagrams"]["max_deflection"]
+    out["max_deflection"] = {"value": md["value"] * r, "at": md["at"], "short_term": md["value"]}
+    out["slopes"] = [{"at": s["at"], "name": s["name"], "kind": s["kind"], "slope": s["slope"] * r,
+                      "short_term": s["slope"], "limit": s["limit"], "ok": bool(s["slope"] * r <= s["limit"])}
+                     for s in shaft.get("slopes", [])]
+    out["gear_deflections"] = [{"at": g["at"], "name": g["name"], "deflection": g["deflection"] * r,
+                                "short_term": g["deflection"], "limit": g["limit"],
+                                "ok": bool(g["deflection"] * r <= g["limit"])}
+                               for g in shaft.get("gear_deflections", [])]
     return out
 
 

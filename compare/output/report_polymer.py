@@ -19,6 +19,26 @@ def _n(v) -> str:
     return "—" if v is None else ("∞" if not math.isfinite(v) else f"{v:.3g}")
 
 
+def layout_lines(lt: dict, f) -> list[str]:
+    """The layout's deflections and slopes after the service life (results ``polymer_layout``)."""
+    head = f"  shaft after {lt['duration'] / 3600:.6g} h at {lt['temperature']:g} °C, {lt['moisture']}"
+    if "skipped" in lt:
+        return [f"{head}: {lt['skipped']}"]
+    md = lt["max_deflection"]
+    out = [f"{head}: deflections and slopes × E/E_c = {lt['ratio_E_over_E_creep']:.4g} "
+           f"(E {f.q(lt['elastic_modulus'], 'stress')}, E_c {f.q(lt['creep_modulus'], 'stress')})",
+           f"      largest deflection {f.q(md['value'], 'length')} at {f.q(md['at'], 'length')} "
+           f"(short-term {f.q(md['short_term'], 'length')})"]
+    for s in lt["slopes"]:
+        out.append(f"      slope at {s['name']} ({s['kind']}): {s['slope']:.3g} rad against {s['limit']:.3g} rad "
+                   f"{'ok' if s['ok'] else 'ABOVE THE LIMIT'} (short-term {s['short_term']:.3g} rad)")
+    for g in lt["gear_deflections"]:
+        out.append(f"      deflection at {g['name']}: {f.q(g['deflection'], 'length')} against {f.q(g['limit'], 'length')} "
+                   f"{'ok' if g['ok'] else 'ABOVE THE LIMIT'}")
+    out.append(f"      {lt['assumption']}; source: {lt['source']}")
+    return out
+
+
 def polymer_lines(res: dict, f) -> list[str]:
     """The summary block of the polymer check; [] when the case has none."""
     p = res.get("polymer")
@@ -54,6 +74,8 @@ def polymer_lines(res: dict, f) -> list[str]:
                     if "long_term" in tw else " (no creep data: long-term twist not computed)"))
     if "long_term" in tw:
         lines.append(f"      source: {tw['source']}; {tw['assumption']}")
+    if res.get("polymer_layout"):
+        lines += layout_lines(res["polymer_layout"], f)
     for note in p.get("notes", []):
         lines.append(f"  note: {note}")
     lines.append("  not checked: " + "; ".join(p["not_checked"]))
