@@ -82,6 +82,7 @@ class Curve:
     y: list[float]
     where: str  # the case-file field it was read from
     stress_ratio: float | None = None
+    raw_temperature: object = None  # the temperature as written
 
 
 @dataclass
@@ -227,8 +228,9 @@ def parse_polymer(d, units, where: str = "material.polymer") -> PolymerData:
         for c in curves:
             key = (c.moisture, c.temperature)
             if key in seen:
-                raise InputError(f"{c.where}.temperature", c.temperature,
-                                 f"a second {name} curve at the same temperature and moisture state", "°C")
+                raise InputError(f"{c.where}.temperature", c.raw_temperature,
+                                 f"a second {name} curve at the same temperature and moisture state",
+                                 "°C" if not isinstance(c.raw_temperature, str) else None)
             seen.add(key)
     return PolymerData(escape_text(src.strip()), ill, states, creep, sn,
                        escape_text(note) if note else None, where)
@@ -270,7 +272,7 @@ def _curve(d, units, where, kind) -> Curve:
         x = [duration(v, f"{where}.duration[{i}]") for i, v in enumerate(raw)]
         _increasing(x, raw, f"{where}.duration")
         y = _stresses(d, "modulus", where, units, len(x))
-        return Curve(T, moist, x, y, where)
+        return Curve(T, moist, x, y, where, raw_temperature=d["temperature"])
     if "stress_ratio" not in d:
         raise InputError(f"{where}.stress_ratio", None, "is required: state the stress ratio of the tests (only "
                          "fully reversed data, stress_ratio = -1, can be used with the mean-stress line here)")
@@ -290,7 +292,7 @@ def _curve(d, units, where, kind) -> Curve:
         cp.basquin_fit(x, y)
     except OutOfRangeError as exc:
         raise InputError(f"{where}.amplitude", d["amplitude"], f"cannot be fitted: {exc.reason}") from None
-    return Curve(T, moist, x, y, where, float(R))
+    return Curve(T, moist, x, y, where, float(R), d["temperature"])
 
 
 def parse_service(d, units, material_temperature: float | None, material_raw: dict, shaft_speed: float | None,
@@ -399,9 +401,11 @@ def at_service(data: PolymerData, sv: Service, poisson: float, needs_fatigue: bo
         def at_life(c):
             try:
                 return cp.creep_modulus(sv.life, c.x, c.y)
-            except OutOfRangeError as exc:
-                _refuse("service.life", sv.raw.get("life"), exc,
-                        f"is outside the load durations of {c.where} ({c.x[0] / 3600:g} to {c.x[-1] / 3600:g} h)")
+            except OutOfRangeError:
+                raise InputError("service.life", sv.raw.get("life"),
+                                 f"is outside the load durations of {c.where} ({c.x[0] / 3600:g} to {c.x[-1] / 3600:g} h): "
+                                 "the creep modulus is not read outside the data",
+                                 "h" if not isinstance(sv.raw.get("life"), str) else None) from None
         out.creep_modulus, used = _at_temperature(creep, sv.temperature, at_life, field_T, raw_T, "creep")
         out.creep_curves = [{"temperature": t, "modulus": v} for t, v in used]
         out.creep_source = cp.ISOCHRONOUS_SOURCE + (
@@ -421,11 +425,13 @@ def at_service(data: PolymerData, sv: Service, poisson: float, needs_fatigue: bo
         def strength(c):
             try:
                 S, fit = cp.sn_strength(sv.cycles, c.x, c.y)
-            except OutOfRangeError as exc:
+            except OutOfRangeError:
                 fld = "service.cycles" if "cycles" in sv.raw else "service.life"
-                raise InputError(fld, sv.raw.get("cycles", sv.raw.get("life")),
-                                 f"gives {sv.cycles:.4g} cycles, outside the lives of {c.where} ({c.x[0]:.4g} to "
-                                 f"{c.x[-1]:.4g} cycles): {exc.reason}") from None
+                val = sv.raw.get("cycles", sv.raw.get("life"))
+                raise InputError(fld, val, f"gives {sv.cycles:.4g} cycles, outside the lives of {c.where} ({c.x[0]:.4g} "
+                                 f"to {c.x[-1]:.4g} cycles): the stress-life curve is not extended past the tests and "
+                                 "no endurance limit is assumed",
+                                 "h" if fld == "service.life" and not isinstance(val, str) else None) from None
             fits.append({"temperature": c.temperature, "A": fit.A, "b": fit.b, "r2": fit.r2,
                          "n_min": fit.n_min, "n_max": fit.n_max, "S_f": S, "points": len(c.x)})
             return S
