@@ -361,7 +361,8 @@ def _at_temperature(curves: list, T: float, value_of, field_name, raw_T, what: s
     temps = sorted(c.temperature for c in curves)
     exact = [c for c in curves if abs(c.temperature - T) <= SAME_TEMPERATURE]
     if exact:
-        return value_of(exact[0]), [(exact[0].temperature, value_of(exact[0]))]
+        v = value_of(exact[0])
+        return v, [(exact[0].temperature, v)]
     below = [c for c in curves if c.temperature < T]
     above = [c for c in curves if c.temperature > T]
     if not below or not above:
