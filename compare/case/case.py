@@ -9,6 +9,7 @@ Schema (README, 'Case files', is the reference)::
     [material]  shear_modulus | elastic_modulus, poisson, yield, ultimate, ...
     [analysis]  fineness, accuracy, max_dofs, max_seconds, design_factor, materials
     [fatigue]   kt_bending (+ kt_bending_source), kts_torsion (+ kts_torsion_source), notch_radius
+    [material.polymer], [service]   a polymer's own data and the service conditions (case/polymer.py)
 
 Unknown keys are refused (a misspelt key silently ignored is a wrong answer). Every error is an
 :class:`~fem.errors.InputError` naming the field and the value.
