@@ -182,6 +182,8 @@ def test_polymer_demo_end_to_end(tmp_path, run_cli):
     assert pol["twist"]["long_term"] > pol["twist"]["short_term"] > 0
     assert "Polymer at the service conditions" in stdout and "ILLUSTRATIVE POLYMER DATA" in stdout
     assert "temperature dependence" not in " ".join(pol["not_checked"])  # it is checked now
+    page = (out / "report.html").read_text()
+    assert "Polymer at the service conditions" in page and "ILLUSTRATIVE" in page
 
 
 def test_polymer_layout_long_term_deflections(tmp_path, run_cli):

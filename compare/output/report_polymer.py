@@ -2,6 +2,7 @@
 and the warning text. ``f`` is the report's formatter (compare/output/report.py ``Fmt``)."""
 from __future__ import annotations
 
+import html
 import math
 
 from .report_combined import CRITERION_LABEL
@@ -81,3 +82,12 @@ def polymer_lines(res: dict, f) -> list[str]:
     lines.append("  not checked: " + "; ".join(p["not_checked"]))
     lines.append(f"  {p['caution']}")
     return lines
+
+
+def polymer_html(res: dict, f) -> str:
+    """The polymer block for report.html (in 'Static and fatigue factors of safety'); '' without one."""
+    lines = polymer_lines(res, f)
+    if not lines:
+        return ""
+    body = "\n".join(line[2:] if line.startswith("  ") else line for line in lines[1:])
+    return f"<h3>{html.escape(lines[0])}</h3><pre>{html.escape(body)}</pre>"
