@@ -182,6 +182,11 @@ def test_polymer_demo_end_to_end(tmp_path, run_cli):
     assert pol["twist"]["long_term"] > pol["twist"]["short_term"] > 0
     assert "Polymer at the service conditions" in stdout and "ILLUSTRATIVE POLYMER DATA" in stdout
     assert "temperature dependence" not in " ".join(pol["not_checked"])  # it is checked now
+    # the demo's table: row A holds the case's own data, so its factor is the case's; row C stops at 23 °C
+    rows = {m["name"].split(",")[0]: m for m in res["materials"]}
+    assert rows["polymer A"]["factor"] == pytest.approx(pol["factors"]["fatigue_goodman"], rel=1e-12)
+    assert rows["polymer A"]["complete"] and not rows["polymer C"]["complete"]
+    assert rows["polymer C"]["factor"] is None and "service.temperature" in rows["polymer C"]["notes"][0]
     page = (out / "report.html").read_text()
     assert "Polymer at the service conditions" in page and "ILLUSTRATIVE" in page
 

@@ -168,3 +168,18 @@ def polymer_findings(a) -> list[dict]:
     if p is None or not p.data.illustrative:
         return []
     return [{"code": "polymer_illustrative_data", "source": p.data.source, "field": f"{p.data.where}.illustrative"}]
+
+
+def row_factors(a, fld, fs, worst, p) -> dict:
+    """The polymer factors of a material-table row ``p`` (PolymerAtService) on the case's stress field:
+    ``polymer_static_tensile`` and, with stress-life data, ``polymer_fatigue_goodman``."""
+    usable = ~fld.excluded
+    w = worst["von_mises"]
+    vm = float(w.value[w.best(usable)])
+    out = {"polymer_static_tensile": p.tensile_strength / vm if vm > 0 else math.inf}
+    if p.fatigue_strength is not None:
+        front = fs.pareto(usable)
+        n = [cp.goodman_factor_polymer(float(fs.sa[j]), float(fs.sm[j]), p.fatigue_strength, p.tensile_strength)
+             for j in front]
+        out["polymer_fatigue_goodman"] = float(min(n))
+    return out
