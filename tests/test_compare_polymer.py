@@ -208,3 +208,13 @@ def test_polymer_layout_long_term_deflections(tmp_path, run_cli):
         assert s["slope"] == pytest.approx(s["short_term"] * r, rel=1e-12)
         assert s["ok"] == (s["slope"] <= s["limit"])
     assert "polymer" in res  # the governing station's polymer check
+
+
+def test_api_gives_the_polymer_results_with_units():
+    import compare
+
+    r = compare.analyse(compare.Case.load("cases/polymer_gear_shaft.toml"))
+    tw = r.polymer["twist"]
+    assert r.q.polymer.twist.long_term.to("rad/m").magnitude == pytest.approx(tw["long_term"], rel=1e-12)
+    assert r.q.polymer.conditions.life.to("h").magnitude == pytest.approx(5000.0, rel=1e-12)
+    assert r.q.polymer.strengths.tensile_strength.to("MPa").magnitude == pytest.approx(lerp(40, 23, 60, 120, 90), rel=1e-12)
