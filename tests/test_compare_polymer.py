@@ -218,3 +218,13 @@ def test_api_gives_the_polymer_results_with_units():
     assert r.q.polymer.twist.long_term.to("rad/m").magnitude == pytest.approx(tw["long_term"], rel=1e-12)
     assert r.q.polymer.conditions.life.to("h").magnitude == pytest.approx(5000.0, rel=1e-12)
     assert r.q.polymer.strengths.tensile_strength.to("MPa").magnitude == pytest.approx(lerp(40, 23, 60, 120, 90), rel=1e-12)
+
+
+def test_a_polymer_factor_below_one_is_said_in_words():
+    d = copy.deepcopy(CASE)
+    d["loads"]["bending"] = ["20 N*m", 0]  # far beyond the invented data's strength
+    a = analyse(parse_case(d), study=False)
+    res = build_results(a)
+    assert res["governing"]["criterion"].startswith("polymer_")
+    w = next(w for w in res["warnings"] if w["code"] == "factor_below_one")
+    assert "polymer" in w["text"] and "BELOW 1" in w["text"]

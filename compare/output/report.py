@@ -4,7 +4,7 @@ from __future__ import annotations
 import numpy as np
 
 from ..case.units import SYSTEMS, UnitSystem, from_si
-from .report_combined import combined_lines
+from .report_combined import CRITERION_LABEL, combined_lines
 from .report_features import factors_only_summary, feature_lines, feature_warning_text
 from .report_geometry import geometry_lines
 from .report_polymer import polymer_lines, polymer_warning_text
@@ -105,7 +105,8 @@ def warning_text(w: dict, f: Fmt) -> str:
                 "there is unbounded, so this section has no peak stress, no Kts and no factor of safety; no material "
                 f"can be said to meet the design factor. To get one, {fix}.")
     if code == "factor_below_one":
-        crit = _CRIT.get(w.get("criterion"), w.get("criterion") or "")
+        c = w.get("criterion")
+        crit = _CRIT.get(c, CRITERION_LABEL.get(c, c or ""))
         away = " even away from the sharp corners" if w.get("away_from_corners") else ""
         return (f"FACTOR OF SAFETY BELOW 1: n = {w['factor']:.3g} ({crit}, {w.get('path')} path){away}: the section is "
                 "predicted to fail under these loads, whatever the design factor.")
