@@ -189,6 +189,7 @@ def test_polymer_demo_end_to_end(tmp_path, run_cli):
     assert rows["polymer C"]["factor"] is None and "service.temperature" in rows["polymer C"]["notes"][0]
     page = (out / "report.html").read_text()
     assert "Polymer at the service conditions" in page and "ILLUSTRATIVE" in page
+    assert (out / "figures" / "polymer_data.png").stat().st_size > 0 and "polymer_data" in page
 
 
 def test_polymer_layout_long_term_deflections(tmp_path, run_cli):

@@ -408,7 +408,9 @@ def at_service(data: PolymerData, sv: Service, poisson: float, needs_fatigue: bo
                                  "the creep modulus is not read outside the data",
                                  "h" if not isinstance(sv.raw.get("life"), str) else None) from None
         out.creep_modulus, used = _at_temperature(creep, sv.temperature, at_life, field_T, raw_T, "creep")
-        out.creep_curves = [{"temperature": t, "modulus": v} for t, v in used]
+        by_t = {c.temperature: c for c in creep}
+        out.creep_curves = [{"temperature": t, "modulus": v, "duration": list(by_t[t].x), "moduli": list(by_t[t].y)}
+                            for t, v in used]
         out.creep_source = cp.ISOCHRONOUS_SOURCE + (
             "; linear in temperature between the two curves around the service temperature" if len(used) == 2 else "")
         if out.creep_modulus > out.elastic_modulus:
@@ -434,7 +436,8 @@ def at_service(data: PolymerData, sv: Service, poisson: float, needs_fatigue: bo
                                  "no endurance limit is assumed",
                                  "h" if fld == "service.life" and not isinstance(val, str) else None) from None
             fits.append({"temperature": c.temperature, "A": fit.A, "b": fit.b, "r2": fit.r2,
-                         "n_min": fit.n_min, "n_max": fit.n_max, "S_f": S, "points": len(c.x)})
+                         "n_min": fit.n_min, "n_max": fit.n_max, "S_f": S, "points": len(c.x),
+                         "cycles": list(c.x), "amplitude": list(c.y)})
             return S
 
         out.fatigue_strength, _ = _at_temperature(sn, sv.temperature, strength, field_T, raw_T, "stress-life")

@@ -129,7 +129,8 @@ def render(res: dict, system, figures: list, case_text: str | None, trace: dict,
         hv.append(("Kts = τmax / τnominal", _num(t["kts"], 5), "—", "—", t["kts_nominal"]["source"]))
     parts["hand-vs-fe"] = _table(("quantity", "FE", "hand", "ratio FE/hand", "source of the hand value"), hv,
                                  numeric=(1, 2, 3))
-    parts["factors"] = _factors(res) + polymer_html(res, f)  # a polymer's check at its service conditions
+    parts["factors"] = (_factors(res) + polymer_html(res, f) +  # a polymer's check at its service conditions
+                        (_img(figs["polymer_data"]) if "polymer_data" in figs else ""))
     parts["materials"] = _materials(res)
     parts["convergence"] = (_img(figs["convergence"]) if "convergence" in figs else "") + _convergence(res)
     parts["assumptions"] = ASSUMPTIONS
