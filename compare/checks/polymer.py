@@ -92,6 +92,13 @@ def polymer_check(a, fld, fs, worst) -> dict | None:
         out["fatigue"] = {"S_f": p.fatigue_strength, "cycles": sv.cycles, "sigma_a_vm": float(fs.sa[j]),
                           "sigma_m_vm": float(fs.sm[j]), "fits": p.sn_fits, "source": p.fatigue_source,
                           "mean_stress_correction": cp.GOODMAN_SOURCE,
+                          "notes": ["σa', σm': von Mises of the alternating and mean stress states at every read point, "
+                                    "alternating sources of unknown phase added (conservative), as in the steel path; an "
+                                    "axial alternating stress is divided by the steel load factor 0.85 there too "
+                                    "(conservative for the polymer: it raises σa')",
+                                    "the stress-life data are taken as fully reversed (stress_ratio = -1) at a test "
+                                    "frequency that did not heat the specimen; check the data's frequency against the "
+                                    "service speed"],
                           "vectorised_and_formula_agree": bool(math.isclose(nf, nf_check, rel_tol=1e-12)
                                                                or nf == nf_check)}
         out["sources"]["fatigue_goodman"] = cp.GOODMAN_SOURCE
