@@ -288,7 +288,7 @@ PATH_UNITS = {".shaft.max_deflection.value": "m", ".shaft.max_moment.value": "N*
               ".polymer.twist.shear_modulus": "Pa", ".polymer.twist.short_term": "rad/m", ".polymer.twist.long_term": "rad/m",
               ".polymer.twist.duration": "s", ".polymer.conditions.life": "s", ".polymer.conditions.speed": "rad/s",
               ".polymer_layout.max_deflection.value": "m", ".polymer_layout.max_deflection.short_term": "m"}
-_PAIR_DIMENSIONS = {"second_moment": "m**4", "area": "m**2", "stress": "Pa", "length": "m",
+_PAIR_DIMENSIONS = {"second_moment": "m**4", "area": "m**2", "stress": "Pa", "length": "m", "twist": "rad/m",
                     "per_cubic": "Pa/(N*m)", "dimensionless": ""}
 
 

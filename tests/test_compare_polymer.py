@@ -135,6 +135,11 @@ def test_long_term_twist_is_T_over_Gc_J(runs):
         rec = {"fem": tw["long_term"], "exact": T_STEADY / (Gc * J_exact)}
         assert rec["fem"] == pytest.approx(rec["exact"], rel=1e-4), (f, rec)
         assert tw["short_term"] == pytest.approx(T_STEADY / (p.shear_modulus * a.torsion.J), rel=1e-12)
+        # the pair beside it: the hand value is the exact round-bar twist with the same creep modulus
+        pair = next(q for q in a.pairs if q.quantity.startswith("long-term twist"))
+        assert pair.kind == "check" and pair.within is True
+        assert pair.classic == pytest.approx(T_STEADY / (Gc * J_exact), rel=1e-12)
+        assert pair.fe == pytest.approx(tw["long_term"], rel=1e-12)
 
 
 def test_fatigue_and_static_against_the_round_bar_by_hand(runs):

@@ -14,6 +14,7 @@ import numpy as np
 
 from classic import polymer as cp
 
+from ..pairs.pairs import Pair
 from .combined import where_of
 
 #: What the polymer check does not cover, whatever the data (said in every polymer record).
@@ -117,8 +118,27 @@ def polymer_check(a, fld, fs, worst) -> dict | None:
                   duration=sv.life, curves=p.creep_curves, source=p.creep_source,
                   formula="θ = T/(G_c·J), G_c = E_c/(2(1 + ν)), J from the FE (stress function)")
     out["twist"] = tw
+    if p.creep_modulus is not None and T != 0:
+        a.pairs.extend(twist_pairs(a.pairs, T, p.creep_shear_modulus, J))
     if nd is not None:
         out["meets_design_factor"] = {k: bool(v >= nd) for k, v in out["factors"].items()}
+    return out
+
+
+def twist_pairs(pairs: list, T: float, Gc: float, J_fe: float) -> list:
+    """The long-term twist beside its hand value for every J the section has a hand formula for:
+    θ = T/(G_c·J) with the FE J and with that J (the pair's kind, tolerance and reason are the J pair's:
+    the twist differs only through J)."""
+    out = []
+    for q in list(pairs):
+        # the torsion-constant pairs: "torsion constant J" (a closed form) and "J against ..." (stand-ins)
+        is_j = q.quantity.startswith(("J ", "torsion constant J"))
+        if q.dimension != "second_moment" or not is_j or not q.classic or q.fe is None:
+            continue
+        out.append(Pair(f"long-term twist θ = T/(G_c·J) (creep modulus), {q.quantity}", T / (Gc * q.fe),
+                        T / (Gc * q.classic), f"{q.source}; {cp.ISOCHRONOUS_SOURCE}", kind=q.kind, dimension="twist",
+                        tolerance=q.tolerance, reason=q.reason,
+                        note="the creep shear modulus G_c = E_c/(2(1 + ν)) at the service life and temperature"))
     return out
 
 
