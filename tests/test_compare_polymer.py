@@ -234,3 +234,22 @@ def test_a_polymer_factor_below_one_is_said_in_words():
     assert res["governing"]["criterion"].startswith("polymer_")
     w = next(w for w in res["warnings"] if w["code"] == "factor_below_one")
     assert "polymer" in w["text"] and "BELOW 1" in w["text"]
+
+
+def test_polymer_station_on_a_shoulder_uses_the_fillet_stresses():
+    # a station at a shoulder: the polymer checks must see the fillet's local stresses (a fillet raises the
+    # stress, Kt > 1, so each factor falls below the plain round's), and the governing factor must hold them
+    with open("cases/polymer_gear_layout.toml", "rb") as fh:
+        raw = tomllib.load(fh)
+    raw["shaft"]["segments"] = [{"from": 0, "to": 30, "diameter": 12},
+                                {"from": 30, "to": 50, "diameter": 14, "fillet": 1.0}]
+    raw["shaft"]["sections"] = [{"at": 30, "name": "shoulder"}]
+    del raw["section"]
+    res = build_results(analyse(parse_case(raw)))
+    pol = res["polymer"]
+    plain = pol["plain_round"]
+    for crit in ("static_tensile", "fatigue_goodman"):
+        assert pol["factors"][crit] < plain[crit]["factor"]
+        assert pol["where"][crit]["feature"] == "fillet"
+    assert res["governing"]["criterion"] == "polymer_fatigue_goodman"
+    assert res["governing"]["factor"] == pytest.approx(pol["factors"]["fatigue_goodman"], rel=1e-12)

@@ -142,6 +142,43 @@ def twist_pairs(pairs: list, T: float, Gc: float, J_fe: float) -> list:
     return out
 
 
+def polymer_at_feature(a, fs: dict, vm, place, keep_min: bool, plain_key: str, rec: dict, gov):
+    """A polymer station on a shoulder or groove: the polymer checks on the fillet's local stresses
+    (``fs``: ``sa``, ``sm`` (n,), ``theta`` (K,); ``vm`` (n, K) the von Mises stress round the shaft;
+    ``place(i, theta) -> (at, where)``) replace the plain section's in ``a.extra['polymer']`` (kept
+    beside them under ``plain_key``; with ``keep_min`` each keeps the smaller). Returns the governing
+    record with the polymer factors among the candidates."""
+    pol = a.extra.get("polymer")
+    p = a.case.material.polymer
+    if pol is None or p is None:
+        return gov
+    vm = np.asarray(vm, float)
+    k = np.unravel_index(int(np.argmax(vm)), vm.shape)
+    new = {"static_tensile": (p.tensile_strength / float(vm[k]) if vm[k] > 0 else math.inf,
+                              place(int(k[0]), float(fs["theta"][k[1]])))}
+    if p.fatigue_strength is not None:
+        n = [cp.goodman_factor_polymer(float(sa), float(sm), p.fatigue_strength, p.tensile_strength)
+             for sa, sm in zip(fs["sa"], fs["sm"])]
+        i = int(np.argmin(n))
+        new["fatigue_goodman"] = (float(n[i]), place(i, float(fs["theta"][int(np.argmax(vm[i]))])))
+    for crit, (n, (at, where)) in new.items():
+        if crit not in pol["factors"]:
+            continue
+        pol.setdefault(plain_key, {})[crit] = {"factor": pol["factors"][crit], "at": pol["at"][crit],
+                                               "where": pol["where"][crit]}
+        if keep_min and pol["factors"][crit] <= n:
+            continue
+        pol["factors"][crit], pol["at"][crit], pol["where"][crit] = n, at, where
+    pol["fe_local"] = rec
+    pol["notes"].append("this station sits on a shoulder or groove: the polymer factors are those of the fillet's local "
+                        "stresses (fe_local; the plain section's kept beside them); fatigue.sigma_a_vm and sigma_m_vm "
+                        "are the plain section's")
+    nd = a.case.analysis.design_factor
+    if nd is not None:
+        pol["meets_design_factor"] = {c: bool(v >= nd) for c, v in pol["factors"].items()}
+    return governs(pol, gov, nd)
+
+
 def governs(polymer: dict, gov: dict | None, nd) -> dict | None:
     """The governing record with the polymer factors among the candidates (the smallest wins)."""
     best = gov
