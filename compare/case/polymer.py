@@ -473,6 +473,17 @@ def apply_polymer(m, data: dict, units, alternating: bool, shaft) -> None:
     if m.poisson is None:
         raise InputError("material.poisson", None, "is required with material.polymer: G = E/(2(1 + ν)) at the "
                          "service temperature and the creep twist need it")
+    # chart factors feed the steel hand path only; the polymer check reads the FE stresses, so a 3-D
+    # feature's chart Kt would be silently left out: refused rather than ignored
+    charts = [(f"fatigue.{k}", v) for k, v in (data.get("fatigue") or {}).items() if k in ("kt_bending", "kts_torsion")]
+    for i, st in enumerate(shaft.stations if shaft is not None else []):
+        charts += [(f"shaft.sections[{i}].fatigue.{k}", (st.raw.get("fatigue") or {}).get(k, v))
+                   for k, v in st.fatigue.items() if k in ("kt_bending", "kts_torsion")]
+    if charts:
+        raise InputError(charts[0][0], charts[0][1], "cannot be used with material.polymer: the polymer check reads "
+                         "the FE stresses and has no hand path to apply a chart factor to; a 3-D feature's "
+                         "concentration would be left out. Model a shoulder or groove in [shaft], or check the "
+                         "feature with the part's own tests")
     pd = parse_polymer(mat["polymer"], units)
     if "service" not in data:
         raise InputError("service", None, "is required with material.polymer: the service temperature, moisture "

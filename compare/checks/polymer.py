@@ -26,6 +26,8 @@ NOT_CHECKED = [
     "creep at a stress level other than the data's (the isochronous modulus falls as the stress rises)",
     "temperature peaks and cycles above the service temperature; chemical attack; ultraviolet ageing",
     "wear at the bearing seats and the gear bore",
+    "3-D features (keyseat ends, hub and press-fit edges, cross holes): the FE section is 2-D and chart factors "
+    "are not applied to a polymer (a shoulder or groove in [shaft] is checked on its fillet)",
 ]
 CAUTION = ("Polymer data depend on the grade, processing, weld lines and orientation in the moulding: the "
            "supplier's data for the grade and the part's own tests decide.")
