@@ -326,6 +326,9 @@ def parse_service(d, units, material_temperature: float | None, material_raw: di
     speed = to_si(d["speed"], "angular_speed", "service.speed", units) if "speed" in d else None
     if speed is not None and not speed > 0:
         raise InputError("service.speed", d["speed"], "must be positive")
+    if speed is not None and shaft_speed is not None and abs(speed - shaft_speed) > 1e-9 * shaft_speed:
+        raise InputError("service.speed", d["speed"], "differs from shaft.speed; give the speed once (shaft.speed "
+                         "serves both the critical-speed margin and the cycles)")
     if "cycles" in d:
         if speed is not None or per_rev is not None:
             raise InputError("service.cycles", d["cycles"], "is given with service.speed or "
