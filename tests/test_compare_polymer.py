@@ -130,8 +130,8 @@ def test_long_term_twist_is_T_over_Gc_J(runs):
         tw = a.extra["polymer"]["twist"]
         # the recorded value is T/(G_c J) with the run's own J, to round-off
         assert tw["long_term"] == pytest.approx(T_STEADY / (Gc * a.torsion.J), rel=1e-12)
-        # and against the exact twist of a round bar: the FE J of a curved P2 mesh is within 1e-5 of
-        # pi d^4/32 on these meshes; 1e-4 leaves room for any processor's mesh
+        # and against the exact twist of a round bar: the FE J of a curved P2 mesh was within 2e-7 of
+        # pi d^4/32 on these meshes (measured); 1e-4 leaves room for any processor's mesh
         rec = {"fem": tw["long_term"], "exact": T_STEADY / (Gc * J_exact)}
         assert rec["fem"] == pytest.approx(rec["exact"], rel=1e-4), (f, rec)
         assert tw["short_term"] == pytest.approx(T_STEADY / (p.shear_modulus * a.torsion.J), rel=1e-12)
@@ -152,10 +152,13 @@ def test_fatigue_and_static_against_the_round_bar_by_hand(runs):
     vm_hand = math.sqrt(sa ** 2 + 3 * (16 * T_STEADY / (math.pi * D ** 3)) ** 2)
     for f, a in runs:
         pol = a.extra["polymer"]
-        # the FE torsion peak of a round bar without the accuracy study is within 0.2 % of 16T/(pi d^3) at
-        # these finenesses; bending is exact for P2 on the boundary. 0.5 % covers both on any mesh.
-        assert {"fem": pol["factors"]["fatigue_goodman"], "exact": n_hand}["fem"] == pytest.approx(n_hand, rel=5e-3), f
-        assert pol["factors"]["static_tensile"] == pytest.approx(p.tensile_strength / vm_hand, rel=5e-3), f
+        # without the accuracy study the FE torsion peak of a round bar was within 0.06 % of 16T/(pi d^3) and
+        # these factors within 0.04 % of the hand values at fineness 0.8-1.25 (measured); 0.5 % leaves a
+        # tenfold margin for any processor's mesh
+        rec = {"fem": pol["factors"]["fatigue_goodman"], "exact": n_hand}
+        assert rec["fem"] == pytest.approx(rec["exact"], rel=5e-3), (f, rec)
+        rec = {"fem": pol["factors"]["static_tensile"], "exact": p.tensile_strength / vm_hand}
+        assert rec["fem"] == pytest.approx(rec["exact"], rel=5e-3), (f, rec)
         assert pol["fatigue"]["vectorised_and_formula_agree"]
         # a yield is given in the conditioned table: the ordinary von Mises check runs on the yield at 40 °C
         assert a.extra["static"]["von_mises"] == pytest.approx(p.yield_strength / vm_hand, rel=5e-3)
