@@ -6,7 +6,6 @@ import json
 import math
 import sys
 
-import numpy as np
 import pytest
 
 if sys.version_info >= (3, 11):
