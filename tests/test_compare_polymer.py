@@ -194,6 +194,8 @@ def test_polymer_demo_end_to_end(tmp_path, run_cli):
     assert rows["polymer A"]["factor"] == pytest.approx(pol["factors"]["fatigue_goodman"], rel=1e-12)
     assert rows["polymer A"]["complete"] and not rows["polymer C"]["complete"]
     assert rows["polymer C"]["factor"] is None and "service.temperature" in rows["polymer C"]["notes"][0]
+    csv_text = (out / "results.csv").read_text()
+    assert "checked at the service temperature (conditioned, 5000 h, 9e+07 cycles)" in csv_text
     page = (out / "report.html").read_text()
     assert "Polymer at the service conditions" in page and "ILLUSTRATIVE" in page
     assert (out / "figures" / "polymer_data.png").stat().st_size > 0 and "polymer_data" in page
