@@ -270,7 +270,10 @@ UNITS = {
                      "von_mises", "tresca", "tau_max_in_plane", "sigma_a_vm", "sigma_m_vm"], "Pa"),
     **dict.fromkeys(["tau_max_per_torque", "tau_nominal_per_torque"], "Pa/(N*m)"),
     "twist_per_length": "rad/m",
-    "torsional_stiffness_GJ": "N*m**2",
+    **dict.fromkeys(["torsional_stiffness_GJ", "GJ", "GJ_warping", "GJ_bracket", "EIxx", "EIyy", "EIxy", "EI1",
+                     "EI2"], "N*m**2"),
+    "EA": "N", "centroid_weighted": "m", "sigma_max": "Pa", "von_mises_bound": "Pa", "tau_interface_max": "Pa",
+    "sigma_max_at": "m", "elastic_modulus": "Pa", "shear_modulus": "Pa", "yield": "Pa",
     "section_modulus": "m**3",
     **dict.fromkeys(["kts", "J_relative_gap", "peak_relative_difference", "fe_vs_boundary_integral", "kappa_x",
                      "kappa_y", "kappa_xy", "poisson", "ratio", "factor", "target", "achieved", "design_factor",
@@ -288,7 +291,8 @@ PATH_UNITS = {".shaft.max_deflection.value": "m", ".shaft.max_moment.value": "N*
               ".polymer.twist.shear_modulus": "Pa", ".polymer.twist.short_term": "rad/m", ".polymer.twist.long_term": "rad/m",
               ".polymer.twist.duration": "s", ".polymer.conditions.life": "s", ".polymer.conditions.speed": "rad/s",
               ".polymer_layout.max_deflection.value": "m", ".polymer_layout.max_deflection.short_term": "m"}
-_PAIR_DIMENSIONS = {"second_moment": "m**4", "area": "m**2", "stress": "Pa", "length": "m", "twist": "rad/m",
+_PAIR_DIMENSIONS = {"second_moment": "m**4", "area": "m**2", "stress": "Pa", "length": "m", "rigidity": "N*m**2",
+                    "twist": "rad/m",
                     "per_cubic": "Pa/(N*m)", "dimensionless": ""}
 
 

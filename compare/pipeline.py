@@ -8,12 +8,14 @@ from __future__ import annotations
 import time
 
 from .case.case import Case
+from .checks.composite_checks import composite_checks
 from .checks.feature_findings import factors_only, feature_findings
 from .checks.findings import findings_step
 from .checks.polymer import long_term_layout
 from .checks.shaft_stations import layout_step
 from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
+from .pairs.composite_step import composite_step
 from .pairs.feature_step import attach_features, shaft_features_step
 from .pairs.shear_step import shear_step
 from .pairs.spline_step import spline_step
@@ -37,6 +39,12 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         a.extra["warnings"] = feature_findings(a) + list(a.extra.get("warnings") or [])
         return a
     t0 = time.perf_counter()
+    if case.section.kind == "composite":  # bonded regions of several materials: their own solve and checks
+        a = composite_step(case, fineness)
+        composite_checks(a)
+        a.extra["warnings"] = []
+        a.seconds["total"] = time.perf_counter() - t0
+        return a
     a = solve_case(case, fineness, study)  # mesh, properties, torsion and its pairs
     spline_step(a)  # a spline's FE results beside the round bars used for it
     shear_step(a)

@@ -214,3 +214,70 @@ def mass(u, v, _):
 def projection_load(v, w):
     """∫ f v dA for quadrature-point values ``f``: the load of an L2 projection."""
     return w.f * v
+
+
+# ----------------------------------------------------------------------------- composite sections
+# (fem/composite.py): the modulus of each element's region arrives as ``c`` at the quadrature points
+
+
+@BilinearForm
+def weighted_laplace(u, v, w):
+    """∫ c ∇u·∇v dA (c = G for the warping function, 1/G for the stress function)."""
+    return w.c * dot(grad(u), grad(v))
+
+
+@LinearForm
+def weighted_warping_load(v, w):
+    """∫ G (y ∂v/∂x − x ∂v/∂y) dA: the warping function's load with the shear modulus per region."""
+    x, y = w.x
+    return w.c * (y * grad(v)[0] - x * grad(v)[1])
+
+
+@Functional
+def weighted_warping_torsion_constant(w):
+    """GJ = ∫ G (x² + y² + x ∂ω/∂y − y ∂ω/∂x) dA for the warping function ``omega``."""
+    x, y = w.x
+    g = grad(w["omega"])
+    return w.c * (x**2 + y**2 + x * g[1] - y * g[0])
+
+
+@Functional
+def weighted_area(w):
+    """∫ c dA (EA with c = E)."""
+    return w.c + 0.0 * w.x[0]
+
+
+@Functional
+def weighted_first_moment_x(w):
+    """∫ c x dA."""
+    return w.c * w.x[0]
+
+
+@Functional
+def weighted_first_moment_y(w):
+    """∫ c y dA."""
+    return w.c * w.x[1]
+
+
+@Functional
+def weighted_second_moment_xx(w):
+    """∫ c y² dA (EIxx with c = E, about the mesh's x axis)."""
+    return w.c * w.x[1] ** 2
+
+
+@Functional
+def weighted_second_moment_yy(w):
+    """∫ c x² dA."""
+    return w.c * w.x[0] ** 2
+
+
+@Functional
+def weighted_product_moment(w):
+    """∫ c x y dA."""
+    return w.c * w.x[0] * w.x[1]
+
+
+@Functional
+def x_normal(w):
+    """∮ x nₓ ds on a boundary (minus the area a hole encloses, with n pointing out of the section)."""
+    return w.x[0] * w.n[0]

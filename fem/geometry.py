@@ -204,6 +204,9 @@ class Section:
     #: resolved dimensions for results.json, as (name, value, where it came from); lengths in metres
     #: (set by fem.splines and fem.outline_import)
     geometry: tuple = field(default=(), compare=False)
+    #: a composite section's bonded regions (fem.composite.Region); ``steps`` then holds their added
+    #: primitives only, for the frame and the length scale
+    regions: tuple = ()
 
     @property
     def nominal(self) -> float | None:

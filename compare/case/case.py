@@ -34,6 +34,7 @@ from .polymer import apply_polymer
 from .shaft import Shaft, check_with_case, parse_shaft
 from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
 from .units import UnitSystem, from_si, to_si, unit_system
+from .composite import parse_composite
 from .fields import angle as _angle, chart_factor, known as _known
 
 if sys.version_info >= (3, 11):
@@ -116,6 +117,8 @@ class Case:
     shaft: Shaft | None = None  # the [shaft] layout (compare/case/shaft.py), if the case gives one
     #: every resolved section dimension (SI) with where it came from: results.json section.geometry
     geometry: dict = field(default_factory=dict)
+    #: the regions' materials of a composite section (compare/case/composite.py), in region order
+    region_materials: list = field(default_factory=list)
 
 
 _TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue", "shaft", "service",
@@ -204,7 +207,8 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
         if key in c:
             _text(c[key], f"case.{key}")
     geometry: dict = {}
-    section = parse_section(data["section"], units, geometry, base_dir) if "section" in data else None
+    region_materials: list = []
+    section = parse_section(data["section"], units, geometry, base_dir, region_materials) if "section" in data else None
     loads = parse_loads(data.get("loads", {}), units)
     shaft = parse_shaft(data["shaft"], units, parse_section, loads.rotating) if "shaft" in data else None
     if "section" not in data and not (shaft is not None and shaft.segments):
@@ -219,9 +223,25 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
     _fatigue_needs_ultimate(loads, material, data.get("material", {}))
     if shaft is not None:
         check_with_case(shaft, data.get("loads", {}), material)
+    if section.kind == "composite":
+        _composite_limits(data, loads, shaft)
     return Case(title, units, section, loads, material, analysis, fatigue=fatigue, expected=expected,
                 feature_lengths=parse_feature_lengths(data.get("section", {}), units), shaft=shaft,
-                geometry=geometry)
+                geometry=geometry, region_materials=region_materials)
+
+
+def _composite_limits(data: dict, loads: Loads, shaft) -> None:
+    """What a composite section does not take (yet): said at once, naming the field."""
+    if "material" in data:
+        raise InputError("material", None, "a composite section names a material in each [[section.regions]] table; "
+                         "leave [material] out")
+    if loads.shear is not None:
+        raise InputError("loads.shear", data["loads"]["shear"], "transverse shear of a composite section is not "
+                         "computed: give torque, bending and axial force")
+    if shaft is not None:
+        raise InputError("shaft", None, "a composite section is checked on its own, not yet as a station of a layout")
+    if "fatigue" in data:
+        raise InputError("fatigue", None, "the fatigue check of a composite section is not made: leave [fatigue] out")
 
 
 def _shaft_section(shaft: Shaft) -> Section:
@@ -268,13 +288,20 @@ def _nonzero(v) -> bool:
 
 
 def parse_section(s: dict, units: UnitSystem | None, geometry: dict | None = None,
-                  base_dir: Path | None = None) -> Section:
+                  base_dir: Path | None = None, region_materials: list | None = None) -> Section:
     """The section, checked. A value refused by the geometry (which works in metres) is echoed as the
     user wrote it, with its unit, and lengths in the reason are given in the case's units.
     ``geometry``, if given, is filled with every resolved dimension (SI) and where it came from."""
     if not isinstance(s, dict):
         raise InputError("section", s, "must be a table: [section] with shape = \"round\", \"keyed\" or \"custom\"")
     try:
+        if s.get("shape") == "composite":
+            section, mats = parse_composite(s, units, _primitive, _text)
+            if region_materials is not None:
+                region_materials.extend(mats)
+            if geometry is not None:
+                geometry["shape"] = "composite"
+            return section
         section, geo = _parse_section({k: v for k, v in s.items() if k != "nominal_diameter"}, units, base_dir)
         if "nominal_diameter" in s:
             nd = to_si(s["nominal_diameter"], "length", "section.nominal_diameter", units)
@@ -355,7 +382,7 @@ def _parse_plain(s: dict, units: UnitSystem | None) -> Section:
         cut = [_primitive(p, f"cut[{i}]", units) for i, p in enumerate(_list(s.get("cut", []), "section.cut"))]
         return custom_section(add, cut)
     raise InputError("section.shape", shape, "must be \"round\", \"keyed\", \"flatted\", \"square\", \"hexagon\", "
-                     "\"cross_slot\", \"custom\", \"spline\", \"dxf\", \"step\", \"brep\" or \"mesh\"")
+                     "\"cross_slot\", \"custom\", \"composite\", \"spline\", \"dxf\", \"step\", \"brep\" or \"mesh\"")
 
 
 def parse_feature_lengths(s: dict, units) -> list:

@@ -29,6 +29,7 @@ SI = {
     "second_moment": "m**4",
     "force": "N",
     "moment": "N*m",
+    "rigidity": "N*m**2",  # GJ, EI
     "stress": "Pa",
     "angle": "rad",
     "twist": "rad/m",
@@ -126,6 +127,7 @@ class UnitSystem:
             "second_moment": f"{self.length}**4",
             "force": self.force,
             "moment": f"{self.force}*{self.length}",
+            "rigidity": f"{self.force}*{self.length}**2",
             "stress": self.stress,
             "angle": "deg",
             "twist": f"deg/{self.length}",
@@ -142,6 +144,7 @@ class UnitSystem:
             "second_moment": f"{self.length}⁴",
             "force": self.force,
             "moment": f"{self.force}·{self.length}",
+            "rigidity": f"{self.force}·{self.length}²",
             "stress": self.stress,
             "angle": "°",
             "twist": f"°/{self.length}",

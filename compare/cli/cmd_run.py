@@ -24,6 +24,7 @@ from ..output.screen import print_summary, progress_bar
 from ..output.report import summary
 from ..output.results import build_results
 from ..output.figure_shaft import shaft_figure_svg
+from ..output.results_composite import composite_summary
 from ..output.results_shaft import shaft_summary
 from ..output.vtu import write_fields_vtu
 from ..pipeline import analyse
@@ -73,7 +74,10 @@ def run(args) -> int:
         block = shaft_summary(res, case.units)
         if block:
             print(block + "\n")
-        if a.mesh is None:  # factors only: the shaft block above is the whole answer
+        if "composite" in a.extra:  # bonded regions of several materials
+            print(composite_summary(res, case.units))
+            print("\nwritten: " + ", ".join(str(w) for w in written))
+        elif a.mesh is None:  # factors only: the shaft block above is the whole answer
             print(summary(res, case.units))
             print("\nwritten: " + ", ".join(str(w) for w in written))
         else:

@@ -5,6 +5,7 @@ from __future__ import annotations
 import math
 
 from .._version import __version__
+from .results_composite import composite_results
 from ..pairs.analysis import Analysis
 from .report import CAUTION, Fmt, warning_text
 from .report_combined import governing_text
@@ -19,6 +20,8 @@ SCHEMA_VERSION = 1
 def build_results(a: Analysis) -> dict:
     if (a.extra.get("shaft") or {}).get("factors_only"):  # a layout asking for the feature factors only
         return _clean(factors_only_results(a, warnings_out, SCHEMA_VERSION))
+    if "composite" in a.extra:  # bonded regions of several materials
+        return _clean(composite_results(a, warnings_out, SCHEMA_VERSION))
     pr, tr, sm, case = a.props, a.torsion, a.mesh, a.case
     T = a.torque
     G = case.material.shear_modulus

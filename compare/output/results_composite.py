@@ -1,0 +1,92 @@
+"""results.json and the terminal summary of a composite section (compare/pairs/composite_step.py,
+compare/checks/composite_checks.py)."""
+from __future__ import annotations
+
+from .._version import __version__
+from ..solve.composite_study import ORDER
+from .report import CAUTION, Fmt
+
+
+def composite_results(a, warnings_out, schema_version: int) -> dict:
+    case = a.case
+    comp = a.extra["composite"]
+    st, sol = comp["study"], comp["solution"]
+    tr, pr = sol.torsion, sol.props
+    T = case.loads.torque
+    est = st.estimates
+    achieved = max((v["gci"] for v in est.values() if v["gci"] is not None), default=None)
+    met = achieved is not None and achieved <= st.target and st.limited is None
+    EI1, EI2, ang = pr.principal
+    out = {
+        "schema_version": schema_version, "tool": {"name": "shaftcheck", "version": __version__},
+        "case": {"title": case.title, "units": case.units.name if case.units else None,
+                 "file": str(case.path) if case.path else None},
+        "caution": CAUTION,
+        "section": {"kind": "composite", "area": pr.area, "regions": len(case.region_materials),
+                    "EA": pr.EA, "centroid_weighted": list(pr.centroid), "EIxx": pr.EIxx, "EIyy": pr.EIyy,
+                    "EIxy": pr.EIxy, "EI1": EI1, "EI2": EI2, "principal_angle_deg": ang},
+        "torsion": {"GJ": tr.GJ, "GJ_warping": tr.GJ_warping,
+                    "GJ_bracket": [min(tr.GJ, tr.GJ_warping), max(tr.GJ, tr.GJ_warping)],
+                    "torque": T, "twist_per_length": T / tr.GJ, "dofs": tr.dofs},
+        "regions": a.extra["regions"],
+        "compare": [p.to_dict() for p in a.pairs],
+        "convergence": est,
+        "accuracy": {"target": st.target, "achieved": achieved, "met": bool(met), "limited_by": st.limited,
+                     "meshes": [s.dofs for s in st.solutions], "finenesses": [s.fineness for s in st.solutions],
+                     "formal_orders": ORDER, "seconds": st.seconds,
+                     "estimator": "three meshes refined by a constant ratio (GCI); GJ at least its bracket, each "
+                                  "region's τmax widened by the parting of its two independent evaluations"},
+        "mesh": {"dofs": tr.dofs, "elements": sol.mesh.info.get("elements"), "interfaces": int(len(sol.mesh.interfaces)),
+                 "element": "6-node curved (isoparametric) triangle, quadratic; conforming across the interfaces"},
+        "not_checked": a.extra.get("not_checked", []),
+        "seconds": a.seconds,
+    }
+    if "governing" in a.extra:
+        out["governing"] = a.extra["governing"]
+    out["warnings"] = warnings_out(a)
+    if not met:
+        out["warnings"].insert(0, {"code": "accuracy_not_met", "text": "ACCURACY TARGET NOT SHOWN: target "
+                                   f"{100 * st.target:.3g} %, estimated error "
+                                   f"{'unknown' if achieved is None else f'{100 * achieved:.3g} %'}"
+                                   f"{f' ({st.limited})' if st.limited else ''}: the numbers carry that error at best.",
+                                   "data": {"target": st.target, "achieved": achieved, "limited_by": st.limited}})
+    out["exit_code"] = 0 if met else 3
+    return out
+
+
+def composite_summary(res: dict, system) -> str:
+    """The terminal block of a composite section."""
+    f = Fmt(system)
+    lines = [f"shaftcheck {res['tool']['version']} — {res['case']['title']}"]
+    for w in res.get("warnings", []):
+        lines.append(f"WARNING: {w['text']}")
+    g = res.get("governing")
+    if g is not None and res["accuracy"]["met"]:
+        lines.append(f"VERDICT: lowest n = {g['factor']:.3g} in {g['region']} (von Mises bound, FE)")
+    elif g is not None:
+        lines.append(f"VERDICT: NOT SHOWN (accuracy not met); lowest n = {g['factor']:.3g} in {g['region']}")
+    else:
+        lines.append("VERDICT: no factor of safety (no region gives a yield strength)")
+    t = res["torsion"]
+    lines.append(f"  torsional rigidity GJ {f.q(t['GJ'], 'rigidity')} (bracket up to {f.q(t['GJ_warping'], 'rigidity')}); "
+                 f"EIxx {f.q(res['section']['EIxx'], 'rigidity')}, EIyy {f.q(res['section']['EIyy'], 'rigidity')}")
+    acc = res["accuracy"]
+    if acc["achieved"] is not None:
+        lines.append(f"  accuracy: within {100 * acc['achieved']:.2g} % (target {100 * acc['target']:.3g} %, three-mesh study)")
+    lines.append("")
+    lines.append(f"  {'region':<28} {'τmax':>14} {'σmax':>14} {'vM bound':>14} {'yield':>12} {'n':>7}")
+    for r in res["regions"]:
+        y = r["material"]["yield"]
+        lines.append(f"  {r['name'][:28]:<28} {f.q(r['tau_max'], 'stress', 4):>14} {f.q(r['sigma_max'], 'stress', 4):>14} "
+                     f"{f.q(r['von_mises_bound'], 'stress', 4):>14} {f.q(y, 'stress', 4) if y else '—':>12} "
+                     f"{'—' if r['factor'] is None else format(r['factor'], '.3g'):>7}")
+    pairs = [p for p in res["compare"] if p["kind"] != "not applicable"]
+    if pairs:
+        lines.append("")
+        lines.append("  FE beside the exact formulas of bonded concentric layers:")
+        for p in pairs:
+            lines.append(f"    {p['quantity']}: FE/exact {p['ratio']:.6f}")
+    lines.append("")
+    lines.append("Not checked: " + "; ".join(res["not_checked"]) + ".")
+    lines.append("report.html and section.vtu are not drawn for composite sections yet.")
+    return "\n".join(lines)
