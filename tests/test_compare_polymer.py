@@ -159,6 +159,9 @@ def test_fatigue_and_static_against_the_round_bar_by_hand(runs):
         rec = {"fem": pol["factors"]["static_tensile"], "exact": p.tensile_strength / vm_hand}
         assert rec["fem"] == pytest.approx(rec["exact"], rel=5e-3), (f, rec)
         assert pol["fatigue"]["vectorised_and_formula_agree"]
+        pair = next(q for q in a.pairs if q.quantity.startswith("polymer fatigue factor"))
+        assert pair.kind == "check" and pair.within is True
+        assert pair.classic == pytest.approx(n_hand, rel=1e-12)  # the same hand value, through the classic/ forms
         # a yield is given in the conditioned table: the ordinary von Mises check runs on the yield at 40 °C
         assert a.extra["static"]["von_mises"] == pytest.approx(p.yield_strength / vm_hand, rel=5e-3)
         # the steel fatigue path is not used for a polymer

@@ -13,7 +13,9 @@ import math
 import numpy as np
 
 from classic import polymer as cp
+from classic.fatigue import EDITION as SHIGLEY, shaft_von_mises_stresses
 
+from ..pairs.analysis import TOL_PEAK
 from ..pairs.pairs import Pair
 from .combined import where_of
 
@@ -105,6 +107,9 @@ def polymer_check(a, fld, fs, worst) -> dict | None:
                           "vectorised_and_formula_agree": bool(math.isclose(nf, nf_check, rel_tol=1e-12)
                                                                or nf == nf_check)}
         out["sources"]["fatigue_goodman"] = cp.GOODMAN_SOURCE
+        hand = _hand_fatigue_pair(a, cyc_loads(a), p, nf_check)
+        if hand is not None:
+            a.pairs.append(hand)
     elif bool(np.any(fs.sa[usable] > 0)):
         out["notes"].append("the loads alternate but no stress-life data are given for this state: fatigue not checked")
     # long-term twist: the steady torque for the whole service life, creep modulus at that duration
@@ -125,6 +130,42 @@ def polymer_check(a, fld, fs, worst) -> dict | None:
     if nd is not None:
         out["meets_design_factor"] = {k: bool(v >= nd) for k, v in out["factors"].items()}
     return out
+
+
+def cyc_loads(a) -> dict:
+    """Ma, Mm, Ta, Tm (magnitudes of the moment vectors) and whether axial or shear loads are present."""
+    ld = a.case.loads
+    M = ld.mean.get("bending", ld.bending)
+    if ld.rotating:
+        Ma, Mm = math.hypot(*ld.bending), 0.0
+    else:
+        Ma, Mm = math.hypot(*ld.alternating.get("bending", (0.0, 0.0))), math.hypot(*M)
+    Ta, Tm = abs(ld.alternating.get("torque", 0.0)), abs(ld.mean.get("torque", ld.torque))
+    other = bool(ld.axial or ld.mean.get("axial") or ld.alternating.get("axial") or
+                 any(v for v in (ld.shear or ())) or any(v for v in ld.mean.get("shear", ()) or ()) or
+                 any(v for v in ld.alternating.get("shear", ()) or ()))
+    return {"Ma": Ma, "Mm": Mm, "Ta": Ta, "Tm": Tm, "other": other}
+
+
+def _hand_fatigue_pair(a, L: dict, p, n_fe: float):
+    """The Goodman factor on the nominal stresses of a solid round shaft (Kf = Kfs = 1) beside the FE one:
+    a check on a plain round bar under bending and torsion alone (the nominal stresses are the exact
+    surface stresses there), a factor (the section's concentration) on any other section with a diameter."""
+    s = a.case.section
+    if not s.nominal or getattr(s, "bore", None):
+        return None
+    sa, sm = shaft_von_mises_stresses(s.nominal, 1.0, 1.0, L["Ma"], L["Mm"], L["Ta"], L["Tm"])
+    n_hand = cp.goodman_factor_polymer(float(sa), float(sm), p.fatigue_strength, p.tensile_strength)
+    if not math.isfinite(n_hand):
+        return None
+    src = (f"{SHIGLEY}, eqs. 7-5, 7-6 (nominal σa', σm' of a solid round shaft, Kf = Kfs = 1) on the Goodman line: "
+           f"{cp.GOODMAN_SOURCE}")
+    if s.kind == "round" and not L["other"]:
+        return Pair("polymer fatigue factor (Goodman on the S–N strength)", n_fe, n_hand, src, "check", "dimensionless",
+                    TOL_PEAK[0], "the factor follows the boundary peak stress: " + TOL_PEAK[1])
+    return Pair("polymer fatigue factor (Goodman on the S–N strength)", n_fe, n_hand, src, "factor", "dimensionless",
+                note="against the nominal stresses of the section's diameter without a concentration factor: the ratio "
+                     "is the section's effect on the factor (and the axial or shear loads the hand form leaves out)")
 
 
 def twist_pairs(pairs: list, T: float, Gc: float, J_fe: float) -> list:
