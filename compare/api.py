@@ -298,8 +298,16 @@ UNITS = {
 #: Units of keys whose name alone is ambiguous, by their path in the results (the shaft layout's).
 PATH_UNITS = {".shaft.max_deflection.value": "m", ".shaft.max_moment.value": "N*m",
               ".shaft.critical_speeds.rayleigh": "rad/s", ".shaft.critical_speeds.values": "rad/s",
-              ".shaft.critical_speeds.speed": "rad/s", ".shaft.torsional.frequencies.values": "rad/s"}
+              ".shaft.critical_speeds.speed": "rad/s", ".shaft.torsional.frequencies.values": "rad/s",
+              # a polymer's check at its service conditions (compare/checks/polymer.py)
+              **{f".polymer.strengths.{k}": "Pa" for k in ("tensile_strength", "yield", "elastic_modulus",
+                                                           "shear_modulus", "fatigue_strength")},
+              ".polymer.fatigue.S_f": "Pa", ".polymer.twist.creep_modulus": "Pa", ".polymer.twist.creep_shear_modulus": "Pa",
+              ".polymer.twist.shear_modulus": "Pa", ".polymer.twist.short_term": "rad/m", ".polymer.twist.long_term": "rad/m",
+              ".polymer.twist.duration": "s", ".polymer.conditions.life": "s", ".polymer.conditions.speed": "rad/s",
+              ".polymer_layout.max_deflection.value": "m", ".polymer_layout.max_deflection.short_term": "m"}
 _PAIR_DIMENSIONS = {"second_moment": "m**4", "area": "m**2", "stress": "Pa", "length": "m", "rigidity": "N*m**2",
+                    "twist": "rad/m",
                     "per_cubic": "Pa/(N*m)", "dimensionless": ""}
 
 

@@ -12,6 +12,7 @@ from .checks.composite_checks import composite_checks
 from .checks.feature_findings import factors_only, feature_findings
 from .checks.findings import findings_step
 from .checks.shaft_checklist import checklist_step
+from .checks.polymer import long_term_layout
 from .checks.shaft_stations import layout_step
 from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
@@ -34,6 +35,9 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         a = layout_step(case, lambda c: analyse(c, fineness, study))
         checklist_step(a, case)  # keys, splines, press fits, bearing life, torsion along the shaft
         attach_features(a, feats)
+        lt = long_term_layout(a)  # a polymer shaft: deflections and slopes after the service life
+        if lt is not None:
+            a.extra["polymer_layout"] = lt
         a.extra["warnings"] = feature_findings(a) + list(a.extra.get("warnings") or [])
         return a
     t0 = time.perf_counter()

@@ -9,6 +9,7 @@ Schema (README, 'Case files', is the reference)::
     [material]  shear_modulus | elastic_modulus, poisson, yield, ultimate, ...
     [analysis]  fineness, accuracy, max_dofs, max_seconds, design_factor, materials
     [fatigue]   kt_bending (+ kt_bending_source), kts_torsion (+ kts_torsion_source), notch_radius
+    [material.polymer], [service]   a polymer's own data and the service conditions (case/polymer.py)
 
 Unknown keys are refused (a misspelt key silently ignored is a wrong answer). Every error is an
 :class:`~fem.errors.InputError` naming the field and the value.
@@ -29,6 +30,7 @@ from fem.errors import InputError, escape_text
 from fem.geometry import Disk, Ellipse, Section, custom_section, polygon, rectangle, round_section
 
 from .outlines import parse_file_shape, parse_spline
+from .polymer import apply_polymer
 from .shaft import Shaft, check_with_case, parse_shaft
 from .shaft_checklist import check_fits_with_section
 from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
@@ -73,6 +75,8 @@ class Material:
     reliability: float | None = None
     temperature: float | None = None
     kind: str = "ductile"
+    #: [material.polymer] read at the [service] conditions (compare/case/polymer.py PolymerAtService), or None
+    polymer: object | None = None
 
 
 @dataclass
@@ -118,7 +122,7 @@ class Case:
     region_materials: list = field(default_factory=list)
 
 
-_TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue", "shaft",
+_TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue", "shaft", "service",
         "sweep"}  # [sweep]: read by `shaftcheck sweep` (compare/sweep.py), not by a single run
 _CASE = {"title", "units", "description", "source"}
 _LOAD_SCALARS = {"torque": "moment", "axial": "force"}
@@ -214,6 +218,7 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
                          "segments takes its diameter from [section])")
     section = section if section is not None else _shaft_section(shaft)
     material = parse_material(data.get("material", {}), units)
+    apply_polymer(material, data, units, _alternates(loads) or (shaft is not None and shaft.rotating), shaft)
     analysis = parse_analysis(data.get("analysis", {}))
     fatigue = parse_fatigue(data.get("fatigue", {}), units)
     expected = parse_expected(data["expected"], units) if "expected" in data else {}
@@ -260,13 +265,18 @@ def parse_expected(d, units) -> dict:
 def _fatigue_needs_ultimate(loads: Loads, m: Material, raw: dict) -> None:
     """An alternating load on a ductile part whose case gives strengths but not the ultimate: the
     fatigue check (Se' = 0.5·Sut, Goodman, Gerber) cannot be made. Refused rather than left out."""
-    alternating = any(_nonzero(v) for v in loads.alternating.values()) or (
-        loads.rotating and (_nonzero(loads.bending) or _nonzero(loads.shear)))
+    alternating = _alternates(loads)
     gives_strength = m.yield_strength is not None or m.endurance_limit is not None
     if alternating and gives_strength and m.kind == "ductile" and m.ultimate is None:
         raise InputError("material.ultimate", None, "is needed: the loads alternate, and the fatigue check "
                          "(Se' = 0.5·Sut, Goodman, Gerber) cannot be made without it; give the minimum ultimate "
                          "tensile strength")
+
+
+def _alternates(loads: Loads) -> bool:
+    """The section's loads alternate (a given amplitude, or a bending load on a rotating shaft)."""
+    return any(_nonzero(v) for v in loads.alternating.values()) or (
+        loads.rotating and (_nonzero(loads.bending) or _nonzero(loads.shear)))
 
 
 def _nonzero(v) -> bool:
@@ -494,7 +504,7 @@ def parse_loads(d: dict, units) -> Loads:
 
 
 def parse_material(d: dict, units) -> Material:
-    _known(d, set(_MATERIAL), "material")
+    _known(d, set(_MATERIAL) | {"polymer"}, "material")  # [material.polymer]: compare/case/polymer.py
     m = Material()
     for key, dim in _MATERIAL.items():
         if key not in d:

@@ -40,6 +40,7 @@ SI = {
     "mass_inertia": "kg*m**2",
     "stiffness": "N/m",
     "angular_speed": "rad/s",
+    "time": "s",  # load durations and service lives (a polymer's creep and cycles)
 }
 #: Default units of the shaft-layout dimensions for a plain number, per length unit of the system.
 _LAYOUT_UNITS = {
@@ -103,6 +104,10 @@ _FACTORS = {
     ("mm**4", "second_moment"): (1.0000000000000002e-12, 999999999999.9999),
     ("inch**4", "second_moment"): (4.1623142559999997e-07, 2402509.610028831),
     ("m**4", "second_moment"): (1.0, 1.0),
+    ("s", "time"): (1.0, 1.0),
+    ("min", "time"): (60.0, 0.016666666666666666),
+    ("h", "time"): (3600.0, 0.0002777777777777778),
+    ("day", "time"): (86400.0, 1.1574074074074073e-05),
 }
 
 

@@ -349,6 +349,10 @@ def fatigue_check(a, fld: Field, cyc: Cycle, fs: FatigueStresses, skipped: dict,
                   kt2d: dict | None) -> dict:
     m = a.case.material
     nd = a.case.analysis.design_factor
+    if m.polymer is not None:  # a polymer's fatigue comes from its own stress-life data (checks/polymer.py)
+        reason = "polymer: the fatigue check uses the polymer's stress-life data (results 'polymer'), not the steel correlations"
+        skipped["fatigue"] = reason
+        return {"skipped": reason}
     if m.kind == "brittle":
         reason = ("brittle material: the shaft fatigue criteria here (Shigley 9th ed., chs. 6-7) are for ductile "
                   "steels")

@@ -34,6 +34,7 @@ from classic import stress as cs
 from fem.axisym import nominal_stress
 
 from .checks import SHIGLEY, _fe_factors, governing, required_endurance, set_required_strength
+from .polymer import polymer_at_feature
 
 #: Angles per turn of the θ (standing shaft) and ψ (rotating shaft) scans.
 N_ANGLES = 720
@@ -173,6 +174,9 @@ def fillet_fe_path(a, local: dict, keep_section_min: bool = False) -> dict:
     gov = a.extra.get("governing")
     if not (gov or {}).get("no_verdict"):
         g = governing(a, st, ft) if (st or ft) else None
+        if m.polymer is not None:  # a polymer: its own checks on the fillet's local stresses (checks/polymer.py)
+            g = polymer_at_feature(a, fs, vm, lambda i, th: (_at(local, i, th, Mx, My), _where(local, i, th)),
+                                   keep_section_min, plain_key, rec, g)
         if g is not None:
             a.extra["governing"] = g
         _factor_below_one(a)

@@ -16,6 +16,7 @@ import math
 
 from fem.topology import cut_connectivity
 
+from .polymer import polymer_findings
 from .section_findings import section_findings
 
 #: Exit code of a run that can give no verdict: the stress is unbounded at a sharp re-entrant corner.
@@ -61,6 +62,7 @@ def findings_step(a) -> None:
     for ch in cut_connectivity(a.case.section):
         out.append({"code": "open_section", **ch})
     out.extend(section_findings(a.case.section))  # splines, imported outlines
+    out.extend(polymer_findings(a))  # invented polymer data
     width = a.case.section.length_scale
     for field, length in a.case.feature_lengths:
         if length < width and field != "section":  # a spline's length: its spline_2d_model warning says it

@@ -19,6 +19,8 @@ Table format (README, 'Material table')::
     surface = "machined"        # optional; default: the case's material.surface
     max_service_temperature = 80   # optional, °C (a plain number)
     note = "..."
+    polymer = { ... }           # optional, class "polymer" only: the data of [material.polymer]
+                                # (compare/case/polymer.py), read at the case's [service] conditions
 
 Stresses of a linear-elastic section do not depend on the modulus; the transverse-shear part depends
 weakly on Poisson's ratio, and the case's value is used for every row.
@@ -34,12 +36,14 @@ import numpy as np
 from fem.errors import InputError, escape_text
 
 from ..case.case import ABSOLUTE_ZERO_C, Material, _known, _text, check_strengths, check_surface, parse_toml, read_input_file
+from ..case.polymer import REPLACED, at_service, parse_polymer
 from ..case.units import to_si, unit_system
 from .checks import FATIGUE_CRITERIA, endurance, fe_fatigue, hand_path, static_check
+from .polymer import NOT_CHECKED as POLYMER_NOT_CHECKED, row_factors
 
 CLASSES = ("steel", "cast iron", "aluminium", "polymer", "other")
 _ROW = {"name", "class", "kind", "yield", "ultimate", "compressive_ultimate", "endurance_limit", "surface",
-        "max_service_temperature", "note"}
+        "max_service_temperature", "note", "polymer"}
 _TABLE = {"title", "units", "illustrative", "note"}
 
 #: What no row of the table lets the tool check, whatever the material.
@@ -47,7 +51,9 @@ NOT_CHECKED_ALWAYS = ["wear and fretting at the key, hub and bearing seats", "co
                       "stiffness, deflection and critical speed", "the keyseat-end 3-D stress concentration (2-D model)"]
 NOT_CHECKED_BY_CLASS = {
     "polymer": ["moisture uptake (strength and size change)", "temperature dependence of strength and modulus",
-                "creep and stress relaxation under the steady torque", "fatigue, unless the table gives the part's endurance limit"],
+                "creep and stress relaxation under the steady torque", "fatigue, unless the table gives the part's endurance limit",
+                "(give the row `polymer` data and the case [service] conditions to check these at temperature, over "
+                "time and cycles)"],
     "cast iron": ["fatigue with the steel correlations (Se' = 0.5·Sut, Marin ka, Neuber q do not apply)"],
     "aluminium": ["fatigue: aluminium alloys have no endurance limit; the table must give a fatigue strength at a stated life"],
     "other": ["fatigue, unless the table gives the part's endurance limit"],
@@ -99,6 +105,14 @@ def read_table(path: Path) -> tuple[dict, list[tuple[Material, dict]]]:
             check_surface(r["surface"], f"{f}.surface")
             m.surface = r["surface"]
         info = {"class": cls, "note": r.get("note")}
+        if "polymer" in r:  # the polymer's own data: its strengths are read at the case's service conditions
+            if cls != "polymer":
+                raise InputError(f"{f}.polymer", None, f"is only for class = \"polymer\" (this row is \"{cls}\")")
+            for k in REPLACED:
+                if k in r:
+                    raise InputError(f"{f}.{k}", r[k], "cannot be given with polymer data: it is read from them at the "
+                                     "case's service conditions")
+            info["polymer"] = parse_polymer(r["polymer"], units, f"{f}.polymer")
         if "max_service_temperature" in r:
             v = r["max_service_temperature"]
             if isinstance(v, bool) or not isinstance(v, (int, float)) or not math.isfinite(v):
@@ -106,7 +120,7 @@ def read_table(path: Path) -> tuple[dict, list[tuple[Material, dict]]]:
             if v < ABSOLUTE_ZERO_C:
                 raise InputError(f"{f}.max_service_temperature", v, "is below absolute zero (−273.15 °C)", "°C")
             info["max_service_temperature"] = float(v)
-        if m.yield_strength is None and m.ultimate is None:
+        if m.yield_strength is None and m.ultimate is None and "polymer" not in info:
             raise InputError(f"{f}", m.name, "gives neither yield nor ultimate: nothing can be checked")
         out.append((m, info))
     return {"title": head.get("title"), "illustrative": bool(head.get("illustrative", False)),
@@ -132,6 +146,9 @@ def rank_materials(a, fld, cyc, worst, fs, kt2d, skipped: dict) -> list | None:
     ranked = []
     for m, info in rows:
         cls = info["class"]
+        if "polymer" in info:
+            ranked.append(_polymer_row(a, fld, cyc, worst, fs, m, info, head, nd))
+            continue
         # operating conditions (temperature, reliability) come from the case; the surface from the row or the case
         m = replace(m, poisson=case_m.poisson, temperature=T, reliability=case_m.reliability,
                     surface=m.surface or case_m.surface)
@@ -190,3 +207,46 @@ def rank_materials(a, fld, cyc, worst, fs, kt2d, skipped: dict) -> list | None:
     for k, e in enumerate(ranked, 1):
         e["rank"] = k
     return ranked
+
+
+def _polymer_row(a, fld, cyc, worst, fs, m, info, head, nd) -> dict:
+    """A table row with polymer data, read at the case's service conditions (the case must be a polymer
+    case: its [service] gives them) and checked as the case's own polymer is."""
+    entry = {"name": m.name, "class": "polymer", "kind": m.kind, "illustrative": head["illustrative"],
+             "table": head["file"], "design_factor": nd, "not_checked": list(POLYMER_NOT_CHECKED), "notes": []}
+    if info.get("note"):
+        entry["table_note"] = info["note"]
+    case_p = a.case.material.polymer
+    fatigue_needed = bool(np.any(fs.sa[~fld.excluded] > 0))
+    factors: dict = {}
+    if case_p is None:
+        entry["notes"].append("polymer data not read: the case gives no [service] conditions (a case with "
+                              "[material.polymer] and [service] does)")
+    else:
+        try:
+            p = at_service(info["polymer"], case_p.service, a.case.material.poisson, fatigue_needed)
+        except InputError as exc:
+            p = None
+            entry["notes"].append(f"the row's data do not reach the service conditions: {exc}")
+        if p is not None:
+            factors = row_factors(a, fld, fs, worst, p)
+            mm = replace(m, poisson=a.case.material.poisson, yield_strength=p.yield_strength, ultimate=p.tensile_strength,
+                         temperature=p.service.temperature)
+            if p.yield_strength is not None:
+                st = static_check(a, fld, cyc, worst, {}, material=mm)
+                for c in st["criteria"]:
+                    factors[c] = st[c]
+            entry["conditions"] = {"temperature": p.service.temperature, "moisture": p.service.moisture,
+                                   "life": p.service.life, "cycles": p.service.cycles}
+            entry["creep_modulus"] = p.creep_modulus
+    complete = bool(factors) and ("polymer_fatigue_goodman" in factors or not fatigue_needed)
+    crit = [(v, c) for c, v in factors.items() if v is not None and math.isfinite(v)]
+    if crit:
+        n, c = min(crit)
+        entry.update(factor=n, criterion=c, path="FE", margin=n / nd,
+                     meets=bool(n >= nd) if complete else None, meets_what_was_checked=bool(n >= nd))
+    else:
+        entry.update(factor=None, criterion=None, path=None, margin=None, meets=None, meets_what_was_checked=None)
+    entry["complete"] = complete
+    entry["factors"] = factors
+    return entry

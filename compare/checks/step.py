@@ -11,6 +11,7 @@ from .checks import fatigue_check, governing, static_check
 from .combined import (GRID, STRESS_MEASURES, _kc_axial, _point_entry, build_field, fatigue_stresses, kt_bending_2d,
                        load_cycle, worst_over_cycle)
 from .materials import rank_materials
+from .polymer import governs, polymer_check
 
 
 def combined_step(a) -> None:
@@ -74,6 +75,10 @@ def combined_step(a) -> None:
         if ranked is not None:
             a.extra["materials"] = ranked
     gov = governing(a, st, ft)
+    pol = polymer_check(a, fld, fs, worst)
+    if pol is not None:  # a polymer: checked at the service conditions with its own data
+        a.extra["polymer"] = pol
+        gov = governs(pol, gov, case.analysis.design_factor)
     if gov is not None:
         a.extra["governing"] = gov
     else:

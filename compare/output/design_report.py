@@ -11,7 +11,8 @@ def report_files(a, res: dict, date: str | None = None) -> dict[str, str | bytes
     """``{relative name: text or bytes}`` of the report for the analysis ``a`` and its results ``res``."""
     from .figures import all_figures  # noqa: PLC0415  lazy import of a slow dependency: matplotlib (~0.8 s), only when a report is drawn
     from .report_html import render  # noqa: PLC0415  lazy import of a slow dependency (it reaches matplotlib through .figures)
-    figs = all_figures(a, res, fields_of(a) if a.extra.get("combined") else {})
+    from .figures_polymer import polymer_figures  # noqa: PLC0415  lazy import of a slow dependency: matplotlib, as above
+    figs = all_figures(a, res, fields_of(a) if a.extra.get("combined") else {}) + polymer_figures(res, a.case.units)
     case_text = read_input_file(a.case.path, "case") if a.case.path is not None else None
     out: dict[str, str | bytes] = {
         "report.html": render(res, a.case.units, figs, case_text, res.get("inputs") or {}, date),

@@ -46,7 +46,7 @@ def headline_rows(res: dict, system) -> list[dict]:
             v = 0.0  # round-off of a symmetric section, not a result
         ck = _ERROR_OF.get(key)
         err = (conv.get(ck) or {}).get("gci") if ck else None
-        if nv and group in ("combined", "static", "fatigue") or nv and key.endswith("tau_max"):
+        if nv and group in ("combined", "static", "fatigue", "polymer") or nv and key.endswith("tau_max"):
             quantity += " [not at the sharp corners: NO VERDICT]"
         unit = "" if dim == "dimensionless" else f.s.label(dim)
         hv = None if hand is None else from_si(hand, dim, f.s)
@@ -86,6 +86,19 @@ def headline_rows(res: dict, system) -> list[dict]:
         hv = hand.get(k)
         add("fatigue", f"n, {LABELS.get(k, k)} (FE; hand beside)", f"fatigue.{k}", "dimensionless", hv,
             ft.get("sources", {}).get(k, ""))
+    pol = res.get("polymer") or {}  # a polymer at its service conditions (compare/checks/polymer.py)
+    if pol:
+        c = pol["conditions"]
+        add("polymer", f"checked at the service temperature ({c['moisture']}, {c['life'] / 3600:.6g} h, "
+            f"{c['cycles']:.3g} cycles)", "polymer.conditions.temperature", "temperature",
+            source=pol["data"]["source"] + (" [ILLUSTRATIVE]" if pol["data"]["illustrative"] else ""))
+    for k in pol.get("factors", {}):
+        add("polymer", f"n, {LABELS.get('polymer_' + k, k)} (FE)", f"polymer.factors.{k}", "dimensionless",
+            source=(pol.get("sources") or {}).get(k, ""))
+    add("polymer", "fatigue strength S_f at the service cycles", "polymer.strengths.fatigue_strength", "stress",
+        source=(pol.get("fatigue") or {}).get("source", ""))
+    add("polymer", "long-term twist (creep modulus)", "polymer.twist.long_term", "twist",
+        source=(pol.get("twist") or {}).get("source", ""))
     g = res.get("governing")
     if g and not g.get("no_verdict"):
         add("governing", f"lowest n ({LABELS.get(g['criterion'], g['criterion'])}, {g['path']} path)",

@@ -4,9 +4,10 @@ from __future__ import annotations
 import numpy as np
 
 from ..case.units import SYSTEMS, UnitSystem, from_si
-from .report_combined import combined_lines
+from .report_combined import CRITERION_LABEL, combined_lines
 from .report_features import factors_only_summary, feature_lines, feature_warning_text
 from .report_geometry import geometry_lines
+from .report_polymer import polymer_lines, polymer_warning_text
 from .section_geometry import SECTION_WARNINGS, section_warning_text
 
 CAUTION = ("shaftcheck is a cross-check aid for the designer. It does not replace the governing codes and "
@@ -81,6 +82,8 @@ _CRIT = {"von_mises": "static yield, von Mises", "tresca": "static yield, Tresca
 def warning_text(w: dict, f: Fmt) -> str:
     """One warning record of :mod:`compare.findings` in words, in the case's units."""
     code = w["code"]
+    if code.startswith("polymer_"):  # a polymer's own data (compare/output/report_polymer.py)
+        return polymer_warning_text(w, f)
     if code.startswith("feature_"):  # shoulders and grooves of [shaft]
         return feature_warning_text(w, f) or code
     if code in SECTION_WARNINGS:
@@ -102,7 +105,8 @@ def warning_text(w: dict, f: Fmt) -> str:
                 "there is unbounded, so this section has no peak stress, no Kts and no factor of safety; no material "
                 f"can be said to meet the design factor. To get one, {fix}.")
     if code == "factor_below_one":
-        crit = _CRIT.get(w.get("criterion"), w.get("criterion") or "")
+        c = w.get("criterion")
+        crit = _CRIT.get(c, CRITERION_LABEL.get(c, c or ""))
         away = " even away from the sharp corners" if w.get("away_from_corners") else ""
         return (f"FACTOR OF SAFETY BELOW 1: n = {w['factor']:.3g} ({crit}, {w.get('path')} path){away}: the section is "
                 "predicted to fail under these loads, whatever the design factor.")
@@ -192,6 +196,8 @@ def summary(res: dict, system: UnitSystem | None) -> str:
         lines += ["", *shear_lines(res["shear"], f, size)]
     if "combined" in res:
         lines += ["", *combined_lines(res, f)]
+    if "polymer" in res:
+        lines += ["", *polymer_lines(res, f)]
     if "accuracy" in res:
         lines += ["", *accuracy_lines(res)]
     lines += ["", *feature_lines(res, f)] if feature_lines(res, f) else []

@@ -7,6 +7,8 @@ LABELS = {
     "soderberg": "DE-Soderberg", "yield_langer": "first-cycle yield, Langer",
     "first_cycle_yield": "first-cycle yield, von Mises peak",
     "von_mises": "von Mises", "tresca": "Tresca", "coulomb_mohr": "Coulomb–Mohr", "modified_mohr": "modified Mohr",
+    "polymer_static_tensile": "polymer static on the tensile strength",
+    "polymer_fatigue_goodman": "polymer fatigue, Goodman on the S–N strength",
 }
 
 
@@ -21,6 +23,8 @@ CRITERION_LABEL = {
     "goodman": "fatigue, DE-Goodman", "gerber": "fatigue, DE-Gerber", "asme_elliptic": "fatigue, DE-ASME elliptic",
     "soderberg": "fatigue, DE-Soderberg", "yield_langer": "first-cycle yield, Langer",
     "first_cycle_yield": "first-cycle yield, von Mises at the peak",
+    "polymer_static_tensile": "polymer static, von Mises against the tensile strength at the service conditions",
+    "polymer_fatigue_goodman": "polymer fatigue, Goodman line on the stress-life strength at the service cycles",
 }
 
 
@@ -156,6 +160,8 @@ def combined_lines(res: dict, f) -> list[str]:
                 verdict = "incomplete check"
             crit = f"{LABELS.get(e['criterion'], e['criterion'])}, {e['path']}" if e["criterion"] else "nothing checkable"
             out.append(f"  {e['rank']}. {e['name']:<28} n = {_n(e['factor'])} ({crit}), margin {_n(e['margin'])}: {verdict}")
+            if e.get("class") == "polymer" and "conditions" not in e:  # why a polymer row was not read
+                out += [f"       {note}" for note in e.get("notes", [])]
             extra = [x for x in e["not_checked"] if x not in mats[0]["not_checked"] or e is mats[0]]
             if e is not mats[0] and extra:
                 out.append(f"       also not checked: {'; '.join(extra)}")

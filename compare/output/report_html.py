@@ -11,6 +11,7 @@ from .figures import critical_points
 from .report import CAUTION, Fmt
 from .report_checklist import checklist_html
 from .report_combined import LABELS
+from .report_polymer import polymer_html
 
 #: the sections of the report, in order (id, heading); the tests check every one is present
 SECTIONS = (
@@ -130,7 +131,8 @@ def render(res: dict, system, figures: list, case_text: str | None, trace: dict,
         hv.append(("Kts = τmax / τnominal", _num(t["kts"], 5), "—", "—", t["kts_nominal"]["source"]))
     parts["hand-vs-fe"] = _table(("quantity", "FE", "hand", "ratio FE/hand", "source of the hand value"), hv,
                                  numeric=(1, 2, 3))
-    parts["factors"] = _factors(res)
+    parts["factors"] = (_factors(res) + polymer_html(res, f) +  # a polymer's check at its service conditions
+                        (_img(figs["polymer_data"]) if "polymer_data" in figs else ""))
     parts["materials"] = _materials(res)
     parts["checklist"] = checklist_html(res, system)
     parts["convergence"] = (_img(figs["convergence"]) if "convergence" in figs else "") + _convergence(res)

@@ -113,7 +113,8 @@ def build_results(a: Analysis) -> dict:
 
 #: Warnings after which "meets the design factor" is not a verdict the numbers support: the accuracy was
 #: not shown, the solution failed a self-check, or the 2-D model does not describe the feature.
-UNSUPPORTED_PASS = ("accuracy_not_met", "self_check_failed", "open_section", "short_feature")
+UNSUPPORTED_PASS = ("accuracy_not_met", "self_check_failed", "open_section", "short_feature",
+                    "polymer_illustrative_data")
 
 
 def _qualify_pass(out: dict) -> None:
