@@ -30,6 +30,8 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
             return factors_only(case, feats)
         a = layout_step(case, lambda c: analyse(c, fineness, study))
         attach_features(a, feats)
+        # the layout itself and its title (the report's drawing and mode shapes; the stations' titles add their place)
+        a.extra["shaft"].update(shaft=case.shaft, title=case.title)
         a.extra["warnings"] = feature_findings(a) + list(a.extra.get("warnings") or [])
         return a
     t0 = time.perf_counter()
