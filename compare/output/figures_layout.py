@@ -15,6 +15,8 @@ import numpy as np
 from matplotlib import colormaps
 from matplotlib.patches import Polygon as PolygonPatch
 from matplotlib.patches import Rectangle
+from matplotlib.text import Text
+from matplotlib.ticker import MaxNLocator
 
 from ..case.units import from_si
 from .figures import CMAP, GRID, INK, STYLE, Figure
@@ -47,8 +49,19 @@ def text_overlaps(fig, pad: float = 0.0) -> list[tuple[str, str]]:
     boxes on the drawn figure overlap by more than ``pad`` pixels."""
     fig.canvas.draw()
     r = fig.canvas.get_renderer()
-    boxes = []
-    for t in fig.findobj(lambda o: hasattr(o, "get_text") and hasattr(o, "get_window_extent")):
+    texts, ticks = [], set()
+    for ax in fig.axes:  # tick labels: only those drawn (matplotlib keeps spare ticks outside the view)
+        for axis in (ax.xaxis, ax.yaxis):
+            for tick in axis.get_major_ticks() + axis.get_minor_ticks():
+                ticks.update((id(tick.label1), id(tick.label2)))
+            for tick in axis._update_ticks():
+                texts += [tick.label1, tick.label2]
+    texts += [t for t in fig.findobj(Text) if id(t) not in ticks]
+    boxes, seen = [], set()
+    for t in texts:
+        if id(t) in seen:  # a legend's texts are reached twice
+            continue
+        seen.add(id(t))
         if not t.get_visible() or not t.get_text().strip():
             continue
         try:
@@ -178,16 +191,26 @@ def layout_drawing(a, res, f: Fmt) -> Figure:
     parts = {(p["at"], p["name"]): p for p in res["shaft"]["parts"]}
     reach = max([Dmax] + [(ld.gear.pitch_diameter if ld.gear else ld.pulley.diameter if ld.pulley else 0) * k
                           for ld in shaft.loads])
-    fig, axes = plt.subplots(2, 1, figsize=(8.6, 2 * min(max(3.0, 8.6 * (1.9 * reach) / (1.25 * L)), 5.2) + 2.2),
-                             sharex=True)
+    # parts larger than 2.5 shaft diameters are cut at the frame (the shaft stays to scale)
+    reach = min(reach, 2.5 * Dmax)
+    hy, hx = 2 * 1.09 * reach, 2 * 1.09 * reach + 0.26 * L  # the data heights of the two views
+    fig, axes = plt.subplots(2, 1, figsize=(8.6, 1.6 + 7.0 * (hy + hx) / (1.12 * L)),
+                             gridspec_kw={"height_ratios": [hy, hx]})
     fsc = max([abs(p["Fx"]) for p in res["shaft"]["parts"]] + [abs(p["Fy"]) for p in res["shaft"]["parts"]]
               + [abs(r["Fx"]) for r in res["shaft"]["reactions"]] + [abs(r["Fy"]) for r in res["shaft"]["reactions"]]
               + [1e-300])
     arrow_len = 0.45 * reach
+    top = reach / 2 + arrow_len + 0.14 * reach
+    placers = []
     for ax, plane in zip(axes, ("y", "x")):
         _draw_shaft(ax, prof, segs, k)
-        ax.set_aspect("equal", adjustable="datalim")
+        ax.set_aspect("equal", adjustable="box")
+        ax.set_xlim(-0.06 * L, 1.06 * L)
+        # limits first (the labels are placed in pixels); the lower view holds the dimensions below
+        ax.set_ylim(-top - (0.26 * L if plane == "x" else 0.0), top)
+        ax.apply_aspect()  # the axes' final box, so that the labels are placed where they will be drawn
         pl = Placer(ax)
+        placers.append(pl)
         # the parts: their pitch or belt diameter as a dashed outline over their hub width
         for i, ld in enumerate(shaft.loads):
             z = ld.at * k
@@ -195,19 +218,20 @@ def layout_drawing(a, res, f: Fmt) -> Figure:
             w = 0.06 * L
             if d:
                 ax.add_patch(Rectangle((z - w / 2, -d * k / 2), w, d * k, fill=False, ec="#555555", lw=0.8,
-                                       ls=(0, (4, 2)), zorder=4))
+                                       ls=(0, (4, 2)), zorder=4, clip_on=True))
             p = parts.get((ld.at, ld.name or f"loads[{i}]"))
             F = (p["Fy"] if plane == "y" else p["Fx"]) if p else 0.0
             if F and abs(F) > 1e-9 * fsc:
                 h = arrow_len * abs(F) / fsc
-                tip = (d * k / 2 if d else Dmax / 2) * (1 if F < 0 else -1)
+                # at the pitch or belt circle where it fits in the frame, else as far out as fits
+                tip = min(d * k / 2 if d else Dmax / 2, top - h - 0.04 * reach) * (1 if F < 0 else -1)
                 ax.annotate("", (z, tip), (z, tip - math.copysign(h, F)),
                             arrowprops={"arrowstyle": "-|>", "lw": 1.4, "color": INK, "mutation_scale": 10}, zorder=6)
                 pl.text(z, tip - math.copysign(h, F), f" F{plane} {f.q(F, 'force', 3)}", fontsize=7.5,
                         va="bottom" if F < 0 else "top", ha="left", step=(0.0, 1.0 if F < 0 else -1.0))
             kind = ld.kind if ld.kind != "pulley" or not ld.pulley or math.isfinite(ld.pulley.tension_ratio) else "sprocket"
-            pl.text(z, (d * k / 2 if d else Dmax / 2) + 0.04 * reach, f"{ld.name or kind} ({kind})", fontsize=7.5,
-                    ha="center", va="bottom", step=(0.0, 1.0))
+            pl.text(z - w / 2, min((d * k / 2 if d else Dmax / 2) + 0.04 * reach, top - 0.12 * reach), f"{ld.name or kind} ({kind})",
+                    fontsize=7.5, ha="left", va="bottom", step=(0.0, 1.0))
         # the supports: a bearing block across the outline, a triangle below, the reaction arrow
         for rct in res["shaft"]["reactions"]:
             z = rct["at"] * k
@@ -236,13 +260,11 @@ def layout_drawing(a, res, f: Fmt) -> Figure:
             ax.plot([z, z], [-0.62 * Dmax, 0.62 * Dmax], color="#3b3b3b", lw=0.8, ls=(0, (6, 2, 1, 2)), zorder=7)
             pl.text(z, 0.62 * Dmax, str(j), fontsize=7, ha="center", va="bottom", zorder=8, step=(1.0, 0.0),
                     bbox={"boxstyle": "circle,pad=0.15", "fc": "white", "ec": INK, "lw": 0.6})
-        top = reach / 2 + arrow_len + 0.12 * reach
-        ax.set_ylim(-top - 0.1 * reach, top)
         ax.set_title("y–z plane: forces along y" if plane == "y" else "x–z plane: forces along x (seen from +y)",
                      loc="left")
         ax.set_ylabel(f"{plane} [{u}]")
         ax.spines["left"].set_visible(True)
-    _dimensions(axes[1], segs, shaft, prof, k, u, L, Dmax)
+    _dimensions(axes[1], placers[1], segs, shaft, prof, k, u, L, -top)
     axes[1].set_xlabel(f"z, along the shaft [{u}]")
     return Figure("shaft_layout", "The shaft to scale in both planes: segments, fillets, grooves, bores, parts (dashed: "
                   "pitch or belt diameter), bearings, forces and reactions, the checked stations (numbered) and the "
@@ -257,19 +279,16 @@ def layout_of(a):
     return shaft, list(shaft.segments) or list(dict.fromkeys(rec["layout"]["model"].segs))
 
 
-def _dimensions(ax, segs, shaft, prof, k, u, L, Dmax):
-    """Chain dimensions of the segments and the overall length below the lower view; diameters,
-    fillet radii and grooves written on the upper side of the lower view."""
-    pl = Placer(ax)
-    y0 = ax.get_ylim()[0]
-    lev1 = -0.95 * max(Dmax, 0.0) - 0.02 * L
-    ys = min(lev1, y0)
+def _dimensions(ax, pl, segs, shaft, prof, k, u, L, below):
+    """Chain dimensions of the segments and the overall length below ``below`` in the lower view;
+    diameters, fillet radii and grooves written on the shaft in that view."""
+    ys = below - 0.08 * L
     def dim(z1, z2, y, text):
         ax.annotate("", (z1, y), (z2, y), arrowprops={"arrowstyle": "<|-|>", "lw": 0.5, "color": INK,
                                                         "mutation_scale": 6, "shrinkA": 0, "shrinkB": 0})
         for zz in (z1, z2):
             ax.plot([zz, zz], [y - 0.01 * L, y + 0.03 * L], color=GRID, lw=0.5)
-        pl.text((z1 + z2) / 2, y + 0.005 * L, text, fontsize=7, ha="center", va="bottom", step=(0.0, -1.0))
+        pl.text((z1 + z2) / 2, y + 0.005 * L, text, fontsize=7, ha="center", va="bottom", step=(0.0, 1.0))
     for s in segs:
         dim(s.start * k, s.end * k, ys, f"{_n((s.end - s.start) * k)}")
     dim(0.0, L, ys - 0.09 * L, f"{_n(L)} {u} overall")
@@ -402,6 +421,8 @@ def feature_stress_figure(res, f: Fmt) -> Figure | None:
             ax.set_xlabel(f"z [{f.s.label('length')}]")
             ax.set_ylabel(f"r [{f.s.label('length')}]")
             ax.tick_params(labelsize=6.5)
+            ax.xaxis.set_major_locator(MaxNLocator(3))
+            ax.yaxis.set_major_locator(MaxNLocator(3, prune="lower"))  # clear of the first z label
             name = {"kt_bending": "Kt", "kts": "Kts", "kt_axial": "Kt axial"}[key]
             ax.set_title(f"{r['kind']} at {f.q(r['at'], 'length', 4)}\n{name} = {r[key]:.3f} (circle: peak)",
                          fontsize=7.5)
