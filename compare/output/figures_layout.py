@@ -17,6 +17,7 @@ from matplotlib.patches import Polygon as PolygonPatch
 from matplotlib.patches import Rectangle
 from matplotlib.text import Text
 from matplotlib.ticker import MaxNLocator
+from matplotlib.transforms import ScaledTranslation
 
 from ..case.units import from_si
 from .figures import CMAP, GRID, INK, STYLE, Figure
@@ -107,7 +108,6 @@ def _hit(a, b) -> bool:
 
 
 def _offset(fig, dx, dy):
-    from matplotlib.transforms import ScaledTranslation  # noqa: PLC0415  lazy import: matplotlib is already loaded here (only for the offset)
     return ScaledTranslation(dx / fig.dpi, dy / fig.dpi, fig.dpi_scale_trans)
 
 

@@ -8,6 +8,7 @@ import html
 
 from .design_report import is_layout
 from .headline import headline_rows, layout_rows
+from .report import Fmt
 
 
 def _e(text) -> str:
@@ -43,7 +44,6 @@ def result_html(res: dict, system) -> str:
     if layout:
         from .figures import STYLE  # noqa: PLC0415  lazy import of a slow dependency: matplotlib
         from .figures_layout import diagrams_figure, plt  # noqa: PLC0415  lazy import of a slow dependency: matplotlib
-        from .report import Fmt  # noqa: PLC0415  lazy: only a layout draws
         with plt.rc_context(STYLE):
             fig = diagrams_figure(res, Fmt(system))
         data = base64.b64encode(fig.svg.encode("utf-8")).decode("ascii")
