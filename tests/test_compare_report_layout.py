@@ -103,7 +103,7 @@ def test_figures_in_both_formats(layout):
     assert {"shaft_layout", "shaft_diagrams", "shaft_modes", "feature_stress"} <= stems
     n = len(layout["res"]["section_loads"])
     assert {f"station{i}_{nm}" for i in range(1, n + 1) for nm in ("section", "torsion_stress")} <= stems
-    assert all(nm in STATION_FIGURES for nm in ("section", "torsion_stress", "von_mises", "mohr", "fatigue_factor"))
+    assert all(nm in STATION_FIGURES for nm in ("section", "torsion_stress", "von_mises", "mohr"))
     # every image the page names is one of the files
     assert set(re.findall(r"figures/([a-z0-9_]+)\.png", layout["html"])) <= stems
     assert (layout["out"] / "shaft.svg").is_file()

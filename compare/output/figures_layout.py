@@ -229,6 +229,14 @@ def layout_drawing(a, res, f: Fmt) -> Figure:
                             arrowprops={"arrowstyle": "-|>", "lw": 1.4, "color": INK, "mutation_scale": 10}, zorder=6)
                 pl.text(z, tip - math.copysign(h, F), f" F{plane} {f.q(F, 'force', 3)}", fontsize=7.5,
                         va="bottom" if F < 0 else "top", ha="left", step=(0.0, 1.0 if F < 0 else -1.0))
+            Fz = p["Fz"] if p else 0.0
+            if plane == "y" and Fz and abs(Fz) > 1e-9 * fsc:  # a thrust (helical gear): along the axis
+                h = max(arrow_len * abs(Fz) / fsc, 0.04 * L)
+                ax.annotate("", (z, 0.0), (z - math.copysign(h, Fz), 0.0),
+                            arrowprops={"arrowstyle": "-|>", "lw": 1.4, "color": INK, "mutation_scale": 10}, zorder=6)
+                pl.text(z - math.copysign(h, Fz), 0.02 * reach, f"Fz {f.q(Fz, 'force', 3)}", fontsize=7.5,
+                        ha="right" if Fz > 0 else "left", va="bottom", zorder=9, step=(0.0, 1.0),
+                        bbox={"boxstyle": "square,pad=0.1", "fc": "#e4e4e4", "ec": "none"})
             kind = ld.kind if ld.kind != "pulley" or not ld.pulley or math.isfinite(ld.pulley.tension_ratio) else "sprocket"
             pl.text(z - w / 2, min((d * k / 2 if d else Dmax / 2) + 0.04 * reach, top - 0.12 * reach), f"{ld.name or kind} ({kind})",
                     fontsize=7.5, ha="left", va="bottom", step=(0.0, 1.0))
@@ -252,7 +260,7 @@ def layout_drawing(a, res, f: Fmt) -> Figure:
                             zorder=6)
                 pl.text(z, base - h, f" R{plane} {f.q(F, 'force', 3)}", fontsize=7.5, va="top", ha="left",
                         step=(0.0, -1.0))
-            pl.text(z, -1.22 * r_here - 0.5 * bw - 0.02 * reach, f"{rct['name'] or 'support'}", fontsize=7.5,
+            pl.text(z - 0.7 * bw, -1.22 * r_here - 0.5 * bw, f"{rct['name'] or 'support'}", fontsize=7.5,
                     ha="right", va="top", step=(-1.0, 0.0))
         # the checked stations: a dash-dot cut line and its number in a circle
         for j, st in enumerate(res.get("section_loads", []), 1):
@@ -397,7 +405,10 @@ def feature_stress_figure(res, f: Fmt) -> Figure | None:
     if not feats:
         return None
     k = from_si(1.0, "length", f.s)
-    keys = [(key, lab) for key, lab in _FACTORS if any(f"{key}_map" in r for r in feats)]
+    # tension only where a station carries an axial force (its factor is in the table either way)
+    axial = any(abs(st.get("N") or 0.0) > 0.0 for st in res.get("section_loads", []))
+    keys = [(key, lab) for key, lab in _FACTORS if any(f"{key}_map" in r for r in feats)
+            and (axial or key != "kt_axial")]
     fig, axes = plt.subplots(len(feats), len(keys), figsize=(2.9 * len(keys) + 0.6, 2.7 * len(feats)), squeeze=False)
     fig.subplots_adjust(hspace=0.65, wspace=0.6)
     cmap = colormaps[CMAP]

@@ -24,8 +24,8 @@ SECTIONS = (
     ("accuracy", "Accuracy evidence"), ("materials", "Material ranking (governing station)"),
     ("assumptions", "Assumptions and limits of validity"), ("cautions", "Cautions"),
 )
-#: the figures each station's part draws (names of compare/output/figures.py)
-STATION_FIGURES = ("section", "torsion_stress", "von_mises", "mohr", "fatigue_factor")
+#: the figures each station's part draws (names of compare/output/figures.py); its factors are tables
+STATION_FIGURES = ("section", "torsion_stress", "von_mises", "mohr")
 
 CSS_LAYOUT = CSS + """
 .ok { } .bad { font-weight: bold; }
@@ -326,7 +326,7 @@ def _station_part(st: dict, sres: dict, sfigs: list, f: Fmt) -> str:
     out = [warn, f'<p class="verdict">{e(sentence)}</p>', "<h3>Loads</h3>",
            _table(("", *L), rows, numeric=(1, 2, 3, 4, 5, 6)),
            f"<p class=\"small\">Loads taken {e(_loads_where(st, f))}.</p>"]
-    for name in ("section", "torsion_stress", "von_mises", "mohr", "fatigue_factor"):
+    for name in STATION_FIGURES:
         if name in figs:
             out.append(_img(figs[name]))
     out += ["<h3>Factors of safety</h3>", _factors(sres), "<h3>Hand calculation against FE</h3>", hand_vs_fe(sres, f),
