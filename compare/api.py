@@ -244,10 +244,10 @@ class Result(Record):
         for a layout) into the folder ``out``; nothing is half-written. Returns the folder."""
         out = Path(out)
         files = {"results.json": json.dumps(self._d, indent=2, ensure_ascii=False) + "\n"}
-        if (self._d.get("shaft") or {}).get("diagrams"):  # a layout case: its diagrams too, as the command line writes them
-            files["shaft.svg"] = shaft_figure_svg(self._d, self.analysis.case.units)
         if report and self.analysis.mesh is not None:  # as `run` without --no-report
             files.update(report_files(self.analysis, self._d))
+        if (self._d.get("shaft") or {}).get("diagrams"):  # a layout case: its diagrams too, as the command line writes them
+            files["shaft.svg"] = files.get("figures/shaft_diagrams.svg") or shaft_figure_svg(self._d, self.analysis.case.units)
         write_outputs(out, files, self.analysis if vtu and self.analysis.mesh is not None else None)
         return out
 
