@@ -185,3 +185,26 @@ def test_text_overlaps_finds_an_overlap():
     plt.close(fig)
     assert ("first label", "second label") in pairs
     assert not any("far away" in p for p in pairs)
+
+
+def test_loads_where_read_from_the_station_record():
+    """The station table says where along a feature the loads were taken when the record holds it, and
+    the station's own z otherwise."""
+    from compare.case.units import SYSTEMS  # noqa: PLC0415  only these small checks
+    from compare.output.report_layout import EngFmt, _loads_where  # noqa: PLC0415
+    f = EngFmt(SYSTEMS["mm-N-MPa"])
+    assert _loads_where({"at": 0.2}, f) == "at the station, z = 200 mm"
+    assert _loads_where({"at": 0.2, "loads_where": {"at": 0.215, "note": "keyway end"}}, f) == "z = 215 mm (keyway end)"
+    assert _loads_where({"at": 0.2, "governing_at": 0.19}, f) == "z = 190 mm"
+
+
+def test_engineering_notation_of_large_forces_and_moments():
+    from compare.case.units import SYSTEMS  # noqa: PLC0415  only these small checks
+    from compare.output.report_layout import EngFmt  # noqa: PLC0415
+    f = EngFmt(SYSTEMS["mm-N-MPa"])
+    assert f.q(-120.0, "moment", 4) == "-120·10³ N·mm"  # 120 N·m, never a bare 120000
+    assert f.q(143.2, "moment", 4) == "143.2·10³ N·mm"
+    assert f.q(1800.0, "force", 4) == "1800 N"
+    assert f.q(0.025, "length", 4) == "25 mm"
+    assert figures_layout.eng_exponent([150000.0]) == 3 and figures_layout.eng_unit(3, "N·mm") == "10³ N·mm"
+    assert figures_layout.eng_exponent([6.7e-5]) == -6 and figures_layout.eng_exponent([0.0]) == 0

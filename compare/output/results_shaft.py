@@ -56,6 +56,8 @@ def add_shaft_results(out: dict, a, build_results) -> None:
                  "jump": rec_st["loads"]["jump"], "used_side": rec_st["loads"]["used_side"],
                  "diameter": rec_st["diameter"], "features": rec_st["features"], "kt_from": rec_st["kt_from"],
                  "checked_again": rec_st.get("checked_again", False),
+                 # where along the station's feature its loads were taken, where the station record says
+                 **{k: rec_st[k] for k in ("loads_where", "governing_at") if k in rec_st},
                  "results": {k: r[k] for k in _STATION_KEYS if k in r}}
         loads.append(entry)
     out["section_loads"] = loads
