@@ -238,7 +238,7 @@ def layout_drawing(a, res, f: Fmt) -> Figure:
                         ha="right" if Fz > 0 else "left", va="bottom", zorder=9, step=(0.0, 1.0),
                         bbox={"boxstyle": "square,pad=0.1", "fc": "#e4e4e4", "ec": "none"})
             kind = ld.kind if ld.kind != "pulley" or not ld.pulley or math.isfinite(ld.pulley.tension_ratio) else "sprocket"
-            pl.text(z - w / 2, min((d * k / 2 if d else Dmax / 2) + 0.04 * reach, top - 0.12 * reach), f"{ld.name or kind} ({kind})",
+            pl.text(z - w / 2, min((d * k / 2 if d else Dmax / 2) + 0.04 * reach, top - 0.12 * reach), f"{ld.name or kind} ({kind}, z {_n(z)})",
                     fontsize=7.5, ha="left", va="bottom", step=(0.0, 1.0))
         # the supports: a bearing block across the outline, a triangle below, the reaction arrow
         for rct in res["shaft"]["reactions"]:
@@ -260,7 +260,7 @@ def layout_drawing(a, res, f: Fmt) -> Figure:
                             zorder=6)
                 pl.text(z, base - h, f" R{plane} {f.q(F, 'force', 3)}", fontsize=7.5, va="top", ha="left",
                         step=(0.0, -1.0))
-            pl.text(z - 0.7 * bw, -1.22 * r_here - 0.5 * bw, f"{rct['name'] or 'support'}", fontsize=7.5,
+            pl.text(z - 0.7 * bw, -1.22 * r_here - 0.5 * bw, f"{rct['name'] or 'support'} (z {_n(z)})", fontsize=7.5,
                     ha="right", va="top", step=(-1.0, 0.0))
         # the checked stations: a dash-dot cut line and its number in a circle
         for j, st in enumerate(res.get("section_loads", []), 1):
