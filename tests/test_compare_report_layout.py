@@ -208,3 +208,19 @@ def test_engineering_notation_of_large_forces_and_moments():
     assert f.q(0.025, "length", 4) == "25 mm"
     assert figures_layout.eng_exponent([150000.0]) == 3 and figures_layout.eng_unit(3, "N·mm") == "10³ N·mm"
     assert figures_layout.eng_exponent([6.7e-5]) == -6 and figures_layout.eng_exponent([0.0]) == 0
+
+
+def test_no_verdict_is_said_first_for_the_whole_shaft():
+    """A station without a verdict (an unbounded stress) governs the shaft: the sentence says so and gives
+    no factor, whatever the other stations' factors are."""
+    from compare.case.units import SYSTEMS  # noqa: PLC0415  only these small checks
+    from compare.output.report_layout import EngFmt, whole_shaft_verdict  # noqa: PLC0415
+    st = [{"at": 0.05, "name": "keyseat", "results": {"governing": {"factor": 4.0, "criterion": "goodman",
+                                                                     "path": "FE", "text": "n = 4"}}},
+          {"at": 0.12, "name": "sharp step", "results": {"governing": {"no_verdict": True, "factor": 2.5}}}]
+    res = {"section_loads": st, "shaft": {"governing_station": 1, "slopes": [], "gear_deflections": [],
+                                          "critical_speeds": {"skipped": "no mass"}}}
+    sentence, other = whole_shaft_verdict(res, EngFmt(SYSTEMS["mm-N-MPa"]))
+    assert sentence.startswith("NO VERDICT for the shaft") and "sharp step" in sentence
+    assert "2.5" not in sentence and "n = 4" not in sentence
+    assert any("not computed" in x for x in other)
