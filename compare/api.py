@@ -32,6 +32,7 @@ from .case.units import ureg
 from .cli.cmd_run import write_outputs
 from .output.design_report import report_files
 from .output.figure_shaft import shaft_figure_svg
+from .output.notebook import result_html
 from .output.report import summary
 from .output.results import build_results
 from .pipeline import analyse as _analyse
@@ -243,12 +244,16 @@ class Result(Record):
         for a layout) into the folder ``out``; nothing is half-written. Returns the folder."""
         out = Path(out)
         files = {"results.json": json.dumps(self._d, indent=2, ensure_ascii=False) + "\n"}
-        if (self._d.get("shaft") or {}).get("diagrams"):  # a layout case: its diagrams too, as the command line writes them
-            files["shaft.svg"] = shaft_figure_svg(self._d, self.analysis.case.units)
         if report and self.analysis.mesh is not None:  # as `run` without --no-report
             files.update(report_files(self.analysis, self._d))
+        if (self._d.get("shaft") or {}).get("diagrams"):  # a layout case: its diagrams too, as the command line writes them
+            files["shaft.svg"] = files.get("figures/shaft_diagrams.svg") or shaft_figure_svg(self._d, self.analysis.case.units)
         write_outputs(out, files, self.analysis if vtu and self.analysis.mesh is not None else None)
         return out
+
+    def _repr_html_(self) -> str:
+        """In a notebook: the verdict, the headline table and, for a layout, its stations and diagrams."""
+        return result_html(self._d, self.analysis.case.units)
 
     def __repr__(self) -> str:
         return f"Result({self._d['case']['title']!r}: {', '.join(self._d)})"

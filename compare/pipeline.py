@@ -35,6 +35,8 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         a = layout_step(case, lambda c: analyse(c, fineness, study))
         checklist_step(a, case)  # keys, splines, press fits, bearing life, torsion along the shaft
         attach_features(a, feats)
+        # the layout itself and its title (the report's drawing and mode shapes; the stations' titles add their place)
+        a.extra["shaft"].update(shaft=case.shaft, title=case.title)
         lt = long_term_layout(a)  # a polymer shaft: deflections and slopes after the service life
         if lt is not None:
             a.extra["polymer_layout"] = lt

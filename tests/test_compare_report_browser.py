@@ -7,6 +7,7 @@ from __future__ import annotations
 import re
 import shutil
 import subprocess
+from pathlib import Path
 
 import matplotlib.image as mpimg
 import pytest
@@ -93,3 +94,46 @@ def test_prints_to_pdf_and_screenshot(report, tmp_path):
     img = mpimg.imread(shot)
     assert img.shape[0] >= 1000 and img.shape[1] >= 1000
     assert img[..., :3].std() > 0.01  # not a blank page
+
+
+# --------------------------------------------------------------------------- the report of a whole shaft
+LAYOUT = Path(__file__).resolve().parents[1] / "cases" / "countershaft_layout.toml"
+
+
+@pytest.fixture(scope="module")
+def layout_report(tmp_path_factory):
+    """The demo countershaft at a coarser mesh and a looser target (every part of the layout report)."""
+    d = tmp_path_factory.mktemp("browser_layout")
+    text = LAYOUT.read_text(encoding="utf-8").replace('accuracy = "1 %"', 'accuracy = "5 %"\nfineness = 0.5')
+    (d / "c.toml").write_text(text, encoding="utf-8")
+    assert main(["run", str(d / "c.toml"), "--out", str(d / "out"), "--quiet", "--no-vtu"]) == 0
+    return d / "out" / "report.html"
+
+
+def test_layout_report_renders_and_every_figure_loads(layout_report, tmp_path):
+    html = layout_report.read_text(encoding="utf-8")
+    n_img = html.count("<img ")
+    assert n_img >= 4 + 3 * 3  # the layout's figures and at least three of each station's
+    harness = tmp_path / "harness.html"
+    harness.write_text(html.replace("</body>", CHECK + "</body>"), encoding="utf-8")
+    r = _chromium(tmp_path, "--virtual-time-budget=8000", "--dump-dom", harness.as_uri())
+    body = re.search(r"<body[^>]*>", r.stdout)
+    assert body, r.stderr[-2000:]
+    assert f'data-images="{n_img}"' in body.group(0)
+    assert 'data-bad="[]"' in body.group(0), body.group(0)
+    r = _chromium(tmp_path, "--dump-dom", layout_report.as_uri())
+    assert [ln for ln in r.stderr.splitlines() if ":CONSOLE" in ln] == []
+    assert 'id="verdict"' in r.stdout and 'id="station-1"' in r.stdout
+
+
+def test_layout_report_prints_to_pdf(layout_report, tmp_path):
+    pdf, shot = tmp_path / "report.pdf", tmp_path / "screenshot.png"
+    r = _chromium(tmp_path, "--no-pdf-header-footer", f"--print-to-pdf={pdf}", layout_report.as_uri())
+    assert pdf.is_file(), r.stderr[-2000:]
+    pages = len(re.findall(rb"/Type\s*/Page\b(?!s)", pdf.read_bytes()))
+    print(f"layout report PDF: {pages} pages, {pdf.stat().st_size} bytes; screenshot {shot}")
+    # a page per part at least (page breaks between parts), more for the stations' figures; bounded
+    assert 14 <= pages <= 120
+    r = _chromium(tmp_path, "--window-size=1100,1600", f"--screenshot={shot}", layout_report.as_uri())
+    img = mpimg.imread(shot)
+    assert img.shape[0] >= 1000 and img[..., :3].std() > 0.01

@@ -60,13 +60,13 @@ def run(args) -> int:
         a = analyse(case, fineness=fineness)
     res = build_results(a)
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
-    if (res.get("shaft") or {}).get("diagrams"):  # the layout's diagrams and deflected shape
-        files["shaft.svg"] = shaft_figure_svg(res, case.units)
     vtu = not args.no_vtu and a.mesh is not None  # no section mesh when only feature factors were asked for
     composite = "composite" in a.extra  # bonded regions of several materials: their own report
     report = not args.no_report and (a.mesh is not None or composite)
     if report:
         files.update(composite_report_files(a, res) if composite else report_files(a, res))
+    if (res.get("shaft") or {}).get("diagrams"):  # the layout's diagrams (the report's, when it drew them)
+        files["shaft.svg"] = files.get("figures/shaft_diagrams.svg") or shaft_figure_svg(res, case.units)
     write_outputs(out, files, a if vtu else None)
     if not args.quiet:
         written = [out / "results.json"] + ([out / "section.vtu"] if vtu else [])

@@ -139,9 +139,15 @@ def section_figure(a, res, g: Geometry, f: Fmt) -> Figure:
     dim((x0, y0), (x1, y0), -0.12 * span, f"{_n(x1 - x0)} {u}" + (" (diameter)" if a.case.section.diameter else ""))
     dim((x1, y0), (x1, y1), 0.1 * span, f"{_n(y1 - y0)} {u}", vertical=True)
     sec = a.case.section
+    nk = len(getattr(sec, "keyways", ()) or ())
+    lims = [(x0 - 0.12 * span, y0 - (0.3 + 0.06 * nk) * span), (x1 + 0.3 * span, y1 + 0.12 * span)]
     for i, kw in enumerate(getattr(sec, "keyways", ()) or ()):
-        ax.text(0.02, 0.98 - 0.06 * i, f"keyway {i + 1}: width {_n(kw.width * g.k)} {u}, depth {_n(kw.depth * g.k)} {u}, "
-                f"bottom radius {_n(kw.fillet * g.k)} {u}", transform=ax.transAxes, fontsize=7.5, va="top")
+        dt = sec.diameter - kw.depth  # the key standards' d − t1: keyway bottom to the opposite side
+        ax.text(0.02, 0.02 + 0.055 * (i + bool(sec.bore)), f"keyway {i + 1}: width b {_n(kw.width * g.k)} {u}, depth t {_n(kw.depth * g.k)} {u}, "
+                f"d − t {_n(dt * g.k)} {u}, bottom radius {_n(kw.fillet * g.k)} {u}", transform=ax.transAxes,
+                fontsize=7.5, va="bottom")
+        if i == 0 and sec.diameter:
+            lims += keyway_dimensions(ax, sec, kw, g.k, span, u)
     if sec.bore:
         ax.text(0.02, 0.02, f"bore {_n(sec.bore * g.k)} {u}", transform=ax.transAxes, fontsize=7.5)
     c = res["section"]["centroid"]
@@ -149,10 +155,49 @@ def section_figure(a, res, g: Geometry, f: Fmt) -> Figure:
     c = [0.0 if abs(v) < ROUND_OFF * size else v for v in c]
     ax.plot(c[0] * g.k, c[1] * g.k, marker="+", ms=10, color=INK, mew=1.0)
     ax.annotate("centroid", (c[0] * g.k, c[1] * g.k), xytext=(6, -12), textcoords="offset points", fontsize=7.5)
-    ax.set_xlim(x0 - 0.12 * span, x1 + 0.3 * span)
-    ax.set_ylim(y0 - 0.3 * span, y1 + 0.12 * span)
+    ax.set_xlim(min(p[0] for p in lims), max(p[0] for p in lims))
+    ax.set_ylim(min(p[1] for p in lims), max(p[1] for p in lims))
     g.frame(ax)
     return Figure("section", "Section and its dimensions", fig)
+
+
+def keyway_dimensions(ax, sec, kw, k: float, span: float, u: str) -> list:
+    """A keyway dimensioned as the key standards tabulate it: the width b across the keyway at the
+    surface, and d − t from the keyway bottom (on its centre line) to the opposite side of the shaft,
+    measured along the centre line. Returns the points the dimensions reach (for the axis limits)."""
+    ox, oy = sec.origin[0] * k, sec.origin[1] * k
+    R, t, b = sec.diameter / 2 * k, kw.depth * k, kw.width * k
+    th = math.radians(kw.angle)
+    ux, uy, nx, ny = math.cos(th), math.sin(th), -math.sin(th), math.cos(th)
+    arrow = {"arrowstyle": "<|-|>", "lw": 0.6, "color": INK, "shrinkA": 0, "shrinkB": 0}
+    # d − t: extension lines along the keyway bottom and the tangent at the opposite side, out to `off`
+    off = R + 0.12 * span
+    P = (ox + (R - t) * ux, oy + (R - t) * uy)
+    Q = (ox - R * ux, oy - R * uy)
+    P2, Q2 = (P[0] + off * nx, P[1] + off * ny), (Q[0] + off * nx, Q[1] + off * ny)
+    for a_, b_ in ((P, P2), (Q, Q2)):
+        ax.plot([a_[0], b_[0] + 0.02 * span * nx], [a_[1], b_[1] + 0.02 * span * ny], color=GRID, lw=0.5)
+    ax.annotate("", P2, Q2, arrowprops=arrow)
+    rot = math.degrees(th)
+    rot = rot - 180 if rot > 90 else rot + 180 if rot <= -90 else rot
+    mid = ((P2[0] + Q2[0]) / 2 + 0.05 * span * nx, (P2[1] + Q2[1]) / 2 + 0.05 * span * ny)
+    ax.text(*mid, f"d − t = {_n(2 * R - t)} {u}", rotation=rot, rotation_mode="anchor", ha="center", va="center",
+            fontsize=8, bbox={"boxstyle": "square,pad=0.1", "fc": "white", "ec": "none"})
+    # b: across the keyway, outside the surface
+    h = R + 0.1 * span
+    w = math.sqrt(max(R * R - (b / 2) ** 2, 0.0))
+    A = (ox + w * ux + b / 2 * nx, oy + w * uy + b / 2 * ny)
+    B = (ox + w * ux - b / 2 * nx, oy + w * uy - b / 2 * ny)
+    A2, B2 = (ox + h * ux + b / 2 * nx, oy + h * uy + b / 2 * ny), (ox + h * ux - b / 2 * nx, oy + h * uy - b / 2 * ny)
+    for a_, b_ in ((A, A2), (B, B2)):
+        ax.plot([a_[0], b_[0] + 0.02 * span * ux], [a_[1], b_[1] + 0.02 * span * uy], color=GRID, lw=0.5)
+    ax.annotate("", A2, B2, arrowprops=arrow)
+    lab = (ox + (h + 0.045 * span) * ux, oy + (h + 0.045 * span) * uy)
+    ax.text(*lab, f"b = {_n(b)} {u}", rotation=rot - 90 if rot > 0 else rot + 90, rotation_mode="anchor",
+            ha="center", va="center", fontsize=8)
+    pad = 0.08 * span
+    return [(p[0] - pad, p[1] - pad) for p in (P2, Q2, A2, B2, lab, mid)] + \
+        [(p[0] + pad, p[1] + pad) for p in (P2, Q2, A2, B2, lab, mid)]
 
 
 def mesh_figure(a, res, g: Geometry) -> Figure:
@@ -409,14 +454,24 @@ def _n(v: float) -> str:
     return f"{v:.4g}"
 
 
-def all_figures(a, res, fields: dict) -> list[Figure]:
-    """Every figure of the report, in its order."""
+def all_figures(a, res, fields: dict, only=None) -> list[Figure]:
+    """Every figure of the report, in its order; with ``only`` (a set of figure names) just those (a
+    layout report draws a few of each station's)."""
     f = Fmt(a.case.units)
+
+    def want(name):
+        return only is None or name in only
+
     with plt.rc_context(STYLE):
         g = Geometry(a, f)
         pts = critical_points(res)
-        figs = [section_figure(a, res, g, f), mesh_figure(a, res, g), torsion_figure(a, res, g, f, fields),
-                stress_function_figure(a, g, f), shear_figure(a, res, g, f, fields),
-                von_mises_figure(res, g, f, fields, pts), *mohr_figures(pts, f), fatigue_figure(res, g, fields),
-                convergence_figure(res)]
+        figs = [section_figure(a, res, g, f) if want("section") else None,
+                mesh_figure(a, res, g) if want("mesh") else None,
+                torsion_figure(a, res, g, f, fields) if want("torsion_stress") else None,
+                stress_function_figure(a, g, f) if want("stress_function") else None,
+                shear_figure(a, res, g, f, fields) if want("shear_stress") else None,
+                von_mises_figure(res, g, f, fields, pts) if want("von_mises") else None,
+                *(mohr_figures(pts, f) if want("mohr") else []),
+                fatigue_figure(res, g, fields) if want("fatigue_factor") else None,
+                convergence_figure(res) if want("convergence") else None]
     return [x for x in figs if x is not None]

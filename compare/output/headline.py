@@ -125,6 +125,55 @@ def headline_rows(res: dict, system) -> list[dict]:
     return rows
 
 
+def layout_rows(res: dict, system) -> list[dict]:
+    """The rows of a shaft layout beside the governing station's: one per station (its lowest factor of
+    safety), one per shoulder or groove factor (FE beside the chart, with its error estimate), the
+    reactions, the largest deflection and the first critical speed."""
+    f = Fmt(system)
+    sh = res.get("shaft") or {}
+    rows: list[dict] = []
+
+    def row(group, quantity, value, dim, key, hand=None, source="", err=None):
+        unit = "" if dim == "dimensionless" else ("rad" if dim == "rad" else "rpm" if dim == "rpm" else f.s.label(dim))
+        conv = (lambda v: v) if dim in ("dimensionless", "rad", "rpm") else (lambda v: from_si(v, dim, f.s))
+        rows.append({"group": group, "quantity": quantity, "value": None if value is None else conv(value), "unit": unit,
+                     "hand_value": None if hand is None else conv(hand),
+                     "ratio": None if hand in (None, 0) or value is None else value / hand, "source": source,
+                     "estimated_error": err, "results_json_key": key})
+
+    for i, st in enumerate(res.get("section_loads", [])):
+        gov = st["results"].get("governing") or {}
+        who = f"station {i + 1} ({st['name'] or ''} at {f.q(st['at'], 'length', 5)})"
+        if gov.get("no_verdict"):
+            row("station", f"{who}: NO VERDICT (unbounded stress at a sharp corner)", None, "dimensionless",
+                f"section_loads[{i}].results.governing")
+        elif gov.get("factor") is not None:
+            row("station", f"{who}: lowest n ({LABELS.get(gov['criterion'], gov['criterion'])}, {gov['path']} path)",
+                gov["factor"], "dimensionless", f"section_loads[{i}].results.governing.factor")
+    for j, r in enumerate(sh.get("features") or []):
+        if r.get("skipped"):
+            continue
+        for key, name in (("kt_bending", "Kt bending"), ("kts", "Kts torsion"), ("kt_axial", "Kt tension")):
+            if r.get(key) is None:
+                continue
+            ch = r.get(f"{key}_chart") or {}
+            row("feature", f"{r['kind']} at {f.q(r['at'], 'length', 5)}: {name} (FE; chart beside)", r[key],
+                "dimensionless", f"shaft.features[{j}].{key}", ch.get("value"), ch.get("source") or "",
+                r.get(f"{key}_gci"))
+    for i, rc in enumerate(sh.get("reactions") or []):
+        row("reaction", f"|F| at support {rc['name'] or i + 1}", rc["F"], "force", f"shaft.reactions[{i}].F")
+    if sh.get("max_deflection"):
+        row("stiffness", "largest deflection", sh["max_deflection"]["value"], "length", "shaft.max_deflection.value")
+    for i, s in enumerate(sh.get("slopes") or []):
+        row("stiffness", f"slope at {s['kind']} {s['name'] or ''} (limit as hand value)", s["slope"], "rad",
+            f"shaft.slopes[{i}].slope", s["limit"], s["source"])
+    cs = sh.get("critical_speeds") or {}
+    if cs.get("values"):
+        row("critical speed", "first critical speed (beam model; Rayleigh as hand value)", cs["values"][0] * 60 / (2 * 3.141592653589793),
+            "rpm", "shaft.critical_speeds.values[0]", cs["rayleigh"] * 60 / (2 * 3.141592653589793), cs["rayleigh_source"])
+    return rows
+
+
 def csv_text(rows: list[dict]) -> str:
     """``results.csv``: the rows with a header line; numbers written in full (repr), empty where absent."""
     buf = io.StringIO()

@@ -116,21 +116,7 @@ def render(res: dict, system, figures: list, case_text: str | None, trace: dict,
                          _table(("point", "critical for", "at", "σ", "τ", "von Mises"), rows, numeric=(3, 4, 5)) +
                          (_img(figs["fatigue_factor"]) if "fatigue_factor" in figs else ""))
     parts["mohr"] = _img(figs["mohr"]) if "mohr" in figs else "<p>No combined-stress points.</p>"
-    hv = []
-    for p in res.get("compare", []):
-        if p["kind"] == "not applicable":
-            hv.append((p["quantity"], "—", "—", "—", p.get("note") or ""))
-            continue
-        dim = p["dimension"]
-        # round-off as 0: against the hand value, or against 1 for a dimensionless ratio (a size-relative offset)
-        scale = max(abs(p["classic"] or 0.0), 1.0 if dim == "dimensionless" else 0.0)
-        fe = f.q0(p["fe"], dim, scale)
-        hv.append((p["quantity"], fe, f.q(p["classic"], dim), _num(p["ratio"], 5),
-                   p["source"] + (f"; {p['note']}" if p.get("note") else "")))
-    if t.get("kts") is not None:
-        hv.append(("Kts = τmax / τnominal", _num(t["kts"], 5), "—", "—", t["kts_nominal"]["source"]))
-    parts["hand-vs-fe"] = _table(("quantity", "FE", "hand", "ratio FE/hand", "source of the hand value"), hv,
-                                 numeric=(1, 2, 3))
+    parts["hand-vs-fe"] = hand_vs_fe(res, f)
     parts["factors"] = (_factors(res) + polymer_html(res, f) +  # a polymer's check at its service conditions
                         (_img(figs["polymer_data"]) if "polymer_data" in figs else ""))
     parts["materials"] = _materials(res)
@@ -146,6 +132,25 @@ def render(res: dict, system, figures: list, case_text: str | None, trace: dict,
             f"<title>{e(res['case']['title'])} — shaftcheck report</title><style>{CSS}</style></head><body>"
             f"<h1>{e(res['case']['title'])}</h1><p class=\"small\">shaftcheck {e(res['tool']['version'])} design "
             f"report, {e(date)}</p>" + "".join(body) + "</body></html>\n")
+
+
+def hand_vs_fe(res: dict, f: Fmt) -> str:
+    """The table of every FE result beside its hand value (the pairs), with Kts."""
+    t = res["torsion"]
+    hv = []
+    for p in res.get("compare", []):
+        if p["kind"] == "not applicable":
+            hv.append((p["quantity"], "—", "—", "—", p.get("note") or ""))
+            continue
+        dim = p["dimension"]
+        # round-off as 0: against the hand value, or against 1 for a dimensionless ratio (a size-relative offset)
+        scale = max(abs(p["classic"] or 0.0), 1.0 if dim == "dimensionless" else 0.0)
+        fe = f.q0(p["fe"], dim, scale)
+        hv.append((p["quantity"], fe, f.q(p["classic"], dim), _num(p["ratio"], 5),
+                   p["source"] + (f"; {p['note']}" if p.get("note") else "")))
+    if t.get("kts") is not None:
+        hv.append(("Kts = τmax / τnominal", _num(t["kts"], 5), "—", "—", t["kts_nominal"]["source"]))
+    return _table(("quantity", "FE", "hand", "ratio FE/hand", "source of the hand value"), hv, numeric=(1, 2, 3))
 
 
 def _factors(res: dict) -> str:

@@ -8,6 +8,7 @@ from __future__ import annotations
 import math
 from dataclasses import replace
 
+from ..checks.shaft_modes import mode_shapes
 from .report import Fmt
 
 _STATION_KEYS = ("governing", "warnings", "static", "fatigue", "torsion", "section", "exit_code")
@@ -23,7 +24,10 @@ def add_shaft_results(out: dict, a, build_results) -> None:
         return
     lay, stations = rec["layout"], rec["stations"]
     analyses = a.extra["shaft_stations"]
-    cs = lay["critical_speeds"]
+    cs = dict(lay["critical_speeds"])
+    modes = mode_shapes(rec["shaft"], lay) if rec.get("shaft") is not None else None
+    if modes is not None:  # the shapes of the frequencies above (the report draws them)
+        cs["mode_shapes"] = modes
     d = lay["diagrams"]
     out["shaft"] = {
         "parts": lay["parts"],
@@ -54,6 +58,8 @@ def add_shaft_results(out: dict, a, build_results) -> None:
                  "checked_again": rec_st.get("checked_again", False),
                  "used_at": rec_st["loads"].get("used_at", rec_st["at"]),
                  "at_load_point": rec_st.get("at_load_point"), "extent": rec_st.get("extent"),
+                 # where along the station's feature its loads were taken, where the station record says
+                 **{k: rec_st[k] for k in ("loads_where", "governing_at") if k in rec_st},
                  "results": {k: r[k] for k in _STATION_KEYS if k in r}}
         loads.append(entry)
     out["section_loads"] = loads
