@@ -224,3 +224,23 @@ def test_no_verdict_is_said_first_for_the_whole_shaft():
     assert sentence.startswith("NO VERDICT for the shaft") and "sharp step" in sentence
     assert "2.5" not in sentence and "n = 4" not in sentence
     assert any("not computed" in x for x in other)
+
+
+def test_the_layout_report_says_where_along_each_feature_the_loads_were_and_carries_the_checklist(layout):
+    """The demo's pulley keyseat is checked at the worst loads along its 40 mm keyway (at its end toward
+    bearing A, where the belt pull's moment is largest: statics, 1800 N × 20 mm); the station table and the
+    station's own part say so. The keys, fits and bearing lives are in the report too."""
+    html, res = layout["html"], layout["res"]
+
+    def part(sid):
+        a = html.find(f'<section id="{sid}"')
+        return html[a:html.find("</section>", a)]
+
+    pulley = next(i for i, s in enumerate(res["section_loads"]) if s["name"] == "pulley keyseat")
+    st = res["section_loads"][pulley]
+    assert st["extent"] is not None and abs(st["used_at"] - 0.045) < 1e-9
+    table = part("stations")
+    assert "governing loads at z = 45 mm" in table
+    assert "governing loads at z = 45 mm" in part(f"station-{pulley + 1}")
+    chk = part("checklist")
+    assert "key pulley keyseat" in chk and "L10" in chk

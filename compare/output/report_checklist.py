@@ -22,9 +22,10 @@ def _n(v) -> str:
     return "—" if v is None else f"{v:.3g}"
 
 
-def checklist_lines(res: dict, system) -> list[str]:
-    """The lines of the checklist (no heading); empty when the case has none of it."""
-    f = Fmt(system)
+def checklist_lines(res: dict, system, fmt: Fmt | None = None) -> list[str]:
+    """The lines of the checklist (no heading); empty when the case has none of it. ``fmt``: the
+    number formatter (the layout report's writes large moments in engineering notation)."""
+    f = fmt or Fmt(system)
     sh = res.get("shaft") or {}
     lines = []
     for k in res.get("keys") or []:
@@ -145,9 +146,9 @@ def checklist_rows(res: dict, system) -> list[dict]:
     return rows
 
 
-def checklist_html(res: dict, system) -> str:
+def checklist_html(res: dict, system, fmt: Fmt | None = None) -> str:
     """The report's section: the same lines as the terminal, and the cautions."""
-    lines = checklist_lines(res, system)
+    lines = checklist_lines(res, system, fmt)
     if not lines:
         return "<p>Not given for this case (keys, fits and splines at stations, bearing ratings and torsion need a " \
                "shaft layout).</p>"

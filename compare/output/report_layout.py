@@ -140,7 +140,7 @@ def render_layout(res: dict, system, figures: list, stations: list, case_text: s
     parts["critical-speeds"] = _critical(sh) + _fig(figs, "shaft_modes")
     parts["features"] = _features(sh, f) + _fig(figs, "feature_stress")
     parts["stations"] = _station_table(res, f)
-    parts["checklist"] = checklist_html(res, system)
+    parts["checklist"] = checklist_html(res, system, f)
     parts["accuracy"] = _accuracy(res, stations, f)
     parts["materials"] = _materials(res)
     parts["assumptions"] = ASSUMPTIONS_LAYOUT
