@@ -73,8 +73,8 @@ def solve_on(case, fineness: float, size_field=None, warping: bool = False, mesh
     sr = pk = None
     if case.material.poisson is not None:
         sr = solve_shear(sm, pr, case.material.poisson)
-        Vx, Vy = case.loads.shear if case.loads.shear else (0.0, 1.0)
-        pk = shear_peak(sm, sr, Vx, Vy)
+        if case.loads.shear is not None:  # without a shear force no shear peak is reported or studied
+            pk = shear_peak(sm, sr, *case.loads.shear)
     # a mesh made earlier still counts its meshing time: later steps are predicted from this one
     made = mesh.seconds if mesh is not None else 0.0
     return Solution(sm, pr, tr, sr, pk, (fineness, size_field), time.perf_counter() - t0 + made,
