@@ -85,50 +85,65 @@ def targets(repeats: int) -> None:
           f"{' '.join(f'{c:.3f}' for c in per):>24s} {SWEEP_TARGET:7.2f}  [{e1}, {e2}]")
 
 
-#: phase -> substrings of profiled function names (file:function) whose cumulative CPU time it is
+#: phase -> the functions (module, name, at the place where they are called) whose inclusive CPU time it is
 PHASES = [
-    ("imports at start (import compare)", ["compare/__init__.py:<module>"]),
-    ("meshing (gmsh, conversion, boundary offsets)", ["fem/mesh.py:mesh_section"]),
-    ("  of which gmsh generate", ["gmsh.py:generate"]),
-    ("torsion (assembly, solve, peaks)", ["fem/torsion.py:solve_torsion", "fem/torsion.py:add_warping"]),
-    ("shear functions and shear peaks", ["fem/shear.py:solve_shear", "fem/shear.py:shear_peak"]),
-    ("  factorisations (all solves)", ["fem/linalg.py:_factorise"]),
-    ("adaptive indicator", ["compare/solve/accuracy.py:indicator"]),
-    ("study (refinement, all meshes)", ["compare/solve/accuracy.py:refine_to_accuracy"]),
-    ("checks (combined stress, fatigue)", ["compare/checks/step.py:combined_step"]),
-    ("report figures", ["compare/output/figures.py:all_figures"]),
-    ("writing the files", ["compare/cli/cmd_run.py:write_outputs"]),
+    ("meshing (gmsh, conversion, boundary offsets)", [("compare.solve.accuracy", "mesh_section")]),
+    ("torsion (assembly, solve, peaks)", [("compare.solve.accuracy", "solve_torsion")]),
+    ("warping function (final mesh of each step)", [("compare.solve.accuracy", "add_warping")]),
+    ("shear functions", [("compare.solve.accuracy", "solve_shear")]),
+    ("shear peaks (results and indicator)", [("compare.solve.accuracy", "shear_peak")]),
+    ("adaptive indicator (shear peaks included)", [("compare.solve.accuracy", "indicator")]),
+    ("study: refinement and every mesh (all of the above)", [("compare.pairs.analysis", "refine_to_accuracy")]),
+    ("checks (combined stress, fatigue)", [("compare.pipeline", "combined_step")]),
+    ("whole analysis (study, pairs, checks)", [("compare.cli.cmd_run", "analyse")]),
+    ("report figures", [("compare.output.figures", "all_figures")]),
+    ("writing the files (VTU, report text)", [("compare.cli.cmd_run", "write_outputs")]),
 ]
+
+_PHASE_CHILD = r"""
+import importlib, json, sys, time
+c0 = time.process_time()
+from compare.cli import main
+imports = time.process_time() - c0
+phases = json.loads(sys.argv[1])
+spent = {}
+
+def timed(label, fn):
+    def wrapper(*a, **k):
+        t = time.process_time()
+        try:
+            return fn(*a, **k)
+        finally:
+            spent[label] = spent.get(label, 0.0) + time.process_time() - t
+    return wrapper
+
+for label, places in phases:
+    for mod, name in places:
+        m = importlib.import_module(mod)
+        setattr(m, name, timed(label, getattr(m, name)))
+main(sys.argv[2:])
+print(json.dumps(dict(imports=imports, spent=spent, total=time.process_time())))
+"""
 
 
 def phases(case: str, extra: list[str]) -> None:
-    import cProfile
-    import pstats
-    import time
+    """Inclusive CPU seconds of each phase of one run, by timers around the named functions (no
+    profiler: its own cost would inflate the Python-heavy phases); a phase may contain another."""
+    import json
 
-    prof = Path(tempfile.mkdtemp()) / "run.prof"
-    out = prof.parent / "o"
-    code = (f"import cProfile, time, sys; sys.argv = ['shaftcheck']\n"
-            f"pr = cProfile.Profile(time.process_time); pr.enable()\n"
-            f"try:\n    from compare.cli import main\n"
-            f"    main(['run', {str(Path(case).resolve())!r}, '--out', {str(out)!r}, '--quiet', *{extra!r}])\n"
-            f"finally:\n    pr.disable(); pr.dump_stats({str(prof)!r})\n")
-    subprocess.run([sys.executable, "-c", code], cwd=ROOT, check=False)
-    stats = pstats.Stats(str(prof))
-    st, total = stats.stats, stats.total_tt
-
-    def cum(subs):
-        # the outermost call of each named function (cumulative time includes its callees)
-        return sum(max([v[3] for k, v in st.items() if s in f"{k[0]}:{k[2]}"] or [0.0]) for s in subs)
-
-    print(f"{case} {' '.join(extra)}: {total:.2f} CPU s under the profiler")
-    for label, subs in PHASES:
-        c = cum(subs)
-        print(f"  {label:46s} {c:7.2f} s {100 * c / total:5.1f} %")
-    shutil.rmtree(prof.parent, ignore_errors=True)
-    bare, _ = _cpu([sys.executable, "-c", "import compare.cli.main"])
-    print(f"  without the profiler: starting python and importing compare.cli takes {bare:.2f} CPU s")
-    del time, cProfile
+    out = Path(tempfile.mkdtemp()) / "o"
+    try:
+        p = subprocess.run([sys.executable, "-c", _PHASE_CHILD, json.dumps(PHASES), "run", str(Path(case).resolve()),
+                            "--out", str(out), "--quiet", *extra], cwd=ROOT, capture_output=True, text=True)
+    finally:
+        shutil.rmtree(out.parent, ignore_errors=True)
+    r = json.loads(p.stdout.strip().splitlines()[-1])
+    total = r["total"]
+    print(f"{case} {' '.join(extra)}: {total:.2f} CPU s in the process (exit {p.returncode})")
+    print(f"  {'imports at start (import compare.cli)':52s} {r['imports']:6.2f} s {100 * r['imports'] / total:5.1f} %")
+    for label, _ in PHASES:
+        c = r["spent"].get(label, 0.0)
+        print(f"  {label:52s} {c:6.2f} s {100 * c / total:5.1f} %")
 
 
 if __name__ == "__main__":
