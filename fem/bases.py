@@ -8,7 +8,10 @@ at a million unknowns and about a tenth of a demo case's solve time (profiled, t
 """
 from __future__ import annotations
 
+from skfem import Basis, ElementTriP2
 from skfem.element import ElementComposite, ElementVector
+
+from . import forms
 
 
 def _whole() -> list:
@@ -20,3 +23,17 @@ def interpolate(basis, w):
     if not isinstance(basis.elem, (ElementComposite, ElementVector)) and "split_indices" not in vars(basis):
         basis.split_indices = _whole
     return basis.interpolate(w)
+
+
+def centroidal_laplacian(sm, centroid) -> tuple:
+    """The P2 basis (intorder 4) on ``sm``'s mesh moved to centroidal axes, and its Laplace stiffness
+    matrix, made once per mesh and centroid and kept on ``sm``: the two shear functions and the warping
+    function are solved on this one matrix (one assembly, and with
+    :func:`fem.linalg.reuse_factorisations` one factorisation). Read, never changed."""
+    key = (float(centroid[0]), float(centroid[1]))
+    memo = sm.__dict__.setdefault("_centroidal_laplacian", {})
+    if key not in memo:
+        memo.clear()  # one centroid per mesh in practice; never keep stale matrices
+        basis = Basis(sm.mesh.translated((-key[0], -key[1])), ElementTriP2(), intorder=4)
+        memo[key] = (basis, forms.laplace.assemble(basis))
+    return memo[key]

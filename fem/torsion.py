@@ -24,7 +24,7 @@ import scipy.sparse as sp
 from skfem import Basis, ElementTriP2, FacetBasis, Functional, condense
 
 from . import forms
-from .bases import interpolate
+from .bases import centroidal_laplacian, interpolate
 from .linalg import solve_spd
 from .mesh import SectionMesh, boundary_mapping
 
@@ -194,11 +194,9 @@ def add_warping(sm: SectionMesh, tr: TorsionResult, centroid: tuple[float, float
     import time
 
     t0 = time.perf_counter()
-    cmesh = sm.mesh.translated((-centroid[0], -centroid[1]))
-    cbasis = Basis(cmesh, ElementTriP2(), intorder=4)
-    # the stiffness matrix on the centroidal mesh, as fem.shear.solve_shear assembles it: the same
-    # matrix with the same DOF fixed, so a factorisation kept by fem.linalg.reuse_factorisations serves both
-    K = forms.laplace.assemble(cbasis)
+    # the stiffness matrix on the centroidal mesh that fem.shear.solve_shear uses (made once per mesh):
+    # the same matrix with the same DOF fixed, so a factorisation kept by fem.linalg.reuse_factorisations serves both
+    cbasis, K = centroidal_laplacian(sm, centroid)
     g = forms.warping_load.assemble(cbasis)
     omega = np.zeros(tr.basis.N)
     Kc, gc, _, I = condense(K, g, D=np.array([0]))

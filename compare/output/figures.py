@@ -39,18 +39,37 @@ class Figure:
 
     def __init__(self, name: str, title: str, fig):
         self.name, self.title = name, title
-        # one layout pass for both files: the tight box is found once (at the PNG's resolution, so the
-        # PNG is what bbox_inches="tight" gives) and handed to both saves, instead of a layout per save
-        fig.dpi = matplotlib.rcParams["savefig.dpi"]
-        fig.draw_without_rendering()
+        # one raster draw for the PNG and the layout: the figure is drawn once at the PNG's resolution,
+        # the tight box found on that drawing and handed to the SVG's save, and the PNG is the drawn
+        # pixels inside the box (a second raster draw only when the box reaches past the figure)
+        dpi = matplotlib.rcParams["savefig.dpi"]
+        fig.dpi = dpi
+        fig.canvas.draw()
         box = fig.get_tightbbox(fig.canvas.get_renderer()).padded(matplotlib.rcParams["savefig.pad_inches"])
+        self.png = _png_inside(fig, box, dpi)
         buf = io.BytesIO()
         fig.savefig(buf, format="svg", bbox_inches=box, metadata={"Date": None})
         self.svg = buf.getvalue().decode("utf-8")
-        buf = io.BytesIO()
-        fig.savefig(buf, format="png", bbox_inches=box, metadata={"Software": None})
-        self.png = buf.getvalue()
         plt.close(fig)
+
+
+def _png_inside(fig, box, dpi: float) -> bytes:
+    """PNG bytes of the part of ``fig``'s last raster drawing inside ``box`` (inches), as
+    ``savefig(bbox_inches=box)`` would give it up to sub-pixel placement; when the box reaches past
+    the figure (an artist drawn outside it), the figure is saved with the box instead."""
+    from PIL import Image  # noqa: PLC0415  lazy import of a slow dependency (Pillow, with matplotlib)
+
+    rgba = np.asarray(fig.canvas.buffer_rgba())
+    rows, cols = rgba.shape[:2]
+    # savefig's size: the box's width and height in pixels, truncated; placed on the nearest pixel
+    x0, y0 = int(round(box.x0 * dpi)), int(round(box.y0 * dpi))
+    x1, y1 = x0 + int(box.width * dpi), y0 + int(box.height * dpi)
+    buf = io.BytesIO()
+    if x0 < 0 or y0 < 0 or x1 > cols or y1 > rows:
+        fig.savefig(buf, format="png", bbox_inches=box, metadata={"Software": None})
+        return buf.getvalue()
+    Image.fromarray(rgba[rows - y1:rows - y0, x0:x1]).save(buf, format="png", dpi=(dpi, dpi))
+    return buf.getvalue()
 
 
 class Geometry:

@@ -73,8 +73,8 @@ def solve_on(case, fineness: float, size_field=None, warping: bool = False, mesh
     sr = pk = None
     if case.material.poisson is not None:
         sr = solve_shear(sm, pr, case.material.poisson)
-        Vx, Vy = case.loads.shear if case.loads.shear else (0.0, 1.0)
-        pk = shear_peak(sm, sr, Vx, Vy)
+        if case.loads.shear is not None:  # without a shear force no shear peak is reported or studied
+            pk = shear_peak(sm, sr, *case.loads.shear)
     # a mesh made earlier still counts its meshing time: later steps are predicted from this one
     made = mesh.seconds if mesh is not None else 0.0
     return Solution(sm, pr, tr, sr, pk, (fineness, size_field), time.perf_counter() - t0 + made,
@@ -118,7 +118,7 @@ def indicator(sol: Solution) -> tuple[np.ndarray, np.ndarray]:
     if sol.shear is not None:
         sr = sol.shear
         for k, u in enumerate((sr.psi, sr.phi)):
-            pk = shear_peak(sol.mesh, sr, 1.0 - k, float(k)).value * sr.delta
+            pk = shear_peak(sol.mesh, sr, 1.0 - k, float(k), moment=False).value * sr.delta
             ux = sr.unit_stresses_at(sr.basis)[k]
 
             def g2(_b, ux=ux):
