@@ -174,6 +174,8 @@ def solve_spd(K: sp.spmatrix, f: np.ndarray, tol: float | None = None, direct_li
     aggregated together) and a larger ``maxiter``."""
     tol = RESIDUAL_TOL if tol is None else tol
     limit = DIRECT_LIMIT if direct_limit is None else direct_limit
+    # the direct retry is bounded in proportion when the caller lowered the direct limit (3-D fill-in)
+    retry_limit = RETRY_DIRECT_LIMIT if direct_limit is None else min(RETRY_DIRECT_LIMIT, 2 * direct_limit)
     K = sp.csr_matrix(K)
     n = K.shape[0]
     f = np.asarray(f, float)
@@ -187,11 +189,11 @@ def solve_spd(K: sp.spmatrix, f: np.ndarray, tol: float | None = None, direct_li
         if np.all(np.isfinite(x)) and r <= tol:
             _record(entry)
             return x
-        if n > RETRY_DIRECT_LIMIT:
+        if n > retry_limit:
             _record(entry)
             raise SolveError(f"the iterative solve of {n} unknowns stopped at a relative residual of {r:.1e} "
                              f"after {its} iterations (tolerance {tol:.0e}) and the system is too large "
-                             f"for the direct retry ({RETRY_DIRECT_LIMIT} unknowns)")
+                             f"for the direct retry ({retry_limit} unknowns)")
         entry.update(retried=True, iterative_residual=r, method="direct (after AMG+CG failed)")
     x = _direct(K, f, entry)
     r = relative_residual(K, x, f)
