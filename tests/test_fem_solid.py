@@ -126,3 +126,23 @@ def test_refusals_name_the_field():
     assert "features[0].z" in str(e.value.field)
     with pytest.raises(InputError):
         solid.Segment(D, 2 * D, (solid.ProfileKeyseat(8e-3, 4e-3, D * 0.8, D * 1.2, 0.0),)).check()
+
+
+@pytest.mark.parametrize("feature", [
+    solid.CrossHole(0.2 * D, 1.25 * D, chamfer=0.02 * D),
+    solid.CrossHole(0.2 * D, 1.25 * D, depth=0.4 * D),
+    solid.SledKeyseat(0.008, 0.004, 1.1 * D, 1.4 * D, 0.8 * D, 0.05 * D),
+    solid.ProfileKeyseat(0.008, 0.004, 0.9 * D, 1.6 * D, 0.05 * D),
+], ids=["chamfered hole", "blind hole", "sled-runner keyseat", "profile keyseat"])
+def test_features_are_cut_and_meshed(feature):
+    """Each feature is cut from the bar: the meshed volume is below the plain bar's πd²L/4 (exact)
+    by less than the feature's bounding box, and some lateral facets lie off the plain cylinder."""
+    seg = solid.Segment(D, 2.5 * D, (feature,))
+    sm = solid.mesh_segment(seg, fineness=0.5)
+    basis = Basis(sm.mesh, ElementTetP2(), mapping=boundary_mapping(sm.mesh))
+    vol = float(sum(basis.dx.ravel()))
+    plain = math.pi * D**2 / 4 * seg.length
+    a, b = feature.span()
+    assert 0 < plain - vol < D * D * (b - a), (plain, vol)
+    mid = sm.mesh.p[:, sm.mesh.facets[:, sm.lateral]].mean(axis=1)
+    assert np.any(np.abs(np.hypot(mid[0], mid[1]) - D / 2) > 1e-3 * D)
