@@ -140,13 +140,16 @@ def _direct(K: sp.csr_matrix, f: np.ndarray, entry: dict | None = None) -> np.nd
     return lu.solve(f)
 
 
-def _iterative(K: sp.csr_matrix, f: np.ndarray, tol: float, maxiter: int) -> tuple[np.ndarray, int]:
+def _iterative(K: sp.csr_matrix, f: np.ndarray, tol: float, maxiter: int, near_null=None,
+               blocksize: int = 1) -> tuple[np.ndarray, int]:
     import pyamg  # noqa: PLC0415
 
     state = np.random.get_state()
     try:
         np.random.seed(SEED)
-        ml = pyamg.smoothed_aggregation_solver(K, B=np.ones((K.shape[0], 1)), symmetry="hermitian")
+        B = np.ones((K.shape[0], 1)) if near_null is None else np.asarray(near_null, float)
+        A = K if blocksize == 1 else sp.bsr_matrix(K, blocksize=(blocksize, blocksize))
+        ml = pyamg.smoothed_aggregation_solver(A, B=B, symmetry="hermitian")
     finally:
         np.random.set_state(state)
     cols = [f] if f.ndim == 1 else [f[:, j] for j in range(f.shape[1])]
@@ -159,28 +162,38 @@ def _iterative(K: sp.csr_matrix, f: np.ndarray, tol: float, maxiter: int) -> tup
     return (out[0] if f.ndim == 1 else np.column_stack(out)), its
 
 
-def solve_spd(K: sp.spmatrix, f: np.ndarray, tol: float | None = None) -> np.ndarray:
+def solve_spd(K: sp.spmatrix, f: np.ndarray, tol: float | None = None, direct_limit: int | None = None,
+              near_null=None, blocksize: int = 1, maxiter: int | None = None) -> np.ndarray:
     """Solve K x = f (K SPD; ``f`` one or more columns), checked against the residual tolerance
     ``tol`` (default :data:`RESIDUAL_TOL`). Raises :class:`~fem.errors.SolveError` when no path
-    reaches it."""
+    reaches it.
+
+    Elasticity (fem/solid.py) passes its own ``direct_limit`` (3-D fill-in makes the direct path
+    costly far sooner than in 2-D), the rigid-body modes as ``near_null`` (the AMG's near-null
+    space, one column per mode, instead of the constant), ``blocksize`` = 3 (the unknowns of one node
+    aggregated together) and a larger ``maxiter``."""
     tol = RESIDUAL_TOL if tol is None else tol
+    limit = DIRECT_LIMIT if direct_limit is None else direct_limit
+    # the direct retry is bounded in proportion when the caller lowered the direct limit (3-D fill-in)
+    retry_limit = RETRY_DIRECT_LIMIT if direct_limit is None else min(RETRY_DIRECT_LIMIT, 2 * direct_limit)
     K = sp.csr_matrix(K)
     n = K.shape[0]
     f = np.asarray(f, float)
     entry = dict(n=int(n), method="direct", residual=None, iterations=None, retried=False)
-    if n > DIRECT_LIMIT:
+    if n > limit:
         entry["method"] = "AMG+CG"
-        x, its = _iterative(K, f, min(CG_TOL, tol / 10.0), MAXITER)
+        x, its = _iterative(K, f, min(CG_TOL, tol / 10.0), MAXITER if maxiter is None else maxiter,
+                            near_null, blocksize)
         r = relative_residual(K, x, f)
         entry.update(residual=r, iterations=its)
         if np.all(np.isfinite(x)) and r <= tol:
             _record(entry)
             return x
-        if n > RETRY_DIRECT_LIMIT:
+        if n > retry_limit:
             _record(entry)
             raise SolveError(f"the iterative solve of {n} unknowns stopped at a relative residual of {r:.1e} "
                              f"after {its} iterations (tolerance {tol:.0e}) and the system is too large "
-                             f"for the direct retry ({RETRY_DIRECT_LIMIT} unknowns)")
+                             f"for the direct retry ({retry_limit} unknowns)")
         entry.update(retried=True, iterative_residual=r, method="direct (after AMG+CG failed)")
     x = _direct(K, f, entry)
     r = relative_residual(K, x, f)

@@ -320,7 +320,9 @@ def ensure_warping(sol: Solution) -> None:
 #: the formal one is not trusted (common practice; Roache, Verification and Validation in
 #: Computational Science and Engineering, 1998, from memory).
 FORMAL_ORDER = {"J": 4.0, "kappa_x": 4.0, "kappa_y": 4.0, "tau_max": 2.0, "shear_tau_max": 2.0,
-                "shear_centre_x": 2.0, "shear_centre_y": 2.0}
+                "shear_centre_x": 2.0, "shear_centre_y": 2.0,
+                # peaks of the 3-D segments (solve/segments.py): P2 stresses, like tau_max
+                "kt_axial": 2.0, "kt_bending_x": 2.0, "kt_bending_y": 2.0, "kts": 2.0}
 
 #: Quantities the requested accuracy applies to (the corner value never converges and is excluded).
 TARGETED = ("J", "tau_max", "shear_tau_max", "shear_centre_x", "shear_centre_y", "kappa_x", "kappa_y")

@@ -1,0 +1,59 @@
+"""Short shaft segments with a 3-D feature (a keyseat's end, a cross hole), solved in 3-D
+(fem/solid.py) on three geometrically similar meshes.
+
+:func:`study_segment` meshes the segment at element sizes scaled by r², r and 1 (r = :data:`RATIO`,
+every size together), solves tension, bending in both planes and torsion on each, and returns per
+load the factor on the finest mesh, where its peak sits, and the three-mesh estimate of its error by
+the project's rule (:func:`compare.solve.accuracy.one_study`: formal order 2 for a peak; Roache's GCI,
+J. Fluids Eng. 116, 1994, Fs 1.25 where the observed order agrees with the formal one, else Fs 3).
+Numbers and records only.
+"""
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+from fem import solid
+
+from .accuracy import one_study
+
+#: Refinement ratio between the three meshes (Celik et al., J. Fluids Eng. 130, 2008, advise r > 1.3).
+RATIO = 1.4
+#: Results keys of the factors, per load.
+KEYS = {"tension": "kt_axial", "bending_x": "kt_bending_x", "bending_y": "kt_bending_y", "torsion": "kts"}
+
+
+@dataclass
+class SegmentStudy:
+    """The factors of one segment: ``values[key]`` on the finest mesh, ``estimates[key]`` the study
+    record (observed order, GCI as a fraction, extrapolated value, status), ``peaks[key]`` the peak's
+    place (x, y, z) [m] and whether it is on the feature, ``dofs`` per mesh (coarse to fine)."""
+
+    segment: object
+    values: dict = field(default_factory=dict)
+    estimates: dict = field(default_factory=dict)
+    peaks: dict = field(default_factory=dict)
+    dofs: list = field(default_factory=list)
+    far_field: dict = field(default_factory=dict)
+    finest: dict = field(default_factory=dict)  # load -> SolidResult on the finest mesh
+
+
+def study_segment(seg, fineness: float = 1.0, loads=solid.LOADS, E: float = 2.0e11, nu: float = 0.3,
+                  ratio: float = RATIO, local: float = 1.0) -> SegmentStudy:
+    """Three meshes (sizes ×r², ×r, ×1 at ``fineness``), every load on each; the study per factor."""
+    runs = []
+    for scale in (ratio**2, ratio, 1.0):
+        sm = solid.mesh_segment(seg, fineness=fineness, scale=scale, local=local)
+        runs.append(solid.solve_segment(sm, loads, E, nu))
+    out = SegmentStudy(seg)
+    out.dofs = [next(iter(r.values())).dofs for r in runs]
+    for load in loads:
+        key = KEYS[load]
+        vals = [runs[2][load].factor, runs[1][load].factor, runs[0][load].factor]  # fine to coarse
+        dofs = [runs[2][load].dofs, runs[1][load].dofs, runs[0][load].dofs]
+        fine = runs[2][load]
+        out.values[key] = fine.factor
+        out.estimates[key] = one_study(key, vals, dofs, (ratio, ratio), seg.d)
+        out.peaks[key] = {"at": [float(v) for v in fine.peak_at], "on_feature": fine.peak_on_feature}
+        out.far_field[key] = fine.far_field
+        out.finest[load] = fine
+    return out

@@ -1,0 +1,628 @@
+"""3-D linear elasticity of a short length of shaft with a local feature (a keyseat's end, a cross hole).
+
+A cross-section sees a keyseat as a prism; the keyseat's end and a transverse hole are 3-D features.
+Here a short segment of round shaft (a few diameters long) is built as an OpenCASCADE solid in gmsh,
+the feature cut from it by a boolean, meshed with second-order (10-node, curved) tetrahedra refined
+at the feature and solved with isoparametric P2 elements (:class:`skfem.MeshTet2`,
+``ElementVector(ElementTetP2())``; the weak form is :func:`fem.forms.elasticity`).
+
+Loads. Both end faces carry the exact displacement of the plain round bar for the load (Timoshenko &
+Goodier, Theory of Elasticity, 3rd ed., the elementary solutions of a prismatic bar: simple tension,
+pure bending, torsion of a circular shaft), with z measured from the segment's middle:
+
+* tension: u = ε(−νx, −νy, z);
+* bending about the x axis (``bending_x``, σ_zz = Eκy):  u = κ(−νxy, −(z² + ν(y² − x²))/2, yz);
+* bending about the y axis (``bending_y``, σ_zz = Eκx):  u = κ(−(z² + ν(x² − y²))/2, −νxy, xz);
+* torsion: u = θz(−y, x, 0).
+
+The segment is long enough that its ends are plain bar (a feature must stay :data:`END_ZONE`
+diameters from each end face), so the prescribed ends add no disturbance of their own at the feature.
+The force, moments and torque are the sums of the consistent nodal reactions (K·u) on one end face,
+so the nominal stresses use the load the model actually carries.
+
+Nominal stresses are those of the plain (gross) round section of diameter d: N/A, 32M/(πd³),
+16T/(πd³), with A = πd²/4 — the keyseat or hole is not deducted (handbook charts that use a net
+section are converted where they are compared). Factors: Kt = (largest principal stress)/nominal in
+tension and bending, Kts = (largest shear stress, half the largest difference of the three principal
+stresses)/nominal in torsion.
+
+Peaks are read on the boundary: the stress is evaluated from the owning element at fixed points of
+every boundary facet (its three corners, three edge midpoints and centroid), on the lateral surface
+only (the end faces carry the prescribed displacement), never as the largest interior quadrature
+value.
+
+Solver: the displacements of the end faces are eliminated; the remaining SPD system is solved
+by :func:`fem.linalg.solve_spd` — a direct factorisation up to :data:`DIRECT_LIMIT` unknowns,
+above it smoothed-aggregation AMG with the six rigid-body modes as near-null space (3×3 nodal blocks)
+preconditioning CG — every solve checked against its residual.
+
+SI throughout. Meshing is done in a scale-free frame (every length divided by d), so a scaled
+segment gets the same mesh.
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+
+import numpy as np
+import scipy.sparse as sp
+from skfem import Basis, ElementTetP2, ElementVector, FacetBasis, MeshTet2
+from skfem.mapping import MappingIsoparametric
+
+from . import forms
+from .errors import InputError, SolveError
+from .gmshload import initialize as initialize_gmsh, load_gmsh
+from .linalg import solve_spd
+from .mesh import boundary_mapping
+
+LOADS = ("tension", "bending_x", "bending_y", "torsion")
+
+#: Elements across the diameter far from the feature at fineness 1 (global size d/ACROSS).
+ACROSS = 5.0
+#: Elements per full turn of a curved feature surface at fineness 1 (gmsh's curvature sizing).
+PER_TURN = 20.0
+#: Size at the feature: its smallest radius divided by this, at fineness 1.
+PER_RADIUS = 2.5
+#: The refined zone reaches this many feature sizes (smallest radius) away from the feature before
+#: growing to the global size over :data:`GROW` diameters.
+GROW = 0.6
+#: A feature must stay this many diameters away from each end face (plain bar at the ends).
+END_ZONE = 0.75
+#: Direct factorisation up to this many unknowns (3-D fill-in is far larger than 2-D: measured
+#: with tests/benchmarks/bench_solid.py), AMG + CG above it.
+DIRECT_LIMIT = 40_000
+#: CG iteration cap (measured: 35 iterations to 1e-10 at 70k unknowns with the rigid-body modes).
+MAXITER = 600
+#: Reference points on each boundary triangle where the surface stress is read: the corners, the
+#: edge midpoints and the centroid.
+FACET_POINTS = np.array([[0.0, 1.0, 0.0, 0.5, 0.5, 0.0, 1 / 3],
+                         [0.0, 0.0, 1.0, 0.0, 0.5, 0.5, 1 / 3]])
+
+
+# ----------------------------------------------------------------------------- geometry
+
+
+@dataclass(frozen=True)
+class CrossHole:
+    """A transverse hole along the x axis crossing the shaft axis at ``z`` [m]: ``diameter`` [m];
+    ``depth`` [m] from the surface at x = +R for a blind hole (ball-ended bottom, so no sharp edge)
+    or None for a through hole; a 45° ``chamfer`` [m] (leg length along the hole axis) at each mouth."""
+
+    diameter: float
+    z: float
+    chamfer: float = 0.0
+    depth: float | None = None
+    kind = "cross_hole"
+
+    @property
+    def small(self) -> float:
+        return self.diameter / 2 if self.chamfer == 0 else min(self.diameter / 2, 2 * self.chamfer)
+
+    def span(self) -> tuple[float, float]:
+        c = self.diameter / 2 + self.chamfer
+        return self.z - c, self.z + c
+
+
+@dataclass(frozen=True)
+class ProfileKeyseat:
+    """An end-milled (profile) keyseat on the +y side from ``z0`` to ``z1`` [m] (its rounded ends
+    included: end radius = width/2, the cutter's), ``width`` and ``depth`` [m] (depth from the top
+    of the shaft, as a keyseat's t1), bottom ``fillet`` [m] (the cutter's corner radius, along the
+    walls and round the ends)."""
+
+    width: float
+    depth: float
+    z0: float
+    z1: float
+    fillet: float
+    kind = "keyseat_end"
+
+    @property
+    def small(self) -> float:
+        return self.fillet
+
+    def span(self) -> tuple[float, float]:
+        return self.z0, self.z1
+
+
+@dataclass(frozen=True)
+class SledKeyseat:
+    """A sled-runner keyseat on the +y side cut by a disk cutter of ``cutter_diameter`` [m]: full
+    depth from ``z0`` to ``z1`` [m] (the cutter's centre travel), running out along the cutter's
+    radius beyond; ``width``, ``depth`` [m] and the cutter's corner ``fillet`` [m]."""
+
+    width: float
+    depth: float
+    z0: float
+    z1: float
+    cutter_diameter: float
+    fillet: float
+    kind = "sled_runner"
+
+    @property
+    def small(self) -> float:
+        return self.fillet
+
+    def span(self) -> tuple[float, float]:
+        rc = self.cutter_diameter / 2
+        run = math.sqrt(max(rc**2 - (rc - self.depth) ** 2, 0.0))
+        return self.z0 - run, self.z1 + run
+
+
+@dataclass(frozen=True)
+class Cavity:
+    """A spherical cavity of ``radius`` [m] centred on the axis at ``z`` [m] (verification)."""
+
+    radius: float
+    z: float
+    kind = "cavity"
+
+    @property
+    def small(self) -> float:
+        return self.radius
+
+    def span(self) -> tuple[float, float]:
+        return self.z - self.radius, self.z + self.radius
+
+
+@dataclass(frozen=True)
+class Segment:
+    """A round shaft of diameter ``d`` [m] from z = 0 to ``length`` [m] with its ``features``."""
+
+    d: float
+    length: float
+    features: tuple = ()
+
+    def check(self, field_name: str = "segment") -> None:
+        R = self.d / 2
+        if not (self.d > 0 and math.isfinite(self.d)):
+            raise InputError(f"{field_name}.d", self.d, "must be a positive length")
+        if not (self.length > 2 * END_ZONE * self.d):
+            raise InputError(f"{field_name}.length", self.length,
+                             f"must exceed {2 * END_ZONE:g} diameters (plain bar at both ends)")
+        for i, f in enumerate(self.features):
+            name = f"{field_name}.features[{i}]"
+            a, b = f.span()
+            if a < END_ZONE * self.d or b > self.length - END_ZONE * self.d:
+                raise InputError(f"{name}.z", getattr(f, "z", getattr(f, "z0", None)),
+                                 f"puts the feature closer than {END_ZONE:g} diameters to an end face")
+            if isinstance(f, CrossHole):
+                if not 0 < f.diameter < self.d * 0.6:
+                    raise InputError(f"{name}.diameter", f.diameter, "must be between 0 and 0.6 of the shaft diameter")
+                if f.chamfer < 0 or f.chamfer > f.diameter / 2:
+                    raise InputError(f"{name}.chamfer", f.chamfer, "must be between 0 and the hole radius")
+                if f.depth is not None and not (f.diameter / 2 < f.depth < self.d - f.diameter / 2):
+                    raise InputError(f"{name}.depth", f.depth, "must leave the ball-ended bottom inside the shaft")
+            elif isinstance(f, (ProfileKeyseat, SledKeyseat)):
+                if not 0 < f.width < self.d:
+                    raise InputError(f"{name}.width", f.width, "must be between 0 and the shaft diameter")
+                if not 0 < f.depth < R:
+                    raise InputError(f"{name}.depth", f.depth, "must be between 0 and the shaft radius")
+                if not 0 < f.fillet < min(f.width / 2, f.depth):
+                    raise InputError(f"{name}.fillet", f.fillet,
+                                     "must be positive and below half the width and the depth (a sharp corner has no bounded peak)")
+                if isinstance(f, ProfileKeyseat) and not f.z1 - f.z0 > f.width:
+                    raise InputError(f"{name}.z1", f.z1, "must make the keyseat longer than its width")
+                if isinstance(f, SledKeyseat) and not f.cutter_diameter / 2 > f.depth:
+                    raise InputError(f"{name}.cutter_diameter", f.cutter_diameter, "must exceed twice the depth")
+            elif isinstance(f, Cavity):
+                if not 0 < f.radius < 0.4 * self.d:
+                    raise InputError(f"{name}.radius", f.radius, "must be between 0 and 0.4 of the diameter")
+
+
+def _stadium(occ, y0, hw, c0, c1):
+    """A plane stadium face at y = y0 in the x–z plane: half-width ``hw``, end-arc centres at z = c0, c1."""
+    p = [occ.addPoint(-hw, y0, c0), occ.addPoint(-hw, y0, c1), occ.addPoint(hw, y0, c1), occ.addPoint(hw, y0, c0)]
+    cc = [occ.addPoint(0, y0, c0), occ.addPoint(0, y0, c1)]
+    m = [occ.addPoint(0, y0, c0 - hw), occ.addPoint(0, y0, c1 + hw)]
+    curves = [occ.addLine(p[0], p[1]), occ.addCircleArc(p[1], cc[1], m[1]), occ.addCircleArc(m[1], cc[1], p[2]),
+              occ.addLine(p[2], p[3]), occ.addCircleArc(p[3], cc[0], m[0]), occ.addCircleArc(m[0], cc[0], p[0])]
+    return occ.addPlaneSurface([occ.addCurveLoop(curves)])
+
+
+def _side_stadium(occ, x0, y0, rc, c0, c1):
+    """A plane face at x = x0 in the y–z plane: the disk cutter's swept outline, bottom at y = y0,
+    cutter radius ``rc``, centre travel c0..c1 along z."""
+    yc = y0 + rc
+    p = [occ.addPoint(x0, y0, c0), occ.addPoint(x0, y0, c1), occ.addPoint(x0, yc + rc, c1), occ.addPoint(x0, yc + rc, c0)]
+    cc = [occ.addPoint(x0, yc, c0), occ.addPoint(x0, yc, c1)]
+    m = [occ.addPoint(x0, yc, c0 - rc), occ.addPoint(x0, yc, c1 + rc)]
+    curves = [occ.addLine(p[0], p[1]), occ.addCircleArc(p[1], cc[1], m[1]), occ.addCircleArc(m[1], cc[1], p[2]),
+              occ.addLine(p[2], p[3]), occ.addCircleArc(p[3], cc[0], m[0]), occ.addCircleArc(m[0], cc[0], p[0])]
+    return occ.addPlaneSurface([occ.addCurveLoop(curves)])
+
+
+def _tool(gmsh, f, R: float) -> list[tuple[int, int]]:
+    """The volume removed by feature ``f`` (lengths in the frame), as OpenCASCADE dim-tags."""
+    occ = gmsh.model.occ
+    if isinstance(f, Cavity):
+        return [(3, occ.addSphere(0, 0, f.z, f.radius))]
+    if isinstance(f, CrossHole):
+        a = f.diameter / 2
+        out = 2 * R + a
+        if f.depth is None:
+            tags = [(3, occ.addCylinder(-out, 0, f.z, 2 * out, 0, 0, a))]
+            mouths = (1, -1)
+        else:
+            xb = R - f.depth + a  # the ball's centre
+            tags = [(3, occ.addCylinder(xb, 0, f.z, out - xb, 0, 0, a)), (3, occ.addSphere(xb, 0, f.z, a))]
+            mouths = (1,)
+        if f.chamfer > 0:
+            c = f.chamfer
+            xs = math.sqrt(R**2 - a**2)  # where the bore meets the shaft surface at its sides
+            for s in mouths:
+                x1 = xs - c
+                tags.append((3, occ.addCone(s * x1, 0, f.z, s * (R + a - x1), 0, 0, a, a + (R + a - x1))))
+        return tags
+    if isinstance(f, ProfileKeyseat):
+        hw = f.width / 2
+        y0 = R - f.depth
+        s = _stadium(occ, y0, hw, f.z0 + hw, f.z1 - hw)
+        ext = occ.extrude([(2, s)], 0, f.depth + R, 0)
+        vol = [e for e in ext if e[0] == 3][0][1]
+        occ.synchronize()
+        bottom = [c[1] for c in gmsh.model.getBoundary([(2, s)], oriented=False)]
+        return occ.fillet([vol], bottom, [f.fillet], removeVolume=True)
+    if isinstance(f, SledKeyseat):
+        hw = f.width / 2
+        rc = f.cutter_diameter / 2
+        s = _side_stadium(occ, -hw, R - f.depth, rc, f.z0, f.z1)
+        ext = occ.extrude([(2, s)], f.width, 0, 0)
+        vol = [e for e in ext if e[0] == 3][0][1]
+        top = [e for e in ext if e[0] == 2][0]
+        occ.synchronize()
+        edges = [c[1] for c in gmsh.model.getBoundary([(2, s), top], oriented=False)]
+        return occ.fillet([vol], edges, [f.fillet], removeVolume=True)
+    raise InputError("segment.features", type(f).__name__, "is not a known feature")
+
+
+@dataclass
+class SolidMesh:
+    """A meshed segment: the :class:`skfem.MeshTet2` (metres), the segment, the global and feature
+    element sizes [m], and the boundary facets: ``ends`` (both end faces), ``lateral`` (the rest)."""
+
+    mesh: MeshTet2
+    segment: Segment
+    h: float
+    h_feature: float
+    ends: np.ndarray
+    lateral: np.ndarray
+    end1: np.ndarray  # the end face at z = length
+
+
+def _scaled(f, k: float):
+    vals = {n: (None if getattr(f, n) is None else getattr(f, n) * k) for n in f.__dataclass_fields__}
+    return type(f)(**vals)
+
+
+def mesh_segment(seg: Segment, fineness: float = 1.0, scale: float = 1.0, local: float = 1.0) -> SolidMesh:
+    """Mesh ``seg`` with curved 10-node tetrahedra: global size d/(ACROSS·fineness), at the features
+    their smallest radius/(PER_RADIUS·fineness), curvature sizing PER_TURN·fineness elements per
+    turn. ``local`` refines the feature alone further (its size and the curvature sizing divided by
+    it; the plain bar keeps its size). ``scale`` multiplies every size (the three meshes of a study:
+    scale = 1, r, r², geometrically similar)."""
+    seg.check()
+    gmsh = load_gmsh()
+    initialize_gmsh(gmsh)
+    d = seg.d
+    R = 0.5  # frame: lengths / d
+    L = seg.length / d
+    feats = [_scaled(f, 1 / d) for f in seg.features]
+    gmsh.model.add("segment")
+    try:
+        occ = gmsh.model.occ
+        gmsh.option.setNumber("General.Terminal", 0)
+        gmsh.option.setNumber("General.NumThreads", 1)
+        bar = [(3, occ.addCylinder(0, 0, 0, 0, 0, L, R))]
+        tools = []
+        for f in feats:
+            tools += _tool(gmsh, f, R)
+        if tools:
+            bar, _ = occ.cut(bar, tools)
+        occ.synchronize()
+        h = scale / (ACROSS * fineness)
+        hf = h
+        if feats:
+            hf = min(h, scale * min(f.small for f in feats) / (PER_RADIUS * fineness * local))
+            surf = []
+            for _, s in gmsh.model.getEntities(2):
+                if not _plain_surface(gmsh, s, R, L):
+                    surf.append(s)
+            fm = gmsh.model.mesh.field
+            dist = fm.add("Distance")
+            fm.setNumbers(dist, "SurfacesList", surf)
+            th = fm.add("Threshold")
+            fm.setNumber(th, "InField", dist)
+            fm.setNumber(th, "SizeMin", hf)
+            fm.setNumber(th, "SizeMax", h)
+            fm.setNumber(th, "DistMin", GROW * min(f.small for f in feats) * 2)
+            fm.setNumber(th, "DistMax", GROW * min(f.small for f in feats) * 2 + GROW * R * 2 * (1 - hf / h) + 1e-9)
+            fm.setAsBackgroundMesh(th)
+        gmsh.option.setNumber("Mesh.MeshSizeMax", h)
+        gmsh.option.setNumber("Mesh.MeshSizeMin", 0.0)
+        gmsh.option.setNumber("Mesh.MeshSizeFromCurvature", PER_TURN * fineness * local / scale)
+        gmsh.option.setNumber("Mesh.MeshSizeExtendFromBoundary", 1)
+        gmsh.option.setNumber("Mesh.ElementOrder", 2)
+        gmsh.option.setNumber("Mesh.HighOrderOptimize", 2)  # untangle curved elements
+        gmsh.option.setNumber("Mesh.SecondOrderLinear", 0)
+        gmsh.option.setNumber("Mesh.Algorithm3D", 1)
+        gmsh.model.mesh.generate(3)
+        mesh = _to_skfem(gmsh, d)
+    finally:
+        gmsh.model.remove()
+    ends, end1, lateral = _boundary_parts(mesh, seg.length)
+    return SolidMesh(mesh, seg, h * d, hf * d, ends, lateral, end1)
+
+
+def _plain_surface(gmsh, s: int, R: float, L: float) -> bool:
+    """Whether surface ``s`` (frame) is the plain bar's cylinder or an end face (sampled points)."""
+    lo, hi = gmsh.model.getParametrizationBounds(2, s)
+    uv = []
+    for a in (0.2, 0.5, 0.8):
+        for b in (0.3, 0.7):
+            uv += [lo[0] + a * (hi[0] - lo[0]), lo[1] + b * (hi[1] - lo[1])]
+    xyz = np.reshape(gmsh.model.getValue(2, s, uv), (-1, 3))
+    r = np.hypot(xyz[:, 0], xyz[:, 1])
+    return bool(np.all(np.abs(r - R) < 1e-9) or np.all(np.abs(xyz[:, 2]) < 1e-9)
+                or np.all(np.abs(xyz[:, 2] - L) < 1e-9))
+
+
+def _to_skfem(gmsh, d: float) -> MeshTet2:
+    tags, coords, _ = gmsh.model.mesh.getNodes()
+    xyz = np.reshape(coords, (-1, 3))
+    index = np.full(int(tags.max()) + 1, -1, dtype=np.int64)
+    index[tags.astype(np.int64)] = np.arange(len(tags))
+    _, enodes = gmsh.model.mesh.getElementsByType(11)  # 10-node tetrahedra
+    if len(enodes) == 0:
+        raise InputError("segment", None, "gmsh produced no second-order tetrahedra")
+    # gmsh numbers the edge nodes (01, 12, 20, 30, 32, 31); scikit-fem (01, 12, 02, 03, 13, 23)
+    t = index[np.asarray(enodes, dtype=np.int64)].reshape(-1, 10)[:, [0, 1, 2, 3, 4, 5, 6, 7, 9, 8]].T
+    used = np.unique(t)
+    remap = np.full(len(xyz), -1, dtype=np.int64)
+    remap[used] = np.arange(len(used))
+    t = remap[t]
+    p = xyz[used].T * d
+    # positive orientation: swap two vertices (and the edge nodes with them) where the volume is negative
+    a, b, c, e = (p[:, t[i]] for i in range(4))
+    vol = np.einsum("ij,ij->j", np.cross((b - a).T, (c - a).T).T, e - a)
+    neg = vol < 0
+    if np.any(neg):
+        # swap vertices 1 and 2: edges 01<->02, 13<->23, 12 stays
+        t[:, neg] = t[[0, 2, 1, 3, 6, 5, 4, 7, 9, 8]][:, neg]
+    return MeshTet2(p, t)
+
+
+def _boundary_parts(mesh, length: float):
+    bf = mesh.boundary_facets()
+    z = mesh.p[2, mesh.facets[:, bf]]
+    tol = 1e-9 * length
+    at0 = np.all(np.abs(z) < tol, axis=0)
+    at1 = np.all(np.abs(z - length) < tol, axis=0)
+    return bf[at0 | at1], bf[at1], bf[~(at0 | at1)]
+
+
+# ----------------------------------------------------------------------------- loads and solve
+
+
+def plain_bar_displacement(load: str, x, y, z, nu: float, amount: float):
+    """The exact displacement (3, ...) of the plain round bar for ``load`` (z from the middle):
+    ``amount`` is the strain ε (tension), the curvature κ [1/m] (bending) or the twist θ [rad/m]."""
+    zero = 0.0 * x
+    if load == "tension":
+        return np.array([-nu * amount * x, -nu * amount * y, amount * z])
+    if load == "bending_x":
+        k = amount
+        return np.array([-nu * k * x * y, -k * (z**2 + nu * (y**2 - x**2)) / 2, k * y * z])
+    if load == "bending_y":
+        k = amount
+        return np.array([-k * (z**2 + nu * (x**2 - y**2)) / 2, -nu * k * x * y, k * x * z])
+    if load == "torsion":
+        return np.array([-amount * z * y, amount * z * x, zero])
+    raise InputError("load", load, f"must be one of {', '.join(LOADS)}")
+
+
+def rigid_body_modes(xyz: np.ndarray) -> np.ndarray:
+    """The six rigid-body modes (n·3, 6) of nodes at ``xyz`` (3, n), components interleaved."""
+    x, y, z = xyz
+    n = xyz.shape[1]
+    B = np.zeros((n, 3, 6))
+    B[:, 0, 0] = B[:, 1, 1] = B[:, 2, 2] = 1.0
+    B[:, 0, 3], B[:, 1, 3] = -y, x
+    B[:, 1, 4], B[:, 2, 4] = -z, y
+    B[:, 0, 5], B[:, 2, 5] = z, -x
+    return B.reshape(n * 3, 6)
+
+
+@dataclass
+class SolidResult:
+    """One load on one mesh: the load carried (N [N], M [N·m] or T [N·m]), the nominal stress [Pa],
+    the factor and where it sits, the surface sample points (3, n) [m] and their stress tensors
+    (3, 3, n) [Pa], the basis and solution, the number of unknowns."""
+
+    load_case: str
+    load: float
+    nominal: float
+    factor: float
+    peak_at: np.ndarray
+    peak_on_feature: bool
+    points: np.ndarray
+    stress: np.ndarray
+    basis: object
+    x: np.ndarray
+    dofs: int
+    far_field: float
+    solves: list = field(default_factory=list)
+
+
+def _lame(E, nu):
+    return E * nu / ((1 + nu) * (1 - 2 * nu)), E / (2 * (1 + nu))
+
+
+def stiffness(basis, E: float, nu: float):
+    """The elasticity matrix of the vector P2 ``basis`` (components interleaved: unknown 3·i + a is
+    component a of scalar node i), assembled from the nine :func:`fem.forms.derivative_product`
+    blocks of the scalar basis (equal to :func:`fem.forms.elasticity`, about ten times faster)."""
+    lam, mu = _lame(E, nu)
+    sb = Basis(basis.mesh, ElementTetP2(), mapping=basis.mapping, quadrature=basis.quadrature)
+    D = {(a, b): forms.derivative_product(a, b).assemble(sb).tocoo() for a in range(3) for b in range(3)}
+    lap = D[0, 0] + D[1, 1] + D[2, 2]
+    rows, cols, vals = [], [], []
+    for a in range(3):
+        for b in range(3):
+            blk = (lam * D[b, a] + mu * D[a, b] + (mu * lap if a == b else 0.0)).tocoo()
+            rows.append(3 * blk.row + a)
+            cols.append(3 * blk.col + b)
+            vals.append(blk.data)
+    n = 3 * sb.N
+    return sp.csr_matrix((np.concatenate(vals), (np.concatenate(rows), np.concatenate(cols))), shape=(n, n))
+
+
+def solve_segment(sm: SolidMesh, loads=LOADS, E: float = 2.0e11, nu: float = 0.3) -> dict:
+    """Solve the load cases ``loads`` on the meshed segment (one matrix, one AMG set-up, one CG per
+    load); returns {load: :class:`SolidResult`}."""
+    for load_case in loads:
+        if load_case not in LOADS:
+            raise InputError("load", load_case, f"must be one of {', '.join(LOADS)}")
+    seg = sm.segment
+    d, L = seg.d, seg.length
+    basis = Basis(sm.mesh, ElementVector(ElementTetP2()), mapping=boundary_mapping(sm.mesh))
+    K = stiffness(basis, E, nu)
+    n = K.shape[0]
+    fixed = basis.get_dofs(sm.ends).all()
+    # every component of an end-face node is fixed, so the free unknowns stay in whole 3-blocks
+    loc = basis.doflocs[:, fixed]
+    comp = fixed % 3
+    free = np.setdiff1d(np.arange(n), fixed)
+    Kff = K[free][:, free].tocsr()
+    Kfc = K[free][:, fixed]
+    X = np.zeros((n, len(loads)))
+    for j, load_case in enumerate(loads):
+        amount = 1e-3 / d if load_case != "tension" else 1e-3  # any amount: the factors are ratios
+        u_ex = plain_bar_displacement(load_case, loc[0], loc[1], loc[2] - L / 2, nu, amount)
+        X[fixed, j] = u_ex[comp, np.arange(len(fixed))]
+    B = rigid_body_modes(basis.doflocs[:, free[::3]])
+    X[free] = np.reshape(solve_spd(Kff, -(Kfc @ X[fixed]), direct_limit=DIRECT_LIMIT, near_null=B, blocksize=3,
+                                   maxiter=MAXITER), (len(free), len(loads)))
+    out = {}
+    for j, load_case in enumerate(loads):
+        x = X[:, j]
+        load = _end_load(basis, K @ x, sm.end1, load_case)
+        nominal = nominal_stress(load_case, d, load)
+        pts, sig = surface_stresses(sm, basis, x, E, nu)
+        mag = stress_measure(sig, load_case)
+        keep = (pts[2] > END_ZONE * d * 0.5) & (pts[2] < L - END_ZONE * d * 0.5)
+        i = int(np.argmax(np.where(keep, mag, -np.inf)))
+        r = np.hypot(pts[0], pts[1])
+        on_feature = bool(abs(r[i] - d / 2) > 1e-6 * d)
+        far = _far_field(pts, mag, r, d, L, nominal, load_case)
+        out[load_case] = SolidResult(load_case, load, nominal, float(mag[i] / nominal), pts[:, i], on_feature,
+                                     pts, sig, basis, x, int(n), far)
+    return out
+
+
+def nominal_stress(load_case: str, d: float, load: float) -> float:
+    """Elementary stress on the surface of the plain round bar of diameter ``d``: 4N/(πd²),
+    32M/(πd³), 16T/(πd³)."""
+    if load_case == "tension":
+        return 4 * load / (math.pi * d**2)
+    if load_case.startswith("bending"):
+        return 32 * load / (math.pi * d**3)
+    return 16 * load / (math.pi * d**3)
+
+
+def _end_load(basis, reaction: np.ndarray, end1: np.ndarray, load_case: str) -> float:
+    """N, M_x, M_y or T carried through the end face z = L: sums of the nodal reactions on it."""
+    dofs = basis.get_dofs(end1)
+    rx, ry, rz = (reaction[dofs.all(f"u^{i}")] for i in (1, 2, 3))
+    xx, yy = basis.doflocs[0, dofs.all("u^1")], basis.doflocs[1, dofs.all("u^1")]
+    if load_case == "tension":
+        return float(rz.sum())
+    if load_case == "bending_x":
+        return float((yy * rz).sum())
+    if load_case == "bending_y":
+        return float((xx * rz).sum())
+    return float((xx * ry - yy * rx).sum())
+
+
+def stress_measure(sig: np.ndarray, load_case: str) -> np.ndarray:
+    """Largest principal stress (tension, bending) or largest shear stress (torsion) of the stress
+    tensors (3, 3, n)."""
+    ev = np.linalg.eigvalsh(np.moveaxis(sig, -1, 0))
+    if load_case == "torsion":
+        return (ev[:, 2] - ev[:, 0]) / 2
+    return ev[:, 2]
+
+
+def surface_stresses(sm: SolidMesh, basis, x: np.ndarray, E: float, nu: float):
+    """Points (3, n) [m] and stress tensors (3, 3, n) [Pa] at :data:`FACET_POINTS` of every lateral
+    boundary facet, each from the element that owns the facet."""
+    lam, mu = _lame(E, nu)
+    fb = _lateral_basis(sm, basis)
+    g = fb.interpolate(x).grad  # (3, 3, facets, points)
+    eps = 0.5 * (g + np.swapaxes(g, 0, 1))
+    tr = np.einsum("ii...->...", eps)
+    sig = 2 * mu * eps + lam * tr[None, None] * np.eye(3)[:, :, None, None]
+    pts = fb.global_coordinates().value
+    return pts.reshape(3, -1), sig.reshape(3, 3, -1)
+
+
+def _lateral_basis(sm: SolidMesh, basis):
+    memo = getattr(sm, "_lateral", None)
+    if memo is None or memo[0] is not basis:
+        q = (FACET_POINTS, np.full(FACET_POINTS.shape[1], 1.0 / FACET_POINTS.shape[1]))
+        fb = FacetBasis(sm.mesh, basis.elem, facets=sm.lateral, quadrature=q, mapping=_facet_mapping(sm))
+        memo = (basis, fb)
+        sm._lateral = memo
+    return memo[1]
+
+
+def _facet_mapping(sm: SolidMesh):
+    """The mesh's isoparametric mapping, told where the sample points of the lateral facets sit in
+    their elements' reference coordinates.
+
+    scikit-fem finds them by a Newton iteration clipped to the unit cube, which can stall on a
+    strongly curved tetrahedron; the answer is known exactly (a facet is a face of the reference
+    tetrahedron), so it is computed, and checked: the mapped points must be the facet's points to
+    1e-9 of the diameter, else :class:`~fem.errors.SolveError`."""
+    mesh = sm.mesh
+    facets = sm.lateral
+    tind = mesh.f2t[0, facets]
+    ref = np.array([[0.0, 1.0, 0.0, 0.0], [0.0, 0.0, 1.0, 0.0], [0.0, 0.0, 0.0, 1.0]])
+    fv = mesh.facets[:, facets]  # (3, nf) vertices of each facet, in the facet's own order
+    tv = mesh.t[:4, tind]  # (4, nf)
+    local = np.argmax(tv[None, :, :] == fv[:, None, :], axis=1)  # (3, nf): local vertex of each facet vertex
+    V = ref[:, local]  # (3 coords, 3 facet vertices, nf)
+    s_, t_ = FACET_POINTS
+    Y = (V[:, 0, :, None] + (V[:, 1] - V[:, 0])[:, :, None] * s_[None, None]
+         + (V[:, 2] - V[:, 0])[:, :, None] * t_[None, None])
+
+    class _Known(MappingIsoparametric):
+        def invF(self, x, tind=None, newton_max_iters=50, newton_tol=1e-10):
+            if tind is not None and x.shape == Y.shape and np.array_equal(tind, known_tind):
+                return Y
+            return super().invF(x, tind=tind, newton_max_iters=newton_max_iters, newton_tol=newton_tol)
+
+    known_tind = tind
+    mapping = _Known(mesh, mesh.elem(), mesh.bndelem)
+    x = mapping.G(FACET_POINTS, find=facets)
+    err = float(np.max(np.abs(mapping.F(Y, tind) - x))) if len(facets) else 0.0
+    if not err <= 1e-9 * sm.segment.d:
+        raise SolveError(f"the surface sample points do not map onto their facets (off by {err:.1e} m)")
+    return mapping
+
+
+def _far_field(pts, mag, r, d, L, nominal, load_case) -> float:
+    """Largest relative departure of the surface stress from the elementary one on the plain
+    cylinder within half a diameter of the ends (zero when the model is long enough)."""
+    near_end = (np.minimum(pts[2], L - pts[2]) < 0.5 * d) & (np.abs(r - d / 2) < 1e-6 * d)
+    if not np.any(near_end):
+        return float("nan")
+    if load_case == "bending_x":
+        ref = nominal * np.maximum(pts[1], 0) / (d / 2)
+        val = mag
+    elif load_case == "bending_y":
+        ref = nominal * np.maximum(pts[0], 0) / (d / 2)
+        val = mag
+    else:
+        ref, val = nominal, mag
+    return float(np.max(np.abs(val[near_end] - ref[near_end] if np.ndim(ref) else val[near_end] - ref)) / nominal)
