@@ -43,6 +43,8 @@ from .mesh import BOUNDARY_POINTS, boundary_mapping, gmsh_p2_mesh, threshold_fie
 ACROSS = 6.0
 #: Elements along a quarter turn of a feature arc at fineness 1.
 PER_QUARTER_ARC = 8.0
+#: Growth of the element size with the distance from a feature arc at fineness 1 (size per length).
+GRADING = 0.3
 #: Length of plain shaft kept on each side of a feature, in multiples of the larger diameter.
 SIDE_LENGTH = 5.0
 
@@ -213,7 +215,7 @@ class MeridianMesh:
         return self.mesh.boundaries.get(name, np.zeros(0, dtype=np.int64))
 
 
-def mesh_profile(profile: Profile, fineness: float = 1.0) -> MeridianMesh:
+def mesh_profile(profile: Profile, fineness: float = 1.0, arc_fineness: float | None = None) -> MeridianMesh:
     """Mesh ``profile`` with gmsh order-2 triangles, finer along the feature arcs."""
     if not (math.isfinite(fineness) and fineness > 0):
         raise InputError("analysis.fineness", fineness, "must be a positive number")
@@ -259,9 +261,13 @@ def mesh_profile(profile: Profile, fineness: float = 1.0) -> MeridianMesh:
         gmsh.option.setNumber("Mesh.MeshSizeFromCurvature", 0)
         if "fillet" in names and profile.radius > 0:
             rho = profile.radius / s
-            hmin = min(h, 0.5 * math.pi * rho / (PER_QUARTER_ARC * fineness))
-            th = threshold_field(f, hmin, h, 0.25 * rho, 0.25 * rho + (h - hmin) / 0.3, curves=names["fillet"],
-                                 sampling=100)
+            h1 = 1.0 / ACROSS
+            hmin1 = min(h1, 0.5 * math.pi * rho / PER_QUARTER_ARC)
+            # the fineness-1 size field divided by the fineness everywhere (the distances are those of
+            # fineness 1), so that the meshes of a study are refined by the same ratio everywhere
+            fa = fineness if arc_fineness is None else max(arc_fineness, fineness)
+            th = threshold_field(f, hmin1 / fa, h, 0.25 * rho, 0.25 * rho + (h - hmin1 / fa) * fa / GRADING,
+                                 curves=names["fillet"], sampling=100)
             f.setAsBackgroundMesh(th)
         gmsh.option.setNumber("Mesh.ElementOrder", 2)
         gmsh.option.setNumber("Mesh.SecondOrderLinear", 0)

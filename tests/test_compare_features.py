@@ -93,7 +93,14 @@ def test_station_on_a_shoulder_uses_the_fe_factors(coarse):
     assert "fillet radius of the feature (shaft.segments[1].fillet)" in hand["notch_radius_source"]
     assert hand["Kf"] == pytest.approx(1 + hand["q"] * (rec["kt_bending"] - 1))  # Shigley 9th ed., eq. 6-32
     pairs = [p for p in a.pairs if "shaft.segments[1].fillet" in p.quantity]
-    assert len(pairs) == 3 and all(p.ratio == pytest.approx(p.fe / p.classic) for p in pairs)
+    assert len(pairs) == 3 and all(p.ratio == pytest.approx(p.fe / p.classic) for p in pairs if p.classic is not None)
+    # the remembered tension fit runs well below the converged FE here (beyond its stated 5 %; FE studies
+    # found the shoulder charts low in tension: Tipton, Sorem & Rolovic, J. Mech. Design 118, 1996,
+    # 321-327): that pair carries no chart value and no ratio, and says which to trust
+    axial, = [p for p in pairs if p.quantity.startswith("Kt axial")]
+    assert rec["kt_axial_chart"]["disagrees_with_fe"] and rec["kt_axial_chart"]["chart_minus_fe"] < -0.05
+    assert axial.classic is None and axial.ratio is None and "the one to trust" in axial.note
+    assert not rec["kts_chart"]["disagrees_with_fe"] and not rec["kt_bending_chart"]["disagrees_with_fe"]
     res = build_results(a)
     out = res["shaft"]["features"][0]
     assert out["kt_bending"] == rec["kt_bending"] and out["kts_peak"]["angle"] is not None

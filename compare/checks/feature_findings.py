@@ -5,6 +5,8 @@
 - a feature the model cannot take (fillet larger than the step, groove radius larger than its depth);
 - the model's far-field check failed (the feature's disturbance reached the plain shaft);
 - a factor without an error estimate;
+- a factor whose meshes were not refined until its last three values converged monotonically (a
+  limit stopped it: its bound is the spread of the last three values);
 - features closer together than the plain length each model assumes (they interact; modelled alone);
 - a station on a feature whose FE path could not be taken from the feature's local stresses: its hand
   path carries the FE Kt, Kts, but its FE path is the plain round section's, which does not see the
@@ -30,6 +32,10 @@ def feature_findings(a) -> list[dict]:
             if ff is not None and not ff["passed"]:
                 out.append({"code": "feature_far_field", "field": rec["field"], "factor": key,
                             "fem": ff["fem"], "exact": ff["exact"], "tolerance": ff["tolerance"]})
+            if rec.get(f"{key}_limited"):
+                out.append({"code": "feature_refinement_limited", "field": rec["field"], "factor": key,
+                            "limited": rec[f"{key}_limited"], "bound": rec.get(f"{key}_gci"),
+                            "values": rec.get(f"{key}_values_coarse_to_fine")})
             if rec.get(key) is not None and rec.get(f"{key}_gci") is None:
                 out.append({"code": "feature_no_gci", "field": rec["field"], "factor": key,
                             "values": rec.get(f"{key}_values_coarse_to_fine")})

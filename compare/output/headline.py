@@ -88,11 +88,44 @@ def headline_rows(res: dict, system) -> list[dict]:
     if g and not g.get("no_verdict"):
         add("governing", f"lowest n ({LABELS.get(g['criterion'], g['criterion'])}, {g['path']} path)",
             "governing.factor", "dimensionless")
+    rows += feature_rows(res)
     acc = res.get("accuracy")
     if acc and acc.get("achieved") is not None:
         rows.append({"group": "accuracy", "quantity": "largest estimated error (GCI)", "value": acc["achieved"],
                      "unit": "1", "hand_value": None, "ratio": None, "source": "three-mesh study",
                      "estimated_error": None, "results_json_key": "accuracy.achieved"})
+    return rows
+
+
+_FEATURE_FACTORS = {"kt_bending": "Kt bending", "kt_axial": "Kt axial", "kts": "Kts torsion"}
+
+
+def feature_rows(res: dict) -> list[dict]:
+    """A row per FE factor of each shoulder and groove (``shaft.features``), with its error estimate. The
+    chart fit stands beside it as the hand value only where it agrees with the FE within the fit's stated
+    accuracy; elsewhere the source says that the remembered fit is off there and the FE is to be trusted
+    (no ratio is given that would make the FE look wrong)."""
+    rows = []
+    for i, ft in enumerate((res.get("shaft") or {}).get("features") or []):
+        for key, label in _FEATURE_FACTORS.items():
+            if ft.get(key) is None:
+                continue
+            ch = ft.get(f"{key}_chart") or {}
+            hand = ch.get("value")
+            if hand is not None and ch.get("disagrees_with_fe"):
+                side = "below" if ch["chart_minus_fe"] < 0 else "above"
+                source = (f"{ch['source']}: the fit gives {hand:.4g}, {abs(100 * ch['chart_minus_fe']):.0f} % {side} the "
+                          f"FE, beyond the ±{100 * ch['allowed']:.2g} % its stated accuracy and the FE's error estimate "
+                          "allow; the remembered fit is off here, trust the FE value")
+                hand = None
+            elif hand is not None:
+                source = ch["source"]
+            else:
+                source = f"no chart value ({ch.get('why')})" if ch else ""
+            rows.append({"group": "shoulders and grooves", "quantity": f"{label} at {ft['field']}", "value": ft[key],
+                         "unit": "", "hand_value": hand, "ratio": None if hand is None else ft[key] / hand,
+                         "source": source, "estimated_error": ft.get(f"{key}_gci"),
+                         "results_json_key": f"shaft.features[{i}].{key}"})
     return rows
 
 
