@@ -220,7 +220,13 @@ class MeridianMesh:
 
 
 def mesh_profile(profile: Profile, fineness: float = 1.0, arc_fineness: float | None = None) -> MeridianMesh:
-    """Mesh ``profile`` with gmsh order-2 triangles, finer along the feature arcs."""
+    """Mesh ``profile`` with gmsh order-2 triangles, finer along the feature arcs.
+
+    Near the arcs the size is the fineness-1 field (:data:`PER_QUARTER_ARC` elements per quarter turn,
+    growing by :data:`GRADING` per length away from them, up to the global ``d/ACROSS``) divided by
+    ``fineness``, so two meshes of a study differ by the fineness ratio everywhere there; beyond
+    :data:`FAR_REACH` the fineness-1 size is kept. ``arc_fineness`` (at least ``fineness``) divides the
+    arcs' field by a larger number than the global size (the finer meshes of a reference)."""
     if not (math.isfinite(fineness) and fineness > 0):
         raise InputError("analysis.fineness", fineness, "must be a positive number")
     gmsh = load_gmsh()

@@ -5,6 +5,7 @@ import json
 import pytest
 
 from compare.case.case import parse_case
+from compare.output.headline import csv_text, headline_rows
 from compare.output.report import summary
 from compare.output.results import build_results
 from compare.output.results_shaft import shaft_summary
@@ -106,6 +107,19 @@ def test_station_on_a_shoulder_uses_the_fe_factors(coarse):
     assert out["kt_bending"] == rec["kt_bending"] and out["kts_peak"]["angle"] is not None
     text = summary(res, c.units)
     assert "Shoulders and grooves" in text and "Kts torsion" in text
+    # the remembered tension fit is shown so that it cannot mislead: no FE/chart ratio beside it, the words
+    # that it is off and which value to trust, in the summary and in results.csv (the report's table reads
+    # the pair, checked above)
+    axial_line, = [ln for ln in text.splitlines() if "Kt axial" in ln and "chart" in ln]
+    assert "FE/chart" not in axial_line and "remembered fit is off here, trust the FE value" in axial_line
+    torsion_line, = [ln for ln in text.splitlines() if "Kts torsion" in ln and "chart" in ln]
+    assert "FE/chart" in torsion_line
+    rows = {r["results_json_key"]: r for r in headline_rows(res, c.units)}
+    ax, ts = rows["shaft.features[0].kt_axial"], rows["shaft.features[0].kts"]
+    assert ax["value"] == rec["kt_axial"] and ax["hand_value"] is None and ax["ratio"] is None
+    assert "trust the FE value" in ax["source"] and ax["estimated_error"] == rec["kt_axial_gci"]
+    assert ts["hand_value"] == rec["kts_chart"]["value"] and ts["ratio"] == pytest.approx(rec["kts"] / ts["hand_value"])
+    assert "shaft.features[0].kt_axial" in csv_text(headline_rows(res, c.units))
     assert not any(w["code"] == "feature_station_fe_path" for w in res["warnings"])  # FE path from the fillet
 
 
