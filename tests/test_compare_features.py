@@ -1,12 +1,16 @@
 """Shoulders and grooves of [shaft]: features found along the shaft, the FE factors beside the
 Table 17.1 fits, handed to the stations on them, written to results and the summary."""
 import json
+import time
+from types import SimpleNamespace
 
 import pytest
 
 from compare.case.case import parse_case
 from compare.output.headline import csv_text, headline_rows
-from compare.output.report import summary
+from compare.checks.feature_findings import feature_findings
+from compare.output.report import Fmt, summary
+from compare.output.report_features import feature_warning_text
 from compare.output.results import build_results
 from compare.output.results_shaft import shaft_summary
 from compare.pairs.feature_step import chart_value
@@ -283,3 +287,37 @@ def test_factors_only_with_a_sharp_shoulder_has_no_verdict():
     assert res["exit_code"] == 4 and res["shaft"]["features"][0]["skipped"] == "sharp_shoulder"
     assert res["warnings"][0]["code"] == "feature_sharp_shoulder"
     assert summary(res, c.units).splitlines()[3].startswith("WARNING: NO FACTOR AT A SHARP SHOULDER")
+
+
+def test_error_bound_follows_the_section_studys_rule():
+    # GCI = Fs·|f1 − f2|/|f1|/(r^p − 1) (Roache, J. Fluids Eng. 116, 1994, 405-413); Fs 1.25 at the formal
+    # order 2 where the observed one is within 10 % of it, else Fs 3 with p limited to [0.5, 2] (Oberkampf &
+    # Roy, Verification and Validation in Scientific Computing, 2010, Sec. 8.6; from memory)
+    e = features.error_bound([1.016, 1.004, 1.001], 2.0)  # differences 0.012, 0.003: order 2 exactly
+    assert e["kind"] == "gci" and e["order"] == pytest.approx(2.0) and e["safety_factor"] == 1.25
+    assert e["bound"] == pytest.approx(1.25 * 0.003 / 1.001 / 3)
+    e = features.error_bound([1.016, 1.008, 1.004], 2.0)  # order 1: Fs 3 at order 1
+    assert e["safety_factor"] == 3.0 and e["order_used"] == pytest.approx(1.0)
+    assert e["bound"] == pytest.approx(3 * 0.004 / 1.004 / 1)
+    e = features.error_bound([1.016, 1.0, 0.9999375], 2.0)  # order 8 (runaway): formal order, last change
+    assert e["order"] == pytest.approx(8.0) and e["order_used"] == 2.0  # taken no smaller than 0.016/2²
+    assert e["bound"] == pytest.approx(3 * (0.016 / 4) / 0.9999375 / 3)
+    e = features.error_bound([1.5, 1.4, 1.45], 2.0)  # oscillating: 3 × the spread from the finest
+    assert e["kind"] == "spread" and e["bound"] == pytest.approx(3 * 0.05 / 1.45) and not e["converged"]
+
+
+def test_refinement_continues_until_monotone_and_stops_at_a_limit_saying_so(monkeypatch):
+    kts = {1.0: 1.50, 2.0: 1.40, 4.0: 1.45, 8.0: 1.43, 16.0: 1.425}  # oscillating, then monotone at order 2
+    monkeypatch.setattr(features.axisym, "solve_profile",
+                        lambda mm, load, E, nu: SimpleNamespace(kt=kts[mm], dofs=int(1000 * mm**2)))
+    t0 = time.perf_counter()
+    _, fns, est, limited = features._refined(lambda fn: fn, "torsion", (1.0, 2.0, 4.0), 0.3, 10**9, None, t0)
+    assert fns == [1.0, 2.0, 4.0, 8.0, 16.0] and est["converged"] and limited is None
+    _, fns, est, limited = features._refined(lambda fn: fn, "torsion", (1.0, 2.0, 4.0), 0.3, 20000, None, t0)
+    assert fns == [1.0, 2.0, 4.0] and est["kind"] == "spread" and "analysis.max_dofs = 20000" in limited
+    rec = {"field": "shaft.grooves[0]", "kts": 1.45, "kts_gci": est["bound"], "kts_limited": limited,
+           "kts_values_coarse_to_fine": [1.5, 1.4, 1.45], "notes": []}
+    w, = feature_findings(SimpleNamespace(extra={"shaft": {"features": [rec]}}))
+    assert w["code"] == "feature_refinement_limited"
+    text = feature_warning_text(w, Fmt(parse_case(BASE | {"section": {"shape": "round", "diameter": 30}}).units))
+    assert text.startswith("FEATURE FACTOR NOT SHOWN CONVERGED") and "analysis.max_dofs = 20000" in text
