@@ -320,4 +320,4 @@ def test_refinement_continues_until_monotone_and_stops_at_a_limit_saying_so(monk
     w, = feature_findings(SimpleNamespace(extra={"shaft": {"features": [rec]}}))
     assert w["code"] == "feature_refinement_limited"
     text = feature_warning_text(w, Fmt(parse_case(BASE | {"section": {"shape": "round", "diameter": 30}}).units))
-    assert text.startswith("FEATURE FACTOR NOT SHOWN CONVERGED") and "analysis.max_dofs = 20000" in text
+    assert text.startswith("FEATURE FACTOR BOUNDED BY ITS SPREAD") and "analysis.max_dofs = 20000" in text

@@ -74,7 +74,7 @@ def feature_warning_text(w: dict, f) -> str | None:
         return (f"NO ERROR ESTIMATE: {w['field']}, {_NAMES.get(w['factor'], w['factor'])}: the three meshes gave "
                 f"{w['values']}; the factor carries an unknown discretisation error.")
     if code == "feature_refinement_limited":
-        return (f"FEATURE FACTOR NOT SHOWN CONVERGED: {w['field']}, {_NAMES.get(w['factor'], w['factor'])}: the meshes "
+        return (f"FEATURE FACTOR BOUNDED BY ITS SPREAD: {w['field']}, {_NAMES.get(w['factor'], w['factor'])}: the meshes "
                 f"gave {', '.join(f'{v:.5f}' for v in w['values'])}, which do not converge monotonically, and refining "
                 f"further was stopped ({w['limited']}); its error bound ({_pct(w['bound'])}) is three times the spread of "
                 "the last three values, not a convergence estimate.")
