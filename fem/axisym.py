@@ -45,10 +45,6 @@ ACROSS = 6.0
 PER_QUARTER_ARC = 8.0
 #: Growth of the element size with the distance from a feature arc at fineness 1 (size per length).
 GRADING = 0.3
-#: Distances from a feature arc, in larger diameters, between which the element size grows from the
-#: fineness's global size back to the fineness-1 one (the plain bar's solution beyond, exact in P2;
-#: 1.5 larger diameters from a feature its disturbance is below 5e-4, compare/solve/features.py).
-FAR_REACH = (1.5, 3.0)
 #: Length of plain shaft kept on each side of a feature, in multiples of the larger diameter.
 SIDE_LENGTH = 5.0
 
@@ -224,9 +220,10 @@ def mesh_profile(profile: Profile, fineness: float = 1.0, arc_fineness: float | 
 
     Near the arcs the size is the fineness-1 field (:data:`PER_QUARTER_ARC` elements per quarter turn,
     growing by :data:`GRADING` per length away from them, up to the global ``d/ACROSS``) divided by
-    ``fineness``, so two meshes of a study differ by the fineness ratio everywhere there; beyond
-    :data:`FAR_REACH` the fineness-1 size is kept. ``arc_fineness`` (at least ``fineness``) divides the
-    arcs' field by a larger number than the global size (the finer meshes of a reference)."""
+    ``fineness``, so two meshes of a study differ by the fineness ratio everywhere. ``arc_fineness``
+    (at least ``fineness``) divides the arcs' field by a larger number than the global size (the finer
+    meshes of a reference). (Keeping the fineness-1 size beyond 1.5-3 larger diameters from the feature
+    was tried: it changed the factors by up to 5e-4 without converging, so the whole model is refined.)"""
     if not (math.isfinite(fineness) and fineness > 0):
         raise InputError("analysis.fineness", fineness, "must be a positive number")
     gmsh = load_gmsh()
@@ -278,19 +275,6 @@ def mesh_profile(profile: Profile, fineness: float = 1.0, arc_fineness: float | 
             fa = fineness if arc_fineness is None else max(arc_fineness, fineness)
             th = threshold_field(f, hmin1 / fa, h, 0.25 * rho, 0.25 * rho + (h - hmin1 / fa) * fa / GRADING,
                                  curves=names["fillet"], sampling=100)
-            big = profile.params.get("D", profile.d) / s
-            if fineness > 1 and FAR_REACH[1] * big < profile.length / s / 2:
-                # far from the feature the solution is the plain bar's (linear or quadratic in r and z),
-                # which P2 elements reproduce exactly: the fineness-1 size is kept there
-                f.remove(th)
-                th = threshold_field(f, hmin1 / fa, h1, 0.25 * rho, 0.25 * rho + (h1 - hmin1 / fa) * fa / GRADING,
-                                     curves=names["fillet"], sampling=100)
-                far = threshold_field(f, h, h1, FAR_REACH[0] * big, FAR_REACH[1] * big, curves=names["fillet"],
-                                      sampling=100)
-                both = f.add("Min")
-                f.setNumbers(both, "FieldsList", [th, far])
-                gmsh.option.setNumber("Mesh.MeshSizeMax", h1)
-                th = both
             f.setAsBackgroundMesh(th)
         gmsh.option.setNumber("Mesh.ElementOrder", 2)
         gmsh.option.setNumber("Mesh.SecondOrderLinear", 0)
