@@ -321,7 +321,9 @@ def test_refinement_continues_until_monotone_and_stops_at_a_limit_saying_so(monk
     assert fns == [1.0, 2.0, 4.0] and est["kind"] == "spread" and "analysis.max_dofs = 20000" in limited
     rec = {"field": "shaft.grooves[0]", "kts": 1.45, "kts_gci": est["bound"], "kts_limited": limited,
            "kts_values_coarse_to_fine": [1.5, 1.4, 1.45], "notes": []}
-    w, = feature_findings(SimpleNamespace(extra={"shaft": {"features": [rec]}}))
+    w, = feature_findings(SimpleNamespace(extra={"shaft": {"features": [rec]}}))  # bound 10 %: above 1e-3
     assert w["code"] == "feature_refinement_limited"
+    small = {**rec, "kts_gci": 5e-4}  # a spread bound within the default target 1e-3: the record says it, no warning
+    assert feature_findings(SimpleNamespace(extra={"shaft": {"features": [small]}})) == []
     text = feature_warning_text(w, Fmt(parse_case(BASE | {"section": {"shape": "round", "diameter": 30}}).units))
     assert text.startswith("FEATURE FACTOR BOUNDED BY ITS SPREAD") and "analysis.max_dofs = 20000" in text
