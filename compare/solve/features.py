@@ -205,8 +205,8 @@ def error_bound(kts: list[float], ratio: float, formal: float = FORMAL_ORDER, or
         # in the asymptotic range (see ORDER_LIMIT): Fs 3 always and the order limited to [0.5, ORDER_LIMIT]
         p, fs = min(max(p_obs, 0.5), formal, order_limit), FS_OSCILLATORY
         e21 = abs(f1 - f2)
-        why = (f"observed order {p_obs:.3g}; the meshes are not shown to be in the asymptotic range: "
-               f"Fs {fs:g} at order {p:.3g}")
+        why = ("the meshes are not shown to be in the asymptotic range: Fs 3 at the observed order limited to "
+               "[0.5, ORDER_LIMIT]")
         if p_obs > 1.1 * formal:
             # a runaway order: the last two meshes agree better than the method's order explains (an
             # error crossing zero): the last change is taken no smaller than the one before it reduced
