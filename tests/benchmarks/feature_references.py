@@ -5,7 +5,7 @@ feature arcs than the study's (global fineness :data:`REF_FINENESS`, the arcs an
 arc fineness :data:`REF_ARC_FINENESS`: the fineness-1 size field there divided by that number), and the
 reference is the Richardson extrapolation of that sequence (classic/gci.py) with its own GCI (Fs = 3,
 the order limited to [0.5, 2]) as its uncertainty. Prints the sequences and writes
-tests/data/feature_references.json, which tests/test_compare_feature_coverage.py reads (it recomputes
+tests/data/feature_references.json, which tests/test_compare_features_coverage.py reads (it recomputes
 one reference on the fly). Slow (minutes, some solves reach 10^6 unknowns); not part of pytest.
 
     python tests/benchmarks/feature_references.py [--out PATH] [NAME ...]
