@@ -43,6 +43,8 @@ from .mesh import BOUNDARY_POINTS, boundary_mapping, gmsh_p2_mesh, threshold_fie
 ACROSS = 6.0
 #: Elements along a quarter turn of a feature arc at fineness 1.
 PER_QUARTER_ARC = 8.0
+#: Growth of the element size with the distance from a feature arc at fineness 1 (size per length).
+GRADING = 0.3
 #: Length of plain shaft kept on each side of a feature, in multiples of the larger diameter.
 SIDE_LENGTH = 5.0
 
@@ -213,8 +215,15 @@ class MeridianMesh:
         return self.mesh.boundaries.get(name, np.zeros(0, dtype=np.int64))
 
 
-def mesh_profile(profile: Profile, fineness: float = 1.0) -> MeridianMesh:
-    """Mesh ``profile`` with gmsh order-2 triangles, finer along the feature arcs."""
+def mesh_profile(profile: Profile, fineness: float = 1.0, arc_fineness: float | None = None) -> MeridianMesh:
+    """Mesh ``profile`` with gmsh order-2 triangles, finer along the feature arcs.
+
+    Near the arcs the size is the fineness-1 field (:data:`PER_QUARTER_ARC` elements per quarter turn,
+    growing by :data:`GRADING` per length away from them, up to the global ``d/ACROSS``) divided by
+    ``fineness``, so two meshes of a study differ by the fineness ratio everywhere. ``arc_fineness``
+    (at least ``fineness``) divides the arcs' field by a larger number than the global size (the finer
+    meshes of a reference). (Keeping the fineness-1 size beyond 1.5-3 larger diameters from the feature
+    was tried: it changed the factors by up to 5e-4 without converging, so the whole model is refined.)"""
     if not (math.isfinite(fineness) and fineness > 0):
         raise InputError("analysis.fineness", fineness, "must be a positive number")
     gmsh = load_gmsh()
@@ -259,9 +268,13 @@ def mesh_profile(profile: Profile, fineness: float = 1.0) -> MeridianMesh:
         gmsh.option.setNumber("Mesh.MeshSizeFromCurvature", 0)
         if "fillet" in names and profile.radius > 0:
             rho = profile.radius / s
-            hmin = min(h, 0.5 * math.pi * rho / (PER_QUARTER_ARC * fineness))
-            th = threshold_field(f, hmin, h, 0.25 * rho, 0.25 * rho + (h - hmin) / 0.3, curves=names["fillet"],
-                                 sampling=100)
+            h1 = 1.0 / ACROSS
+            hmin1 = min(h1, 0.5 * math.pi * rho / PER_QUARTER_ARC)
+            # the fineness-1 size field divided by the fineness everywhere (the distances are those of
+            # fineness 1), so that the meshes of a study are refined by the same ratio everywhere
+            fa = fineness if arc_fineness is None else max(arc_fineness, fineness)
+            th = threshold_field(f, hmin1 / fa, h, 0.25 * rho, 0.25 * rho + (h - hmin1 / fa) * fa / GRADING,
+                                 curves=names["fillet"], sampling=100)
             f.setAsBackgroundMesh(th)
         gmsh.option.setNumber("Mesh.ElementOrder", 2)
         gmsh.option.setNumber("Mesh.SecondOrderLinear", 0)

@@ -116,7 +116,7 @@ def test_results_csv_rows_per_station_and_feature(layout):
     assert len(st) == len(res["section_loads"])
     for r in st:
         assert float(r["value"]) == pytest.approx(_get(res, r["results_json_key"]), rel=1e-12)
-    ft = [r for r in rows if r["group"] == "feature"]
+    ft = [r for r in rows if r["group"] == "shoulders and grooves"]
     n = sum(1 for f in res["shaft"]["features"] for k in ("kt_bending", "kts", "kt_axial") if f.get(k) is not None)
     assert len(ft) == n
     for r in ft:

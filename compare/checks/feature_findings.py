@@ -5,6 +5,9 @@
 - a feature the model cannot take (fillet larger than the step, groove radius larger than its depth);
 - the model's far-field check failed (the feature's disturbance reached the plain shaft);
 - a factor without an error estimate;
+- a factor whose meshes were not refined until its last three values converged monotonically (a
+  limit stopped it: its bound is the spread of the last three values) and whose bound exceeds the
+  case's accuracy target;
 - features closer together than the plain length each model assumes (they interact; modelled alone);
 - a station on a feature whose FE path could not be taken from the feature's local stresses: its hand
   path carries the FE Kt, Kts, but its FE path is the plain round section's, which does not see the
@@ -16,10 +19,17 @@ from ..pairs.analysis import Analysis
 from ..pairs.feature_step import attach_features
 from .findings import EXIT_NO_VERDICT
 
+#: accuracy target where the analysis gives none (compare.case.case.Analysis.accuracy's default)
+DEFAULT_TARGET = 1e-3
+
 
 def feature_findings(a) -> list[dict]:
     out: list[dict] = []
     feats = (a.extra.get("shaft") or {}).get("features") or []
+    # a spread bound within the case's accuracy target needs no warning (the record and the summary
+    # still say that the refinement was stopped)
+    analysis = getattr(getattr(a, "case", None), "analysis", None)
+    target = getattr(analysis, "accuracy", None) or DEFAULT_TARGET
     for rec in feats:
         if rec.get("skipped"):
             out.append({"code": f"feature_{rec['skipped']}", "field": rec["field"], "at": rec["at"],
@@ -30,6 +40,10 @@ def feature_findings(a) -> list[dict]:
             if ff is not None and not ff["passed"]:
                 out.append({"code": "feature_far_field", "field": rec["field"], "factor": key,
                             "fem": ff["fem"], "exact": ff["exact"], "tolerance": ff["tolerance"]})
+            if rec.get(f"{key}_limited") and (rec.get(f"{key}_gci") is None or rec[f"{key}_gci"] > target):
+                out.append({"code": "feature_refinement_limited", "field": rec["field"], "factor": key,
+                            "limited": rec[f"{key}_limited"], "bound": rec.get(f"{key}_gci"),
+                            "values": rec.get(f"{key}_values_coarse_to_fine")})
             if rec.get(key) is not None and rec.get(f"{key}_gci") is None:
                 out.append({"code": "feature_no_gci", "field": rec["field"], "factor": key,
                             "values": rec.get(f"{key}_values_coarse_to_fine")})

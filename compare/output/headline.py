@@ -116,6 +116,7 @@ def headline_rows(res: dict, system) -> list[dict]:
         if ext["governing"]["factor"] is not None:
             add("stations", f"{name}: lowest n along its feature ({LABELS.get(crit, crit)})",
                 f"section_loads[{i}].extent.governing.factor", "dimensionless")
+    rows += feature_rows(res)
     acc = res.get("accuracy")
     if acc and acc.get("achieved") is not None:
         rows.append({"group": "accuracy", "quantity": "largest estimated error (GCI)", "value": acc["achieved"],
@@ -150,16 +151,7 @@ def layout_rows(res: dict, system) -> list[dict]:
         elif gov.get("factor") is not None:
             row("station", f"{who}: lowest n ({LABELS.get(gov['criterion'], gov['criterion'])}, {gov['path']} path)",
                 gov["factor"], "dimensionless", f"section_loads[{i}].results.governing.factor")
-    for j, r in enumerate(sh.get("features") or []):
-        if r.get("skipped"):
-            continue
-        for key, name in (("kt_bending", "Kt bending"), ("kts", "Kts torsion"), ("kt_axial", "Kt tension")):
-            if r.get(key) is None:
-                continue
-            ch = r.get(f"{key}_chart") or {}
-            row("feature", f"{r['kind']} at {f.q(r['at'], 'length', 5)}: {name} (FE; chart beside)", r[key],
-                "dimensionless", f"shaft.features[{j}].{key}", ch.get("value"), ch.get("source") or "",
-                r.get(f"{key}_gci"))
+    # the shoulder and groove factors have their rows in headline_rows (feature_rows), chart wording included
     for i, rc in enumerate(sh.get("reactions") or []):
         row("reaction", f"|F| at support {rc['name'] or i + 1}", rc["F"], "force", f"shaft.reactions[{i}].F")
     if sh.get("max_deflection"):
@@ -171,6 +163,38 @@ def layout_rows(res: dict, system) -> list[dict]:
     if cs.get("values"):
         row("critical speed", "first critical speed (beam model; Rayleigh as hand value)", cs["values"][0] * 60 / (2 * 3.141592653589793),
             "rpm", "shaft.critical_speeds.values[0]", cs["rayleigh"] * 60 / (2 * 3.141592653589793), cs["rayleigh_source"])
+    return rows
+
+
+_FEATURE_FACTORS = {"kt_bending": "Kt bending", "kt_axial": "Kt axial", "kts": "Kts torsion"}
+
+
+def feature_rows(res: dict) -> list[dict]:
+    """A row per FE factor of each shoulder and groove (``shaft.features``), with its error estimate. The
+    chart fit stands beside it as the hand value only where it agrees with the FE within the fit's stated
+    accuracy; elsewhere the source says that the remembered fit is off there and the FE is to be trusted
+    (no ratio is given that would make the FE look wrong)."""
+    rows = []
+    for i, ft in enumerate((res.get("shaft") or {}).get("features") or []):
+        for key, label in _FEATURE_FACTORS.items():
+            if ft.get(key) is None:
+                continue
+            ch = ft.get(f"{key}_chart") or {}
+            hand = ch.get("value")
+            if hand is not None and ch.get("disagrees_with_fe"):
+                side = "below" if ch["chart_minus_fe"] < 0 else "above"
+                source = (f"{ch['source']}: the fit gives {hand:.4g}, {abs(100 * ch['chart_minus_fe']):.0f} % {side} the "
+                          f"FE, beyond the ±{100 * ch['allowed']:.2g} % its stated accuracy and the FE's error estimate "
+                          "allow; the remembered fit is off here, trust the FE value")
+                hand = None
+            elif hand is not None:
+                source = ch["source"]
+            else:
+                source = f"no chart value ({ch.get('why')})" if ch else ""
+            rows.append({"group": "shoulders and grooves", "quantity": f"{label} at {ft['field']}", "value": ft[key],
+                         "unit": "", "hand_value": hand, "ratio": None if hand is None else ft[key] / hand,
+                         "source": source, "estimated_error": ft.get(f"{key}_gci"),
+                         "results_json_key": f"shaft.features[{i}].{key}"})
     return rows
 
 

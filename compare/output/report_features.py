@@ -25,14 +25,28 @@ def feature_lines(res: dict, f) -> list[str]:
             continue
         for key, name in _NAMES.items():
             ch = r.get(f"{key}_chart") or {}
-            chart = (f"chart {ch['value']:.3f}, FE/chart {r[key] / ch['value']:.3f}" if ch.get("value") is not None
-                     else f"no chart value ({_WHY.get(ch.get('why'), ch.get('why'))})")
+            chart = _chart_text(r[key], ch)
             pk = r.get(f"{key}_peak") or {}
             ang = f", {pk['angle']:.0f}° round the arc" if pk.get("angle") is not None else ""
             bound = "GCI" if r.get(f"{key}_gci_kind") == "gci" else "error bound"
             lines.append(f"      {name:<12} FE {r[key]:.3f} ({bound} {_pct(r.get(f'{key}_gci'))}), {chart}; "
                          f"peak at {f.q(pk.get('at'), 'length', 5)}{ang}")
+            if r.get(f"{key}_limited"):
+                lines.append(f"      {'':<12} refinement stopped: {r[f'{key}_limited']}")
     return lines
+
+
+def _chart_text(fe: float, ch: dict) -> str:
+    """The chart beside the FE factor: the ratio where the fit agrees within its stated accuracy; where
+    it does not, the words that the remembered fit is off there and the FE is the one to trust."""
+    if ch.get("value") is None:
+        return f"no chart value ({_WHY.get(ch.get('why'), ch.get('why'))})"
+    if ch.get("disagrees_with_fe"):
+        side = "below" if ch["chart_minus_fe"] < 0 else "above"
+        return (f"chart {ch['value']:.3f} is {abs(100 * ch['chart_minus_fe']):.0f} % {side} the FE, beyond the "
+                f"±{100 * (ch['allowed'] or 0):.2g} % the fit's stated accuracy and the FE's error estimate allow: "
+                "the remembered fit is off here, trust the FE value")
+    return f"chart {ch['value']:.3f}, FE/chart {fe / ch['value']:.3f}"
 
 
 _SKIP = {"sharp_shoulder": "no fillet radius given; a sharp shoulder has an unbounded elastic stress",
@@ -59,6 +73,11 @@ def feature_warning_text(w: dict, f) -> str | None:
     if code == "feature_no_gci":
         return (f"NO ERROR ESTIMATE: {w['field']}, {_NAMES.get(w['factor'], w['factor'])}: the three meshes gave "
                 f"{w['values']}; the factor carries an unknown discretisation error.")
+    if code == "feature_refinement_limited":
+        return (f"FEATURE FACTOR BOUNDED BY ITS SPREAD: {w['field']}, {_NAMES.get(w['factor'], w['factor'])}: the meshes "
+                f"gave {', '.join(f'{v:.5f}' for v in w['values'])}, which do not converge monotonically, and refining "
+                f"further was stopped ({w['limited']}); its error bound ({_pct(w['bound'])}) is three times the spread of "
+                "the last three values, not a convergence estimate.")
     if code == "feature_neighbours":
         return (f"FEATURES INTERACT: {w['field']} has {', '.join(w['neighbours'])} within {f.q(w['length'], 'length', 3)}; "
                 "each is modelled alone on a plain shaft, so their factors ignore each other.")

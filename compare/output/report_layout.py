@@ -218,6 +218,10 @@ _FEATURE_FACTORS = (("kt_bending", "Kt bending"), ("kts", "Kts torsion"), ("kt_a
 
 def _status(ch: dict) -> str:
     """The chart value's status as the record holds it (a 'status' text where given, else valid or why)."""
+    if ch.get("disagrees_with_fe"):  # the remembered fit is off here (compare/pairs/feature_step.py)
+        side = "below" if ch["chart_minus_fe"] < 0 else "above"
+        return (f"the fit is {abs(100 * ch['chart_minus_fe']):.0f} % {side} the FE, beyond its stated ±{100 * ch['allowed']:.2g} % "
+                "and the FE's estimate: the remembered fit is off here, trust the FE value")
     if ch.get("status"):
         return str(ch["status"])
     if ch.get("value") is None:
@@ -248,8 +252,8 @@ def _features(sh: dict, f: Fmt) -> str:
             chart = ch.get("value")
             if ch.get("source") and ch["source"] not in sources:
                 sources.append(ch["source"])
-            rows.append((where, size, name, f"{r[key]:.4g}", err, _num(chart, 4),
-                         "—" if chart is None else f"{r[key] / chart:.3g}", _status(ch)))
+            ratio = "—" if chart is None or ch.get("disagrees_with_fe") else f"{r[key] / chart:.3g}"  # no ratio that makes the FE look wrong
+            rows.append((where, size, name, f"{r[key]:.4g}", err, _num(chart, 4), ratio, _status(ch)))
     out = _table(("feature", "geometry", "factor", "FE", "estimated error", "chart", "FE / chart", "chart status"), rows,
                  numeric=(3, 4, 5, 6))
     if sources:

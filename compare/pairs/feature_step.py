@@ -6,7 +6,9 @@ For each feature of ``[shaft]`` (compare/solve/features.py) this step stores a r
 bending and tension and Kts in torsion with their GCIs and peak places, and the chart values with
 their source and validity), adds a :class:`~compare.pairs.pairs.Pair` per load (FE beside the
 Roark Table 17.1 fit; ``kind='factor'``: a fit is no exact solution, so no tolerance applies and
-the ratio is reported as the chart's difference from the converged FE), and fills the ``kt`` of
+the ratio is reported as the chart's difference from the converged FE; where the fit is further from
+the FE than its stated accuracy, classic.notch_fits.ACCURACY, plus the FE's error estimate, the pair
+has no chart value and no ratio and says that the fit is off there), and fills the ``kt`` of
 every station that sits on a feature, so the station's fatigue check uses the FE factors with the
 notch sensitivity at the feature's radius. Outside a fit's h/r range the chart value is None and
 the record says so; nothing is extrapolated.
@@ -22,7 +24,10 @@ from .pairs import Pair
 #: Which of our loads is which key of results.json / the station check.
 KEYS = {"bending": "kt_bending", "tension": "kt_axial", "torsion": "kts"}
 STATION_KEYS = {"bending": "kt_bending", "torsion": "kts_torsion", "tension": "kt_axial"}
-FE_SOURCE = "FE, axisymmetric model of the meridian section (three meshes, GCI)"
+DISAGREES_NOTE = ("the published curve fit (coefficients from memory) disagrees with this FE value by more than "
+                  "the fit's stated accuracy plus the FE's error estimate: the fit is off here and the FE value, "
+                  "with its error estimate, is the one to trust (the chart value is in shaft.features)")
+FE_SOURCE = "FE, axisymmetric model of the meridian section (three or more meshes, GCI)"
 
 
 def chart_value(f: Feature, load: str) -> dict:
@@ -47,6 +52,19 @@ def chart_value(f: Feature, load: str) -> dict:
     return rec
 
 
+def judge_chart(ch: dict, fe: float | None, gci: float | None) -> dict:
+    """``ch`` with ``chart_minus_fe`` ((chart − FE)/FE), ``allowed`` (the fit's stated accuracy plus the
+    FE's error estimate) and ``disagrees_with_fe``: the fit is further from the converged FE than that,
+    so the fit (coefficients from memory) is off there and the FE value is the one to trust."""
+    out = {**ch, "chart_minus_fe": None, "allowed": None, "disagrees_with_fe": False}
+    if ch.get("value") is None or fe is None:
+        return out
+    allowed = notch_fits.ACCURACY + (gci or 0.0)
+    diff = (ch["value"] - fe) / fe
+    out.update(chart_minus_fe=diff, allowed=allowed, disagrees_with_fe=bool(abs(diff) > allowed))
+    return out
+
+
 def feature_record(f: Feature, study: dict) -> dict:
     rec = {"kind": f.kind, "at": f.at, "field": f.field, "d": f.d, "radius": f.radius, "bore": f.bore,
            "skipped": f.skipped, "notes": list(f.notes)}
@@ -60,11 +78,14 @@ def feature_record(f: Feature, study: dict) -> dict:
         rec[f"{key}_gci"] = s["gci"] if s else None
         rec[f"{key}_gci_kind"] = s["gci_kind"] if s else None
         rec[f"{key}_order"] = s["order"] if s else None
+        for k in ("order_used", "safety_factor", "gci_why", "limited", "fineness"):
+            rec[f"{key}_{k}"] = s[k] if s else None
         rec[f"{key}_peak"] = s["peak"] if s else None
         rec[f"{key}_peak_von_mises"] = s["peak_von_mises"] if s else None
         rec[f"{key}_far_field"] = s["far_field"] if s else None
         rec[f"{key}_values_coarse_to_fine"] = s["values_coarse_to_fine"] if s else None
-        rec[f"{key}_chart"] = chart_value(f, load) if f.radius else None
+        ch = chart_value(f, load) if f.radius else None
+        rec[f"{key}_chart"] = judge_chart(ch, rec[key], rec[f"{key}_gci"]) if ch is not None else None
         rec[f"{key}_map"] = s["map"] if s else None
     if study:
         rec["poisson"] = next(iter(study.values()))["poisson"]
@@ -78,6 +99,11 @@ def feature_pairs(rec: dict) -> list[Pair]:
         if rec[key] is None:
             continue
         ch = rec[f"{key}_chart"] or {}
+        if ch.get("disagrees_with_fe"):
+            # no ratio: FE/chart would make the converged FE look wrong where the remembered fit is off
+            out.append(Pair(f"{label} at {rec['field']}", rec[key], None, ch.get("source", ""), kind="factor",
+                            note=DISAGREES_NOTE))
+            continue
         out.append(Pair(f"{label} at {rec['field']}", rec[key], ch.get("value"), ch.get("source", ""),
                         kind="factor" if ch.get("value") is not None else "not applicable",
                         note="published curve fit: FE/chart is the fit's difference from the converged FE"
@@ -120,7 +146,8 @@ def shaft_features_step(case) -> dict | None:
     nu = case.material.poisson
     records, pairs, cache, studies = [], [], {}, []
     for f in shaft_features(shaft):
-        study = study_feature(f, nu, cache=cache)
+        lim = case.analysis
+        study = study_feature(f, nu, cache=cache, max_dofs=lim.max_dofs, max_seconds=lim.max_seconds)
         rec = feature_record(f, study)
         records.append(rec)
         studies.append(study)
