@@ -337,7 +337,7 @@ def open_client(workers: int, scheduler: str | None):
 
     dask.config.set({
         "distributed.worker.daemon": False,
-        # for the local cluster's workers (a cluster at --scheduler has its own settings; README):
+        # for the local cluster's workers (a cluster at --scheduler has its own settings; docs/sweeps.md):
         # the statistical profiler samples the running variant every 10 ms, and a fixed
         # MALLOC_TRIM_THRESHOLD_ (Dask sets one) also switches off glibc's adaptive mmap threshold, so
         # every large array is mapped and unmapped afresh. With both, one worker ran a 40-variant

@@ -1,6 +1,6 @@
 """Sparse symmetric positive-definite solves, each one checked.
 
-Two paths (figures measured with ``tests/benchmarks/bench_solver.py``; see README, 'Solver'):
+Two paths (figures measured with ``tests/benchmarks/bench_solver.py``; see docs/method.md, 'Solver'):
 
 * **direct** up to :data:`DIRECT_LIMIT` unknowns: SuperLU in symmetric mode (minimum-degree ordering
   of AᵀA+A, no pivoting: the matrices here are SPD, so the diagonal pivots are safe);

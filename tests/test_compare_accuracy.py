@@ -47,7 +47,7 @@ def test_every_run_carries_a_convergence_study(tmp_path, run_cli):
     # the reported results come from the finest mesh of the study
     assert res["torsion"]["dofs"] == conv["J"]["dofs"][-1]
     assert "Accuracy: target 0.1 % reached" in out
-    assert res["exit_code"] == 0  # in every results.json, 0 included (README, results.json keys)
+    assert res["exit_code"] == 0  # in every results.json, 0 included (docs/outputs.md, results.json keys)
 
 
 def test_verification_suite_passes_and_its_estimates_cover_the_true_errors(tmp_path, run_cli):
@@ -135,7 +135,7 @@ def test_the_torsion_peak_estimate_sees_a_bias_all_three_meshes_share(tmp_path, 
 def test_sharp_keyway_is_reported_singular_not_given_a_number(tmp_path, run_cli):
     text = KEYED.replace("fillet = 0.4\n", "").replace("poisson = 0.3\n", "") + '[analysis]\naccuracy = "1 %"\n'
     code, out, err, res = run(tmp_path, run_cli, text)
-    assert code == 4, err  # no verdict with a sharp corner (README, exit codes)
+    assert code == 4, err  # no verdict with a sharp corner (docs/outputs.md, exit codes)
     corner = res["convergence"]["tau_max_corner"]
     assert corner["gci"] is None and corner["status"].startswith("singular corner")
     assert res["accuracy"]["singular_corners"] is True
@@ -179,7 +179,7 @@ def test_oscillating_values_get_the_spread_based_estimate():
 
 @pytest.mark.slow
 def test_only_the_documented_limits_stop_refinement(tmp_path, run_cli, monkeypatch):
-    """No hidden cap on the refinement steps (README names max_dofs and max_seconds only): a target out
+    """No hidden cap on the refinement steps (docs/outputs.md names max_dofs and max_seconds only): a target out
     of reach refines step after step from a coarse start until max_dofs stops it, and the record says
     so (the adaptive start is switched off so that the study itself does the refining)."""
     import compare.solve.accuracy as acc

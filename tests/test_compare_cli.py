@@ -160,7 +160,7 @@ def test_sharp_keyway_corners_are_reported_as_singular(tmp_path, run_cli):
     text = MM.replace("fillet = 0.396875\n", "") + '[analysis]\naccuracy = "1 %"\n'
     case = write(tmp_path, "sharp.toml", text)
     code, out, err = run_cli("run", "--no-report", str(case), "--out", str(tmp_path / "o"), "--no-vtu")
-    assert code == 4, err  # no verdict: README, exit codes
+    assert code == 4, err  # no verdict: docs/outputs.md, exit codes
     res = json.loads((tmp_path / "o" / "results.json").read_text())
     assert len(res["torsion"]["singular_corners"]) == 2
     assert res["torsion"]["kts"] is None

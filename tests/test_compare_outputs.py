@@ -1,6 +1,6 @@
 """The output folder (--out): checked before the work, written whole or not at all, replaced as a whole,
 never merged, and consistent when two runs write to it at once. The promises are the tool's own
-(README, 'Command line'); there is no published value to hold them to."""
+(docs/outputs.md, 'The output folder'); there is no published value to hold them to."""
 import errno
 import json
 import os

@@ -188,7 +188,7 @@ name = "gear seat"
     code, stdout, err = run_cli("run", str(case), "--out", str(out), "--no-vtu")
     assert code == 0, err
     res = json.loads((out / "results.json").read_text())
-    assert res["exit_code"] == 0  # present when 0 too (README, results.json keys)
+    assert res["exit_code"] == 0  # present when 0 too (docs/outputs.md, results.json keys)
     sh, sl = res["shaft"], res["section_loads"]
     assert len(sl) == 1 and sl[0]["at"] == pytest.approx(0.1)
     Wt = 1200.0  # 2T/d

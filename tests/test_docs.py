@@ -121,3 +121,10 @@ def test_readme_is_short_and_keeps_the_caution_and_the_set_up():
     assert "pip install -e '.[test]' && shaftcheck run cases/conveyor_gear_seat.toml" in text
     for page in PAGES:
         assert f"docs/{page.name}" in text, f"README's map does not name docs/{page.name}"
+
+
+def test_method_page_names_every_test_module():
+    """docs/method.md says what each test module checks: a new module must be listed there."""
+    text = (DOCS / "method.md").read_text(encoding="utf-8")
+    missing = [p.name for p in sorted((ROOT / "tests").glob("test_*.py")) if f"`tests/{p.name}`" not in text]
+    assert not missing, f"docs/method.md does not list {missing}"

@@ -1,6 +1,6 @@
 """Case files (TOML): read, check every field, convert to SI.
 
-Schema (README, 'Case files', is the reference)::
+Schema (docs/case-files.md is the reference)::
 
     [case]      title, units ("mm-N-MPa" | "in-lbf-psi" | "in-lbf-ksi" | "m-N-Pa")
     [section]   shape = "round" | "keyed" | "custom" | "spline" | "dxf" | "step" | "brep" | "mesh", and its dimensions

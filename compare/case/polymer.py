@@ -1,6 +1,6 @@
 """A polymer's own data (``[material.polymer]``) and the service conditions (``[service]``): read, every
 field checked, and the properties resolved at the service temperature, moisture state, load duration
-and cycles (README, 'Polymer shafts'). No material data are built in: everything comes from the
+and cycles (docs/polymer.md). No material data are built in: everything comes from the
 user's points, and nothing is read outside them.
 
 Schema::

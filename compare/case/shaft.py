@@ -5,7 +5,7 @@ handed, the same x and y as the cross-section. Loads on the shaft follow the cas
 forces [N], moments [N·m] as vector components, torque about +z as the part applies it to the shaft
 (torque put in positive, torque taken out negative).
 
-Case-file schema (README, 'The shaft layout', is the reference)::
+Case-file schema (docs/layout.md is the reference)::
 
     [shaft]
     length = 400                         # [length]

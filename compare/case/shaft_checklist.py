@@ -2,7 +2,7 @@
 support, and the key, press fit or spline at a station. Checked and converted to SI; every refusal
 an :class:`~fem.errors.InputError` naming the field and the value as written.
 
-Case-file keys (README, 'Keys, fits, splines, bearing life and torsion along the shaft')::
+Case-file keys (docs/layout.md, 'Keys, fits, splines, bearing life and torsion along the shaft')::
 
     supports = [{ at = 70, bearing = "deep_groove_ball", dynamic_rating = "14 kN",
                   x_factor = 0.56, y_factor = 1.6,        # optional, both or neither: P = X·Fr + Y·Fa

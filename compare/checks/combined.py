@@ -7,7 +7,7 @@ per unit of each load — at every point where it is read: densely along the bou
 every boundary facet, from the owning element) and inside (the P2 nodes and centroid of every
 element). Any load instant is then a matrix product.
 
-Conventions (README, 'Loads and sign conventions'): x, y in the section plane, z along the shaft
+Conventions (docs/case-files.md, 'Axes and sign conventions'): x, y in the section plane, z along the shaft
 axis and out of the cut face, right-handed; Mx, My are the components of the bending-moment vector
 (Mx = ∫y·σ dA, My = −∫x·σ dA, classic.stress.unsymmetric_bending_stress); σ is positive in tension;
 T is the moment vector along +z; Vx, Vy act through the shaft axis, so a shear force off the shear

@@ -1,7 +1,7 @@
 """The choice of material: a table the user keeps (TOML), every row checked against the case's
 stress field with the same static and fatigue criteria, ranked by margin over the design factor.
 
-Table format (README, 'Material table')::
+Table format (docs/case-files.md, 'Material table')::
 
     [table]
     title = "..."

@@ -4,7 +4,7 @@ stress-life strength at the cycles the service requires and the Goodman line, th
 with the creep modulus at the service life; for a layout, the long-term deflections.
 
 The data were read at the service conditions when the case was parsed (compare/case/polymer.py):
-``case.material.polymer``. Results key ``polymer`` (README, 'Polymer shafts').
+``case.material.polymer``. Results key ``polymer`` (docs/polymer.md).
 """
 from __future__ import annotations
 

@@ -1,5 +1,5 @@
 """The results dictionary written to ``results.json``: SI base units (m, m², m⁴, N, N·m, Pa, rad/m),
-coordinates those of the case's geometry. README ('results.json') documents every key."""
+coordinates those of the case's geometry. docs/outputs.md ('results.json') documents every key."""
 from __future__ import annotations
 
 import math
@@ -107,7 +107,7 @@ def build_results(a: Analysis) -> dict:
     add_shaft_results(out, a, build_results)  # the shaft layout's blocks, if the case has one
     add_feature_results(out, a)  # shaft.features: shoulders and grooves
     add_checklist_results(out, a)  # keys, splines, press fits, bearing life, torsion along the shaft
-    out["exit_code"] = int(out.get("exit_code") or 0)  # in every results.json, 0 included (README)
+    out["exit_code"] = int(out.get("exit_code") or 0)  # in every results.json, 0 included (docs/outputs.md)
     return _clean(out)
 
 

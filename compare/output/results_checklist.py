@@ -1,6 +1,6 @@
 """results.json blocks of the designer's checklist (compare/checks/shaft_checklist.py): ``keys``,
 ``splines``, ``press_fits``, ``shaft.bearing_life``, ``shaft.torsional``, and their warnings (with a
-sentence each; SI numbers in the data). README ('Keys, fits, splines, bearing life and torsion along
+sentence each; SI numbers in the data). docs/layout.md ('Keys, fits, splines, bearing life and torsion along
 the shaft') documents the keys.
 """
 from __future__ import annotations

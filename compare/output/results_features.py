@@ -1,5 +1,5 @@
 """``shaft.features`` of results.json: one record per shoulder or groove, in order along the shaft
-(compare/pairs/feature_step.py builds them; SI; README 'Shoulders and grooves' documents the keys)."""
+(compare/pairs/feature_step.py builds them; SI; docs/shoulders-grooves.md documents the keys)."""
 from __future__ import annotations
 
 from .._version import __version__

@@ -1,7 +1,7 @@
 """The shaft layout's part of ``results.json``: ``shaft`` (reactions, diagrams, deflections, slopes,
 critical speeds, stations) and ``section_loads`` (one entry per checked station with its section
 results beside it), and the terminal lines of the layout. SI in the results; the case's units on
-the terminal. README ('The shaft layout') documents the keys.
+the terminal. docs/layout.md documents the keys.
 """
 from __future__ import annotations
 

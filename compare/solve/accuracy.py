@@ -151,7 +151,7 @@ COST_EXPONENT = 1.3
 
 #: Seconds a run may exceed ``analysis.max_seconds`` by: the work after the study (warping check,
 #: stresses over the load cycle, results) is reserved from the budget by prediction, but the first
-#: mesh must be made before anything can be predicted, and predictions miss. Stated in README.
+#: mesh must be made before anything can be predicted, and predictions miss. Stated in docs/outputs.md.
 MARGIN_SECONDS = 10.0
 
 #: Accepted band of the measured refinement ratio between successive meshes of the study, from
