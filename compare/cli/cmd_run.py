@@ -26,6 +26,7 @@ from ..output.results import build_results
 from ..output.figure_shaft import shaft_figure_svg
 from ..output.report_composite import composite_report_files
 from ..output.results_composite import composite_summary
+from ..output.results_segment import segment_summary
 from ..output.report_checklist import checklist_summary
 from ..output.results_shaft import shaft_summary
 from ..output.vtu import write_fields_vtu
@@ -77,7 +78,10 @@ def run(args) -> int:
         block = "\n".join(b for b in (shaft_summary(res, case.units), checklist_summary(res, case.units)) if b)
         if block:
             print(block + "\n")
-        if "composite" in a.extra:  # bonded regions of several materials
+        if "segment" in a.extra:  # a 3-D segment study
+            print(segment_summary(res, case.units))
+            print("\nwritten: " + ", ".join(str(w) for w in written))
+        elif "composite" in a.extra:  # bonded regions of several materials
             print(composite_summary(res, case.units))
             print("\nwritten: " + ", ".join(str(w) for w in written))
         elif a.mesh is None:  # factors only: the shaft block above is the whole answer
