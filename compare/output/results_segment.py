@@ -68,7 +68,7 @@ def segment_summary(res: dict, system) -> str:
     lines.append(f"  {'factor':<14} {'FE':>7} {'estimate':>9} {'chart':>7}  peak (x, y, z)")
     for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
         g, c = s[f"{k}_gci"], s[f"{k}_chart"]
-        at = ", ".join(f.q(v, "length") for v in s["peak_location"][k]["at"])
+        at = ", ".join(f.q0(v, "length", s["diameter"]) for v in s["peak_location"][k]["at"])
         lines.append(f"  {k:<14} {s[k]:>7.3f} {'—' if g is None else f'{100 * g:.2g} %':>9} "
                      f"{'—' if c is None else f'{c:.2f}':>7}  ({at})"
                      f"{'' if s['peak_location'][k]['on_feature'] else ' away from the feature'}")

@@ -13,8 +13,10 @@ from ..solve.segments import KEYS, study_segment
 from .analysis import Analysis
 
 #: Handbook first-iteration estimates for an end-milled keyseat (Shigley, Table 7-1; from memory):
-#: r/d = 0.02, key in place. Context only: the geometry and loading differ from the case's.
-KEYSEAT_CHART = {"kt_bending_x": 2.14, "kt_bending_y": 2.14, "kts": 3.0}
+#: r/d = 0.02, key in place. Context only: the geometry and loading differ from the case's. Bending
+#: about x only: the keyseat (on +y) then lies where the bending stress is largest; bending about y
+#: puts it near the neutral plane, where the chart does not apply.
+KEYSEAT_CHART = {"kt_bending_x": 2.14, "kts": 3.0}
 KEYSEAT_CHART_SOURCE = (f"{cf.EDITION}, Table 7-1 first-iteration estimates for an end-milled keyseat (r/d = 0.02, "
                         "key in place; from memory) — context only, a chart read by eye")
 #: the 3-D meshes' own shaft on a plain bar reads E-independent factors; a stand-in modulus [Pa]
