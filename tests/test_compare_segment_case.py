@@ -12,8 +12,11 @@ bending about y puts the keyseat near the neutral plane (exact plain-bar value 1
 3rd ed.; the peak may fall off the feature).
 """
 import json
+import math
 from pathlib import Path
 
+import meshio
+import numpy as np
 import pytest
 
 from compare.cli.main import main
@@ -52,6 +55,13 @@ def test_keyseat_end_demo_through_the_cli(tmp_path, capsys):
         assert res["warnings"][0]["code"] == "accuracy_not_met"
     assert any(w["code"] == "segment_caution" for w in res["warnings"])
     assert "kt_bending_x" in printed and "from memory" in printed
+    # the VTU of the surface samples: von Mises over nominal per load. At any point the von Mises stress
+    # lies between √3 and 2 times the largest shear stress (Mohr's circles; exact), so in torsion its
+    # largest value over the same samples lies between √3·Kts and 2·Kts.
+    vtu = meshio.read(tmp_path / "out" / "segment.vtu")
+    assert set(vtu.point_data) == {f"von_mises_over_nominal_{k}" for k in ("tension", "bending_x", "bending_y", "torsion")}
+    vm = np.max(vtu.point_data["von_mises_over_nominal_torsion"])
+    assert math.sqrt(3) * seg["kts"] * (1 - 1e-9) <= vm <= 2 * seg["kts"] * (1 + 1e-9)
 
 
 def _hole_case(tmp_path, analysis: str) -> Path:
