@@ -17,6 +17,7 @@ from .checks.shaft_stations import layout_step
 from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
 from .pairs.composite_step import composite_step
+from .pairs.segment_step import segment_step
 from .pairs.feature_step import attach_features, shaft_features_step
 from .pairs.shear_step import shear_step
 from .pairs.spline_step import spline_step
@@ -43,6 +44,10 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         a.extra["warnings"] = feature_findings(a) + list(a.extra.get("warnings") or [])
         return a
     t0 = time.perf_counter()
+    if case.segment is not None:  # a short shaft length with a 3-D feature: its factors on three meshes
+        a = segment_step(case, fineness)
+        a.seconds["total"] = time.perf_counter() - t0
+        return a
     if case.section.kind == "composite":  # bonded regions of several materials: their own solve and checks
         a = composite_step(case, fineness)
         composite_checks(a)

@@ -36,6 +36,7 @@ from .shaft_checklist import check_fits_with_section
 from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
 from .units import UnitSystem, from_si, to_si, unit_system
 from .composite import parse_composite
+from .segment import parse_segment
 from .fields import angle as _angle, chart_factor, known as _known
 
 if sys.version_info >= (3, 11):
@@ -120,10 +121,12 @@ class Case:
     geometry: dict = field(default_factory=dict)
     #: the regions' materials of a composite section (compare/case/composite.py), in region order
     region_materials: list = field(default_factory=list)
+    #: the [segment] of a 3-D segment study (compare/case/segment.py, fem/solid.Segment), if the case gives one
+    segment: object = None
 
 
 _TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue", "shaft", "service",
-        "sweep"}  # [sweep]: read by `shaftcheck sweep` (compare/sweep.py), not by a single run
+        "sweep", "segment"}  # [sweep]: read by `shaftcheck sweep` (compare/sweep.py), not by a single run
 _CASE = {"title", "units", "description", "source"}
 _LOAD_SCALARS = {"torque": "moment", "axial": "force"}
 _LOAD_VECTORS = {"bending": "moment", "shear": "force"}
@@ -209,6 +212,13 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
             _text(c[key], f"case.{key}")
     geometry: dict = {}
     region_materials: list = []
+    segment = None
+    if "segment" in data:  # a 3-D segment study instead of a section
+        for other in ("section", "shaft", "fatigue", "expected"):
+            if other in data:
+                raise InputError(other, None, "a [segment] case is studied on its own: leave [" + other + "] out")
+        segment = parse_segment(data["segment"], units)
+        data = dict(data, section={"shape": "round", "diameter": f"{segment.d!r} m"})
     section = parse_section(data["section"], units, geometry, base_dir, region_materials) if "section" in data else None
     loads = parse_loads(data.get("loads", {}), units)
     shaft = (parse_shaft(data["shaft"], units, parse_section, loads.rotating, parse_feature_lengths)
@@ -228,9 +238,11 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
         check_fits_with_section(shaft, section, units)  # a press fit's hub on a shaft without segments
     if section.kind == "composite":
         _composite_limits(data, loads, shaft)
+    if segment is not None:
+        _segment_limits(data, material)
     return Case(title, units, section, loads, material, analysis, fatigue=fatigue, expected=expected,
                 feature_lengths=parse_feature_lengths(data.get("section", {}), units), shaft=shaft,
-                geometry=geometry, region_materials=region_materials)
+                geometry=geometry, region_materials=region_materials, segment=segment)
 
 
 def _composite_limits(data: dict, loads: Loads, shaft) -> None:
@@ -245,6 +257,16 @@ def _composite_limits(data: dict, loads: Loads, shaft) -> None:
         raise InputError("shaft", None, "a composite section is checked on its own, not yet as a station of a layout")
     if "fatigue" in data:
         raise InputError("fatigue", None, "the fatigue check of a composite section is not made: leave [fatigue] out")
+
+
+def _segment_limits(data: dict, material: Material) -> None:
+    """What a [segment] case needs and does not take (yet): said at once, naming the field."""
+    if material.poisson is None:
+        raise InputError("material.poisson", None, "is needed: the 3-D stress concentration factors of a [segment] "
+                         "depend on Poisson's ratio")
+    if data.get("loads"):
+        raise InputError("loads", None, "a [segment] case gives the stress concentration factors only (per unit "
+                         "load); leave [loads] out")
 
 
 def _shaft_section(shaft: Shaft) -> Section:

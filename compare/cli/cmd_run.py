@@ -26,6 +26,8 @@ from ..output.results import build_results
 from ..output.figure_shaft import shaft_figure_svg
 from ..output.report_composite import composite_report_files
 from ..output.results_composite import composite_summary
+from ..output.results_segment import segment_summary
+from ..output.vtu import segment_vtu_bytes
 from ..output.report_checklist import checklist_summary
 from ..output.results_shaft import shaft_summary
 from ..output.vtu import write_fields_vtu
@@ -62,6 +64,8 @@ def run(args) -> int:
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
     vtu = not args.no_vtu and a.mesh is not None  # no section mesh when only feature factors were asked for
     composite = "composite" in a.extra  # bonded regions of several materials: their own report
+    if "segment" in a.extra and not args.no_vtu:  # the 3-D segment's surface stresses
+        files["segment.vtu"] = segment_vtu_bytes(a)
     report = not args.no_report and (a.mesh is not None or composite)
     if report:
         files.update(composite_report_files(a, res) if composite else report_files(a, res))
@@ -70,6 +74,8 @@ def run(args) -> int:
     write_outputs(out, files, a if vtu else None)
     if not args.quiet:
         written = [out / "results.json"] + ([out / "section.vtu"] if vtu else [])
+        if "segment.vtu" in files:
+            written.append(out / "segment.vtu")
         if "shaft.svg" in files:
             written.append(out / "shaft.svg")
         if report:
@@ -77,7 +83,10 @@ def run(args) -> int:
         block = "\n".join(b for b in (shaft_summary(res, case.units), checklist_summary(res, case.units)) if b)
         if block:
             print(block + "\n")
-        if "composite" in a.extra:  # bonded regions of several materials
+        if "segment" in a.extra:  # a 3-D segment study
+            print(segment_summary(res, case.units))
+            print("\nwritten: " + ", ".join(str(w) for w in written))
+        elif "composite" in a.extra:  # bonded regions of several materials
             print(composite_summary(res, case.units))
             print("\nwritten: " + ", ".join(str(w) for w in written))
         elif a.mesh is None:  # factors only: the shaft block above is the whole answer
@@ -104,7 +113,7 @@ def option_number(name: str, text: str | None) -> float | None:
 
 # The names shaftcheck writes into an output folder. A folder holding only these (as plain files) is
 # taken to be an earlier output and is replaced as a whole; anything else in it stops the run (exit 2).
-OUTPUT_NAMES = frozenset({"results.json", "section.vtu", "verify.json", "report.html", "results.csv", "shaft.svg",
+OUTPUT_NAMES = frozenset({"results.json", "section.vtu", "segment.vtu", "verify.json", "report.html", "results.csv", "shaft.svg",
                           "sweep.csv", "sweep.parquet", "sweep.png", "sweep.svg", "sweep.html"})
 # the one sub-folder shaftcheck writes, and what it may hold
 FIGURES, FIGURE_SUFFIXES = "figures", (".png", ".svg")

@@ -6,6 +6,7 @@ import math
 
 from .._version import __version__
 from .results_composite import composite_results
+from .results_segment import segment_results
 from ..pairs.analysis import Analysis
 from .report import CAUTION, Fmt, warning_text
 from .report_combined import governing_text
@@ -23,6 +24,8 @@ def build_results(a: Analysis) -> dict:
         return _clean(factors_only_results(a, warnings_out, SCHEMA_VERSION))
     if "composite" in a.extra:  # bonded regions of several materials
         return _clean(composite_results(a, warnings_out, SCHEMA_VERSION))
+    if "segment" in a.extra:  # a 3-D segment study
+        return _clean(segment_results(a, warnings_out, SCHEMA_VERSION))
     pr, tr, sm, case = a.props, a.torsion, a.mesh, a.case
     T = a.torque
     G = case.material.shear_modulus

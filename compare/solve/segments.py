@@ -10,9 +10,11 @@ Numbers and records only.
 """
 from __future__ import annotations
 
+import time
 from dataclasses import dataclass, field
 
 from fem import solid
+from fem.errors import LimitError
 
 from .accuracy import one_study
 
@@ -35,17 +37,54 @@ class SegmentStudy:
     dofs: list = field(default_factory=list)
     far_field: dict = field(default_factory=dict)
     finest: dict = field(default_factory=dict)  # load -> SolidResult on the finest mesh
+    #: why the study stopped short of its three meshes (a limit of the case), else None
+    limited: str | None = None
+    seconds: float = 0.0
+
+
+def mesh_dofs(sm) -> int:
+    """Unknowns of the quadratic displacement field on a segment mesh: three per vertex and per edge."""
+    return 3 * (int(sm.mesh.nvertices) + int(sm.mesh.nedges))
 
 
 def study_segment(seg, fineness: float = 1.0, loads=solid.LOADS, E: float = 2.0e11, nu: float = 0.3,
-                  ratio: float = RATIO, local: float = 1.0) -> SegmentStudy:
-    """Three meshes (sizes ×r², ×r, ×1 at ``fineness``), every load on each; the study per factor."""
+                  ratio: float = RATIO, local: float = 1.0, max_dofs: int | None = None,
+                  max_seconds: float | None = None) -> SegmentStudy:
+    """Three meshes (sizes ×r², ×r, ×1 at ``fineness``), every load on each; the study per factor.
+
+    With ``max_dofs``: a first mesh above it is a :class:`~fem.errors.LimitError`; a later one stops
+    the study (``limited`` says why) before it is solved, as does ``max_seconds`` passed before a mesh
+    starts. A stopped study keeps the finest solved mesh's factors and no estimate (``gci`` None)."""
+    t0 = time.perf_counter()
     runs = []
-    for scale in (ratio**2, ratio, 1.0):
+    limited = None
+    for i, scale in enumerate((ratio**2, ratio, 1.0)):
+        if i and max_seconds is not None and time.perf_counter() - t0 > max_seconds:
+            limited = f"analysis.max_seconds ({max_seconds:g} s) passed after {i} of 3 meshes"
+            break
         sm = solid.mesh_segment(seg, fineness=fineness, scale=scale, local=local)
+        n = mesh_dofs(sm)
+        if max_dofs is not None and n > max_dofs:
+            if not i:
+                raise LimitError(f"analysis.max_dofs = {max_dofs}: the first (coarsest) segment mesh has {n} "
+                                 "unknowns; raise the limit or lower analysis.fineness")
+            limited = f"analysis.max_dofs ({max_dofs}) below the next mesh's {n} unknowns after {i} of 3 meshes"
+            break
         runs.append(solid.solve_segment(sm, loads, E, nu))
-    out = SegmentStudy(seg)
+    out = SegmentStudy(seg, limited=limited)
     out.dofs = [next(iter(r.values())).dofs for r in runs]
+    if len(runs) < 3:
+        for load in loads:
+            key, fine = KEYS[load], runs[-1][load]
+            out.values[key] = fine.factor
+            out.estimates[key] = dict(dofs=[r[load].dofs for r in runs], values=[r[load].factor for r in runs],
+                                      observed_order=None, extrapolated=None, gci=None, asymptotic=False,
+                                      status=f"no estimate: {limited}", relative_to="value")
+            out.peaks[key] = {"at": [float(v) for v in fine.peak_at], "on_feature": fine.peak_on_feature}
+            out.far_field[key] = fine.far_field
+            out.finest[load] = fine
+        out.seconds = time.perf_counter() - t0
+        return out
     for load in loads:
         key = KEYS[load]
         vals = [runs[2][load].factor, runs[1][load].factor, runs[0][load].factor]  # fine to coarse
@@ -56,4 +95,5 @@ def study_segment(seg, fineness: float = 1.0, loads=solid.LOADS, E: float = 2.0e
         out.peaks[key] = {"at": [float(v) for v in fine.peak_at], "on_feature": fine.peak_on_feature}
         out.far_field[key] = fine.far_field
         out.finest[load] = fine
+    out.seconds = time.perf_counter() - t0
     return out

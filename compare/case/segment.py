@@ -1,0 +1,90 @@
+"""The ``[segment]`` table of a case: a short round shaft length with one 3-D feature (a keyseat's
+end, a sled-runner keyseat, a cross hole), studied in 3-D (compare/solve/segments.py) instead of a
+section. Every field is checked here with one-line :class:`~fem.errors.InputError`; lengths in SI.
+
+Keys: ``kind`` ("keyseat_end", "sled_runner", "cross_hole"), ``diameter``, ``length`` (the modelled
+length, default 3 diameters), ``at`` (the feature's centre along the segment, default mid-length);
+keyseats: ``width``, ``depth``, ``fillet`` (or ``standard = "metric"`` for the metric parallel key's
+keyway of the diameter, classic/keys.py), ``key_length`` (end to end), sled runner ``cutter_diameter``;
+cross hole: ``hole_diameter``, ``chamfer`` (default 0), ``hole_depth`` (blind; default through).
+"""
+from __future__ import annotations
+
+from classic.keys import metric_parallel_key
+from fem import solid
+from fem.errors import InputError
+
+from .fields import known
+from .units import to_si
+
+KINDS = ("keyseat_end", "sled_runner", "cross_hole")
+_KEYS = {"kind", "diameter", "length", "at", "width", "depth", "fillet", "key_length", "cutter_diameter",
+         "hole_diameter", "chamfer", "hole_depth", "standard"}
+_ALLOWED = {"keyseat_end": {"width", "depth", "fillet", "key_length", "standard"},
+            "sled_runner": {"width", "depth", "fillet", "key_length", "cutter_diameter", "standard"},
+            "cross_hole": {"hole_diameter", "chamfer", "hole_depth"}}
+
+
+def parse_segment(s, units) -> solid.Segment:
+    if not isinstance(s, dict):
+        raise InputError("segment", s, "must be a table: [segment] with kind = \"keyseat_end\", \"sled_runner\" or \"cross_hole\"")
+    known(s, _KEYS, "segment")
+    kind = s.get("kind")
+    if kind not in KINDS:
+        raise InputError("segment.kind", kind, "must be \"keyseat_end\", \"sled_runner\" or \"cross_hole\"")
+    for k in s:
+        if k not in _ALLOWED[kind] | {"kind", "diameter", "length", "at"}:
+            raise InputError(f"segment.{k}", s[k], f"is not a field of a {kind} segment")
+
+    def length(key, default=None, required=True):
+        if key not in s:
+            if default is None and required:
+                raise InputError(f"segment.{key}", None, "is missing")
+            return default
+        v = to_si(s[key], "length", f"segment.{key}", units)
+        if not v > 0:
+            raise InputError(f"segment.{key}", s[key], "must be a positive length")
+        return v
+
+    d = length("diameter")
+    L = length("length", 3 * d)
+    at = length("at", L / 2)
+    if kind == "cross_hole":
+        dh = length("hole_diameter")
+        chamfer = 0.0
+        if "chamfer" in s:
+            chamfer = to_si(s["chamfer"], "length", "segment.chamfer", units)
+            if chamfer < 0:
+                raise InputError("segment.chamfer", s["chamfer"], "must not be negative")
+        feat = solid.CrossHole(dh, at, chamfer, length("hole_depth", required=False))
+    else:
+        std = s.get("standard")
+        if std is not None and std != "metric":
+            raise InputError("segment.standard", std, "must be \"metric\" (the metric parallel key's keyway of the diameter)")
+        if std == "metric":
+            try:
+                k = metric_parallel_key(d)
+            except (ValueError, KeyError):
+                raise InputError("segment.diameter", s["diameter"], "is outside the metric parallel key table") from None
+            width = length("width", k["width"])
+            depth = length("depth", k["depth"])
+            fillet = length("fillet", k["r_max"])
+        else:
+            width, depth, fillet = length("width"), length("depth"), length("fillet")
+        kl = length("key_length", 4 * width)
+        z0, z1 = at - kl / 2, at + kl / 2
+        if kind == "keyseat_end":
+            feat = solid.ProfileKeyseat(width, depth, z0, z1, fillet)
+        else:
+            feat = solid.SledKeyseat(width, depth, z0, z1, length("cutter_diameter"), fillet)
+    seg = solid.Segment(d, L, (feat,))
+    try:
+        seg.check("segment")
+    except InputError as exc:  # name the case-file field; echo the value as written where there is one
+        f = exc.field.replace("segment.features[0].", "segment.")
+        f = {"segment.d": "segment.diameter", "segment.z": "segment.at", "segment.z1": "segment.key_length",
+             "segment.diameter": "segment.hole_diameter" if kind == "cross_hole" else "segment.diameter",
+             "segment.depth": "segment.hole_depth" if kind == "cross_hole" else "segment.depth"}.get(f, f)
+        key = f.split(".", 1)[1]
+        raise InputError(f, s.get(key), exc.reason if hasattr(exc, "reason") else str(exc)) from None
+    return seg

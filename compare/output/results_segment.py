@@ -1,0 +1,79 @@
+"""results.json and the terminal summary of a 3-D segment study (compare/pairs/segment_step.py)."""
+from __future__ import annotations
+
+from .._version import __version__
+from .report import CAUTION, Fmt
+
+#: what the factors of a segment are not, said beside them every time
+SEGMENT_CAUTION = ("a chart read by eye and this 3-D FE both need checking: the factors are per unit load on a short "
+                   "segment with plain-bar ends, the peaks on small radii read high on coarse meshes")
+
+
+def segment_results(a, warnings_out, schema_version: int) -> dict:
+    case = a.case
+    seg = a.extra["segment"]
+    st = seg["study"]
+    target = case.analysis.accuracy
+    gcis = [r["gci"] for r in a.extra["segment_rows"]]
+    achieved = None if any(g is None for g in gcis) else max(gcis)
+    met = achieved is not None and achieved <= target and st.limited is None
+    entry = {"kind": seg["kind"], "at": seg["at"], "span": seg["span"], "diameter": st.segment.d,
+             "length": st.segment.length}
+    peaks = {}
+    for r in a.extra["segment_rows"]:
+        entry[r["key"]] = r["value"]
+        entry[f"{r['key']}_gci"] = r["gci"]
+        entry[f"{r['key']}_status"] = r["status"]
+        entry[f"{r['key']}_chart"] = r["chart"]
+        peaks[r["key"]] = {"at": r["peak_at"], "on_feature": r["peak_on_feature"]}
+    entry["peak_location"] = peaks
+    entry["chart_source"] = next((r["chart_source"] for r in a.extra["segment_rows"] if r["chart_source"]), None)
+    out = {
+        "schema_version": schema_version, "tool": {"name": "shaftcheck", "version": __version__},
+        "case": {"title": case.title, "units": case.units.name if case.units else None,
+                 "file": str(case.path) if case.path else None},
+        "caution": CAUTION,
+        "segments": [entry],
+        "convergence": st.estimates,
+        "accuracy": {"target": target, "achieved": achieved, "met": bool(met), "limited_by": st.limited,
+                     "meshes": st.dofs, "seconds": st.seconds,
+                     "estimator": "three geometrically similar meshes (ratio 1.4), GCI per factor"},
+        "mesh": {"dofs": st.dofs[-1] if st.dofs else None,
+                 "element": "10-node curved (isoparametric) tetrahedron, quadratic displacement"},
+        "seconds": a.seconds,
+    }
+    out["warnings"] = warnings_out(a)
+    out["warnings"].insert(0, {"code": "segment_caution", "text": SEGMENT_CAUTION, "data": {}})
+    if not met:
+        out["warnings"].insert(0, {"code": "accuracy_not_met", "text": "ACCURACY TARGET NOT SHOWN: target "
+                                   f"{100 * target:.3g} %, estimated error "
+                                   f"{'unknown' if achieved is None else f'{100 * achieved:.3g} %'}"
+                                   f"{f' ({st.limited})' if st.limited else ''}: the factors are not a verdict.",
+                                   "data": {"target": target, "achieved": achieved, "limited_by": st.limited}})
+    out["exit_code"] = 0 if met else 3
+    return out
+
+
+def segment_summary(res: dict, system) -> str:
+    """The terminal block of a 3-D segment study."""
+    f = Fmt(system)
+    lines = [f"shaftcheck {res['tool']['version']} — {res['case']['title']}"]
+    for w in res.get("warnings", []):
+        lines.append(f"WARNING: {w['text']}")
+    s = res["segments"][0]
+    acc = res["accuracy"]
+    lines.append(f"  3-D segment: {s['kind']} on a {f.q(s['diameter'], 'length')} shaft, feature at "
+                 f"{f.q(s['at'], 'length')} along it; meshes {acc['meshes']} unknowns, {acc['seconds']:.0f} s")
+    lines.append("")
+    lines.append(f"  {'factor':<14} {'FE':>7} {'estimate':>9} {'chart':>7}  peak (x, y, z)")
+    for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
+        g, c = s[f"{k}_gci"], s[f"{k}_chart"]
+        at = ", ".join(f.q0(v, "length", s["diameter"]) for v in s["peak_location"][k]["at"])
+        lines.append(f"  {k:<14} {s[k]:>7.3f} {'—' if g is None else f'{100 * g:.2g} %':>9} "
+                     f"{'—' if c is None else f'{c:.2f}':>7}  ({at})"
+                     f"{'' if s['peak_location'][k]['on_feature'] else ' away from the feature'}")
+    if s["chart_source"]:
+        lines.append(f"  chart: {s['chart_source']}")
+    lines.append("")
+    lines.append("Not checked: no loads, no stresses, no factor of safety; the factors alone (per unit load).")
+    return "\n".join(lines)

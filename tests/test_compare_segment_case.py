@@ -1,0 +1,97 @@
+"""A case with a [segment] table run through the command line in-process: the demo
+cases/keyseat_end_3d.toml (an end-milled keyseat's end, 3-D) writes the results key ``segments``,
+and its exit code and first warning follow whether the three-mesh estimates meet the case's target
+(the project's rule: an estimate above the target is not a verdict).
+
+Check against an outside source: a keyseat raises the stress, so every factor of a load whose peak sits
+on the keyseat exceeds 1, and the torsion factor of an end-milled keyseat lies near Shigley's first
+estimate Kts = 3.0 (Shigley's Mechanical Engineering Design, Table 7-1; from memory) — only bounded here
+loosely (1 < Kts < 5), as the coarse demo meshes carry large estimates. Bending about the axis in the
+keyseat's plane of symmetry (y bending about x, the keyseat on +y) has its peak on the keyseat;
+bending about y puts the keyseat near the neutral plane (exact plain-bar value 1, Timoshenko & Goodier,
+3rd ed.; the peak may fall off the feature).
+"""
+import json
+import math
+from pathlib import Path
+
+import meshio
+import numpy as np
+import pytest
+
+from compare.cli.main import main
+
+CASE = Path(__file__).parent.parent / "cases" / "keyseat_end_3d.toml"
+
+
+@pytest.mark.slow
+def test_keyseat_end_demo_through_the_cli(tmp_path, capsys):
+    code = main(["run", str(CASE), "--out", str(tmp_path / "out")])
+    printed = capsys.readouterr().out
+    res = json.loads((tmp_path / "out" / "results.json").read_text())
+    (seg,) = res["segments"]
+    assert seg["kind"] == "keyseat_end"
+    assert seg["at"] == pytest.approx(0.045)
+    keys = ("kt_axial", "kt_bending_x", "kt_bending_y", "kts")
+    for k in keys:
+        assert seg[k] > 0.9, k
+        assert f"{k}_gci" in seg and f"{k}_status" in seg
+        assert len(seg["peak_location"][k]["at"]) == 3
+    for k in ("kt_axial", "kts"):  # these peaks sit on the keyseat, and a notch raises the stress
+        assert seg["peak_location"][k]["on_feature"], k
+        assert seg[k] > 1.0, k
+    assert 1.0 < seg["kts"] < 5.0  # Shigley Table 7-1 first estimate 3.0 (from memory), loosely
+    acc = res["accuracy"]
+    assert len(acc["meshes"]) == 3 and acc["meshes"][0] < acc["meshes"][1] < acc["meshes"][2]
+    gcis = [seg[f"{k}_gci"] for k in keys]
+    met = all(g is not None for g in gcis) and max(gcis) <= acc["target"]
+    assert acc["met"] == met
+    assert code == (0 if met else 3) == res["exit_code"]
+    first = printed.splitlines()[1]
+    if met:
+        assert "ACCURACY TARGET NOT SHOWN" not in printed
+    else:
+        assert first.startswith("WARNING: ACCURACY TARGET NOT SHOWN") and "not a verdict" in first
+        assert res["warnings"][0]["code"] == "accuracy_not_met"
+    assert any(w["code"] == "segment_caution" for w in res["warnings"])
+    assert "kt_bending_x" in printed and "from memory" in printed
+    # the VTU of the surface samples: von Mises over nominal per load. At any point the von Mises stress
+    # lies between √3 and 2 times the largest shear stress (Mohr's circles; exact), so in torsion its
+    # largest value over the same samples lies between √3·Kts and 2·Kts.
+    vtu = meshio.read(tmp_path / "out" / "segment.vtu")
+    assert set(vtu.point_data) == {f"von_mises_over_nominal_{k}" for k in ("tension", "bending_x", "bending_y", "torsion")}
+    vm = np.max(vtu.point_data["von_mises_over_nominal_torsion"])
+    assert math.sqrt(3) * seg["kts"] * (1 - 1e-9) <= vm <= 2 * seg["kts"] * (1 + 1e-9)
+
+
+def _hole_case(tmp_path, analysis: str) -> Path:
+    p = tmp_path / "hole.toml"
+    p.write_text('[case]\ntitle = "cross hole"\nunits = "mm-N-MPa"\n\n[segment]\nkind = "cross_hole"\n'
+                 'diameter = 30\nlength = 75\nhole_diameter = 6\n\n[material]\nshear_modulus = "79 GPa"\n'
+                 f'poisson = 0.3\n\n[analysis]\nfineness = 0.3\naccuracy = "25 %"\n{analysis}\n')
+    return p
+
+
+def test_segment_first_mesh_above_max_dofs_is_refused(tmp_path, capsys):
+    """analysis.max_dofs is kept: a first mesh above it stops the run (exit 3) before any solve and
+    writes nothing."""
+    code = main(["run", str(_hole_case(tmp_path, "max_dofs = 1000")), "--out", str(tmp_path / "out"), "--quiet"])
+    err = capsys.readouterr().err
+    assert code == 3
+    assert err.startswith("shaftcheck: stopped: analysis.max_dofs = 1000") and err.count("\n") == 1
+    assert not (tmp_path / "out").exists()
+
+
+@pytest.mark.slow
+def test_segment_study_stopped_by_max_seconds_has_no_estimate(tmp_path, capsys):
+    """analysis.max_seconds passed after the first mesh: the study stops with the reason recorded, no
+    estimate exists, so the target is not shown (exit 3) and the first warning names the limit."""
+    code = main(["run", str(_hole_case(tmp_path, "max_seconds = 0.001")), "--out", str(tmp_path / "out")])
+    printed = capsys.readouterr().out
+    res = json.loads((tmp_path / "out" / "results.json").read_text())
+    assert code == 3 == res["exit_code"]
+    assert "analysis.max_seconds" in res["accuracy"]["limited_by"]
+    assert len(res["accuracy"]["meshes"]) == 1
+    assert all(res["segments"][0][f"{k}_gci"] is None for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"))
+    assert printed.splitlines()[1].startswith("WARNING: ACCURACY TARGET NOT SHOWN")
+    assert "max_seconds" in printed.splitlines()[1]
