@@ -40,7 +40,7 @@ from .geometry import Section
 from .gmshload import initialize as initialize_gmsh, load_gmsh
 from .linalg import solve_spd
 from .mesh import BOUNDARY_POINTS, boundary_mapping, gmsh_p2_mesh, normalised_section, section_frame
-from .torsion import _hole_prolongation
+from .torsion import _hole_prolongation, enclosed_areas
 
 
 @dataclass(frozen=True)
@@ -299,7 +299,7 @@ def composite_torsion(cm: CompositeMesh, G) -> CompositeTorsion:
     K1 = forms.weighted_laplace.assemble(basis, c=1.0 / cG)
     f = forms.prandtl_load.assemble(basis)
     P, nfree = _hole_prolongation(basis, cm.hole_names)
-    areas = _hole_areas(cm)
+    areas = enclosed_areas(cm.mesh, cm.hole_names)
     Kr = (P.T @ K1 @ P).tocsr()
     fr = P.T @ f
     fr[nfree:] += 2.0 * np.asarray(areas)
@@ -318,15 +318,6 @@ def composite_torsion(cm: CompositeMesh, G) -> CompositeTorsion:
     peaks, inter = _peaks(cm, phi, sf_stress, n_regions)
     peaks_w, _ = _peaks(cm, omega, w_stress, n_regions)
     return CompositeTorsion(GJ, GJ_w, peaks, peaks_w, inter, int(basis.N), phi, omega)
-
-
-def _hole_areas(cm: CompositeMesh) -> list[float]:
-    out = []
-    for name in cm.hole_names:
-        fb = FacetBasis(cm.mesh, ElementTriP2(), facets=cm.mesh.boundaries[name], intorder=6,
-                        mapping=boundary_mapping(cm.mesh))
-        out.append(-float(forms.x_normal.assemble(fb)))
-    return out
 
 
 def normal_stress_peaks(cm: CompositeMesh, E, props: WeightedProperties, N: float, Mx: float, My: float):

@@ -21,7 +21,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 import scipy.sparse as sp
-from skfem import Basis, ElementTriP2, FacetBasis, Functional, condense
+from skfem import Basis, ElementTriP2, FacetBasis, condense
 
 from . import forms
 from .bases import centroidal_laplacian, interpolate
@@ -86,19 +86,20 @@ def _hole_prolongation(basis: Basis, hole_names: list[str]):
     return P, len(free)
 
 
-@Functional
-def _x_normal(w):
-    return w.x[0] * w.n[0]
+def enclosed_areas(mesh, hole_names) -> list[float]:
+    """Area each named hole boundary of ``mesh`` encloses: −∮ x nₓ ds over it (n points out of the
+    section). Used by single-material and composite sections."""
+    out = []
+    for name in hole_names:
+        fb = FacetBasis(mesh, ElementTriP2(), facets=mesh.boundaries[name], intorder=6,
+                        mapping=boundary_mapping(mesh))
+        out.append(-float(forms.x_normal.assemble(fb)))
+    return out
 
 
 def hole_areas(sm: SectionMesh) -> list[float]:
-    """Area each meshed hole encloses: −∮ x nₓ ds over its boundary (n points out of the section)."""
-    out = []
-    for name in sm.hole_names:
-        fb = FacetBasis(sm.mesh, ElementTriP2(), facets=sm.mesh.boundaries[name], intorder=6,
-                        mapping=boundary_mapping(sm.mesh))
-        out.append(-float(_x_normal.assemble(fb)))
-    return out
+    """Area each meshed hole encloses (:func:`enclosed_areas`)."""
+    return enclosed_areas(sm.mesh, sm.hole_names)
 
 
 def boundary_gradients(sm: SectionMesh, u: np.ndarray, points: str = "sample"):
