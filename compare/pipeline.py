@@ -51,7 +51,7 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     if case.section.kind == "composite":  # bonded regions of several materials: their own solve and checks
         a = composite_step(case, fineness)
         composite_checks(a)
-        a.extra["warnings"] = []
+        a.extra["warnings"] = a.extra.pop("composite_warnings", [])
         a.seconds["total"] = time.perf_counter() - t0
         return a
     a = solve_case(case, fineness, study)  # mesh, properties, torsion and its pairs

@@ -277,6 +277,31 @@ def weighted_product_moment(w):
     return w.c * w.x[0] * w.x[1]
 
 
+@LinearForm
+def composite_shear_load_x(v, w):
+    """Weak right-hand side of the composite shear function Ψ (force Vx), axes through the
+    modulus-weighted centroid: ∫ G ν d*·∇v dA + ∫ E (EIxx·x − EIxy·y) v dA, with
+    d* = (EIxx(x²−y²)/2 − EIxy·xy, EIxx·xy + EIxy(x²−y²)/2) and, per region, E = ``w.e``,
+    G = ``w.g``, ν = ``w.nu`` (the strong form ∇·(G(∇Ψ − ν d*)) = −E (EIxx·x − EIxy·y), traction-free
+    boundaries and τ·n continuous across interfaces: natural conditions of this form)."""
+    x, y = w.x
+    d0 = w.EIxx * (x**2 - y**2) / 2 - w.EIxy * x * y
+    d1 = w.EIxx * x * y + w.EIxy * (x**2 - y**2) / 2
+    gv = grad(v)
+    return w.g * w.nu * (d0 * gv[0] + d1 * gv[1]) + w.e * (w.EIxx * x - w.EIxy * y) * v
+
+
+@LinearForm
+def composite_shear_load_y(v, w):
+    """The same for Φ (force Vy): ∫ G ν h*·∇v dA + ∫ E (EIyy·y − EIxy·x) v dA, with
+    h* = (EIyy·xy − EIxy(x²−y²)/2, −EIxy·xy − EIyy(x²−y²)/2)."""
+    x, y = w.x
+    h0 = w.EIyy * x * y - w.EIxy * (x**2 - y**2) / 2
+    h1 = -w.EIxy * x * y - w.EIyy * (x**2 - y**2) / 2
+    gv = grad(v)
+    return w.g * w.nu * (h0 * gv[0] + h1 * gv[1]) + w.e * (w.EIyy * y - w.EIxy * x) * v
+
+
 @Functional
 def x_normal(w):
     """∮ x nₓ ds on a boundary (minus the area a hole encloses, with n pointing out of the section)."""

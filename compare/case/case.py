@@ -35,7 +35,7 @@ from .shaft import Shaft, check_with_case, parse_shaft
 from .shaft_checklist import check_fits_with_section
 from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
 from .units import UnitSystem, from_si, to_si, unit_system
-from .composite import parse_composite
+from .composite import apply_region_polymers, parse_composite
 from .segment import parse_segment
 from .fields import angle as _angle, chart_factor, known as _known
 
@@ -228,7 +228,10 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
                          "segments takes its diameter from [section])")
     section = section if section is not None else _shaft_section(shaft)
     material = parse_material(data.get("material", {}), units)
-    apply_polymer(material, data, units, _alternates(loads) or (shaft is not None and shaft.rotating), shaft)
+    if section.kind == "composite":  # each polymer region is read at [service] (compare/case/composite.py)
+        apply_region_polymers(region_materials, data, units, _alternates(loads))
+    else:
+        apply_polymer(material, data, units, _alternates(loads) or (shaft is not None and shaft.rotating), shaft)
     analysis = parse_analysis(data.get("analysis", {}))
     fatigue = parse_fatigue(data.get("fatigue", {}), units)
     expected = parse_expected(data["expected"], units) if "expected" in data else {}
@@ -250,13 +253,11 @@ def _composite_limits(data: dict, loads: Loads, shaft) -> None:
     if "material" in data:
         raise InputError("material", None, "a composite section names a material in each [[section.regions]] table; "
                          "leave [material] out")
-    if loads.shear is not None:
-        raise InputError("loads.shear", data["loads"]["shear"], "transverse shear of a composite section is not "
-                         "computed: give torque, bending and axial force")
     if shaft is not None:
         raise InputError("shaft", None, "a composite section is checked on its own, not yet as a station of a layout")
     if "fatigue" in data:
-        raise InputError("fatigue", None, "the fatigue check of a composite section is not made: leave [fatigue] out")
+        raise InputError("fatigue", None, "a composite section takes its fatigue data region by region "
+                         "(section.regions[k].fatigue, ultimate, surface, polymer); leave [fatigue] out")
 
 
 def _segment_limits(data: dict, material: Material) -> None:

@@ -9,6 +9,7 @@ from .report_features import factors_only_summary, feature_lines, feature_warnin
 from .report_geometry import geometry_lines
 from .report_polymer import polymer_lines, polymer_warning_text
 from .section_geometry import SECTION_WARNINGS, section_warning_text
+from .words_composite import composite_warning_text
 
 CAUTION = ("shaftcheck is a cross-check aid for the designer. It does not replace the governing codes and "
            "standards, the full design calculation, or the judgement of a licensed engineer, who decide.")
@@ -84,6 +85,8 @@ def warning_text(w: dict, f: Fmt) -> str:
     code = w["code"]
     if code.startswith("polymer_"):  # a polymer's own data (compare/output/report_polymer.py)
         return polymer_warning_text(w, f)
+    if code.startswith("composite_"):  # a composite section's own (compare/output/words_composite.py)
+        return composite_warning_text(w)
     if code.startswith("feature_"):  # shoulders and grooves of [shaft]
         return feature_warning_text(w, f) or code
     if code in SECTION_WARNINGS:

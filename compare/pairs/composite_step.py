@@ -9,6 +9,7 @@ import math
 import time
 
 from classic import composite as cc
+from fem.cut import cut_section
 from fem.geometry import Disk
 
 from ..solve.composite_study import study_composite
@@ -22,6 +23,13 @@ SOURCE_EI = ("transformed section, EI = Σ Eᵢ·π(rₒ⁴ − rᵢ⁴)/4 (Gere
              "beams and the transformed-section method)")
 #: FE against an exact formula: the study's own estimate is the accepted error (plus the case's target).
 TOL_REASON = "exact formula: the FE value must agree within the accuracy target"
+SOURCE_FLEXURE = ("bonded concentric circular layers, Saint-Venant flexure with G, E, ν per layer: closed form "
+                  "derived by separation of variables (classic.composite.concentric_flexure_peak; one layer gives "
+                  "Timoshenko & Goodier, Theory of Elasticity, 3rd ed., ch. 12, circular section); exact for equal "
+                  "Poisson's ratios, and with unequal ones the same model as the FE (in-plane interface stresses left out)")
+SOURCE_ELEMENTARY = ("transformed-section shear formula τ = V·ΣEᵢQᵢ/(EI·b) on the neutral axis through the "
+                     "modulus-weighted centroid, Q and b cut from each region's exact outline (Gere, Mechanics of "
+                     "Materials, 6th ed., Secs. 5.8 and 6.3)")
 
 
 def concentric_layers(section) -> tuple[tuple[float, float], list[float], list[int]] | None:
@@ -60,6 +68,57 @@ def composite_step(case, fineness: float | None = None) -> Analysis:
 
 
 def composite_pairs(case, sol, target: float) -> list[Pair]:
+    return _torsion_bending_pairs(case, sol, target) + shear_pairs(case, sol, target)
+
+
+def shear_pairs(case, sol, target: float) -> list[Pair]:
+    """Transverse shear beside its hand values: the closed form of concentric layers (a check), and the
+    transformed-section VΣEQ/(EI·b) on the neutral axis (a factor: the elementary mean against the FE peak)."""
+    if sol.shear is None or case.loads.shear is None:
+        return []
+    mats = case.region_materials
+    Vx, Vy = case.loads.shear
+    V = math.hypot(Vx, Vy)
+    if V == 0:
+        return []
+    peaks = sol.shear_peaks
+    out = []
+    lay = concentric_layers(case.section)
+    if lay is not None:
+        _c, radii, order = lay
+        E = [mats[k].elastic_modulus for k in order]
+        G = [mats[k].shear_modulus for k in order]
+        nu = [mats[k].poisson for k in order]
+        for i, k in enumerate(order):
+            ex, _r, _th = cc.concentric_flexure_peak(V, E, G, nu, radii, i)
+            out.append(Pair(f"transverse shear τmax in {mats[k].name}", peaks[k].value, ex,
+                            SOURCE_FLEXURE, "check", "stress", target, TOL_REASON))
+    pr = sol.props
+    n = (Vx / V, Vy / V)
+    EI_n = n[0] ** 2 * pr.EIyy + n[1] ** 2 * pr.EIxx + 2 * n[0] * n[1] * pr.EIxy
+    prod = n[0] * n[1] * (pr.EIxx - pr.EIyy) + (n[0] ** 2 - n[1] ** 2) * pr.EIxy
+    fe = max(p.value for p in peaks)
+    if abs(prod) > 1e-6 * EI_n:
+        out.append(not_applicable("transverse shear τmax over the transformed-section VΣEQ/(EI·b)", fe,
+                                  "the shear force is not along a principal axis of the transformed section", "stress"))
+        return out
+    EQ, b = 0.0, 0.0
+    for reg, m in zip(case.section.regions, mats):
+        c = cut_section(reg.section, pr.centroid, n)
+        EQ += m.elastic_modulus * c.first_moment
+        b += c.chord
+    el = cc.transformed_section_shear(V, abs(EQ), EI_n, b) if b > 0 else None
+    if el is None:
+        out.append(not_applicable("transverse shear τmax over the transformed-section VΣEQ/(EI·b)", fe,
+                                  "the neutral axis does not cross the section", "stress"))
+        return out
+    out.append(Pair("transverse shear τmax over the transformed-section VΣEQ/(EI·b)", fe, el, SOURCE_ELEMENTARY,
+                    "factor", "stress", note=f"ΣEQ = {abs(EQ):.4g} N·m, b = {b:.4g} m; the elementary value is the mean "
+                    "across the cut, the FE value the largest anywhere: the ratio is the real stress distribution's effect"))
+    return out
+
+
+def _torsion_bending_pairs(case, sol, target: float) -> list[Pair]:
     mats = case.region_materials
     tr, pr = sol.torsion, sol.props
     lay = concentric_layers(case.section)

@@ -15,6 +15,7 @@ import time
 from dataclasses import dataclass, field
 
 from fem.composite import composite_torsion, mesh_composite, weighted_properties
+from fem.composite_shear import composite_shear, shear_stress_peaks
 from fem.errors import LimitError
 from fem.linalg import record_solves
 
@@ -22,7 +23,7 @@ from .accuracy import RATIO, one_study
 from .progress import tick
 
 #: Quantities the accuracy target applies to, with their formal order on P2 (peaks 2, energies 4).
-ORDER = {"GJ": 4.0, "EA": 4.0, "EIxx": 4.0, "EIyy": 4.0, "tau_max": 2.0}
+ORDER = {"GJ": 4.0, "EA": 4.0, "EIxx": 4.0, "EIyy": 4.0, "tau_max": 2.0, "tau_shear_max": 2.0}
 
 
 @dataclass
@@ -32,6 +33,10 @@ class CompositeSolution:
     props: object
     fineness: float
     seconds: float
+    #: transverse shear (fem/composite_shear.py) when the case gives a shear force: the shear functions
+    #: and each region's peak under the case's (Vx, Vy) through the shear centre
+    shear: object = None
+    shear_peaks: list | None = None
 
     @property
     def dofs(self) -> int:
@@ -55,13 +60,21 @@ def solve_composite_on(case, fineness: float) -> CompositeSolution:
     cm = mesh_composite(list(case.section.regions), fineness)
     tr = composite_torsion(cm, [m.shear_modulus for m in mats])
     pr = weighted_properties(cm, [m.elastic_modulus for m in mats])
-    return CompositeSolution(cm, tr, pr, fineness, time.perf_counter() - t0)
+    sh = peaks = None
+    if case.loads.shear is not None:
+        sh = composite_shear(cm, [m.elastic_modulus for m in mats], [m.shear_modulus for m in mats],
+                             [m.poisson for m in mats], pr)
+        peaks = shear_stress_peaks(cm, sh, *case.loads.shear)
+    return CompositeSolution(cm, tr, pr, fineness, time.perf_counter() - t0, sh, peaks)
 
 
 def quantities(sol: CompositeSolution) -> dict[str, float]:
     q = {"GJ": sol.torsion.GJ, "EA": sol.props.EA, "EIxx": sol.props.EIxx, "EIyy": sol.props.EIyy}
     for k, p in enumerate(sol.torsion.peaks):
         q[f"tau_max[{k}]"] = p.value
+    for k, p in enumerate(sol.shear_peaks or []):
+        if p.value > 0:  # a region the shear force leaves unloaded has nothing to converge
+            q[f"tau_shear_max[{k}]"] = p.value
     return q
 
 
@@ -73,7 +86,7 @@ def _estimates(seq: list[CompositeSolution]) -> dict:
     for key in qs[0]:
         base = key.split("[")[0]
         # one_study knows the section study's keys: a peak studies as tau_max, an energy as J
-        d = one_study("tau_max" if base == "tau_max" else "J", [q[key] for q in qs], dofs, (RATIO, RATIO), size)
+        d = one_study("tau_max" if base.startswith("tau") else "J", [q[key] for q in qs], dofs, (RATIO, RATIO), size)
         d["order_formal"] = ORDER[base]
         out[key] = d
     tr = seq[-1].torsion
