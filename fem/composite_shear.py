@@ -169,7 +169,8 @@ def shear_stress_peaks(cm: CompositeMesh, sh: CompositeShear, Vx: float, Vy: flo
 
 
 def shear_stress_at(cm: CompositeMesh, sh: CompositeShear, points, Vx: float, Vy: float) -> np.ndarray:
-    """(τzx, τzy) at points (2, n) inside the section (each read from the element that holds it)."""
+    """(τzx, τzy) at points (2, n) inside the section (each read from the element that holds it; NaN
+    outside the mesh)."""
     from .probe import probe  # noqa: PLC0415
 
     pts = np.asarray(points, float).reshape(2, -1)
@@ -177,5 +178,6 @@ def shear_stress_at(cm: CompositeMesh, sh: CompositeShear, points, Vx: float, Vy
     _, gf = probe(cm.mesh, sh.phi, pts)
     from .probe import _locate  # noqa: PLC0415
 
-    reg = np.array([cm.region_of[_locate(cm.mesh, pts[:, i])[0]] for i in range(pts.shape[1])])
-    return sh.stress(pts, gp, gf, reg, Vx, Vy)
+    hits = [_locate(cm.mesh, pts[:, i]) for i in range(pts.shape[1])]
+    reg = np.array([0 if h is None else cm.region_of[h[0]] for h in hits])
+    return sh.stress(pts, gp, gf, reg, Vx, Vy)  # NaN where a point lies outside every element

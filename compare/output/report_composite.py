@@ -11,6 +11,7 @@ import numpy as np
 from ..case.case import read_input_file
 from ..case.units import from_si
 from .report import CAUTION, Fmt
+from .results_composite import criterion_words
 
 
 def composite_report_files(a, res: dict, date: str | None = None) -> dict[str, str | bytes]:
@@ -129,6 +130,18 @@ def _csv(res: dict, system) -> str:
         if r["factor"] is not None:
             w.writerow([g, "n (von Mises bound against the region's yield)", r["factor"], "", "", "", "", "",
                         f"regions[{i}].factor"])
+        if "tau_shear_max" in r:
+            w.writerow([g, "transverse shear τmax", from_si(r["tau_shear_max"], "stress", f.s), stress, "", "", "",
+                        (conv.get(f"tau_shear_max[{i}]") or {}).get("gci"), f"regions[{i}].tau_shear_max"])
+        fat = r.get("fatigue") or {}
+        if fat.get("factor") is not None:
+            c = fat["criteria"][fat["criterion"]]
+            w.writerow([g, f"n fatigue ({fat['criterion']})", fat["factor"], "", "", "", c["source"], "",
+                        f"regions[{i}].fatigue.factor"])
+    for p in res.get("compare", []):
+        if p["quantity"].startswith("transverse shear") and p["classic"] is not None:
+            w.writerow(["section", p["quantity"], from_si(p["fe"], "stress", f.s), stress, from_si(p["classic"], "stress", f.s),
+                        p["ratio"], p["source"], "", "compare"])
     return buf.getvalue()
 
 
@@ -145,14 +158,32 @@ def _html(res: dict, system, figs: list, case_text: str | None, date: str | None
     f = Fmt(system)
     g = res.get("governing")
     acc = res["accuracy"]
-    verdict = ("no factor of safety (no region gives a yield strength)" if g is None else
-               f"lowest factor of safety n = {g['factor']:.3g} in {g['region']} (von Mises bound against its yield)")
-    if not acc["met"]:
+    verdict = ("no factor of safety (no region gives a yield strength or fatigue data)" if g is None else
+               f"lowest factor of safety n = {g['factor']:.3g} in {g['region']} ({criterion_words(g['criterion'])})")
+    if g is not None and not g.get("verdict_supported", acc["met"]):
+        verdict = ("NOT SHOWN (" + ", ".join(w.replace("_", " ") for w in g.get("not_supported_because", [])) +
+                   "): read the warnings. " + verdict)
+    elif not acc["met"]:
         verdict = "NOT SHOWN: the accuracy target was not reached. " + verdict
     rows = [(i + 1, r["name"], f.q(r["material"]["elastic_modulus"], "stress", 4), f.q(r["material"]["shear_modulus"], "stress", 4),
              f"{r['material']['poisson']:.3g}", f.q(r["tau_max"], "stress", 4), f.q(r["sigma_max"], "stress", 4),
              f.q(r["von_mises_bound"], "stress", 4), f.q(r["material"]["yield"], "stress", 4) if r["material"]["yield"] else "—",
-             "—" if r["factor"] is None else f"{r['factor']:.3g}") for i, r in enumerate(res["regions"])]
+             "—" if r["factor"] is None else f"{r['factor']:.3g}",
+             "—" if (r.get("fatigue") or {}).get("factor") is None else f"{r['fatigue']['factor']:.3g}")
+            for i, r in enumerate(res["regions"])]
+    fat_rows = []
+    for i, r in enumerate(res["regions"]):
+        fat = r.get("fatigue") or {}
+        if "skipped" in fat:
+            fat_rows.append((i + 1, r["name"], "—", "—", "—", "—", "not checked: " + fat["skipped"]))
+        elif fat.get("criterion"):
+            c = fat["criteria"][fat["criterion"]]
+            strength = (f"Se = {f.q(fat['Se'], 'stress', 4)} ({fat['Se_source']})" if fat["kind"] == "steel" else
+                        f"S_f = {f.q(fat['S_f'], 'stress', 4)} at {fat['cycles']:.3g} cycles ({fat['S_f_source']}); "
+                        f"Sut = {f.q(fat['tensile_strength'], 'stress', 4)}")
+            fat_rows.append((i + 1, r["name"], fat["criterion"].replace("_", " "), f"{fat['factor']:.3g}",
+                             f.q(c["sigma_a_vm"], "stress", 4), f.q(c["sigma_m_vm"], "stress", 4),
+                             f"on the {c['place']}; {strength}; {c['source']}"))
     pairs = [(p["quantity"], f.q(p["fe"], p["dimension"]) if p["dimension"] != "per_cubic" else f"{p['fe']:.6g}",
               "—" if p["classic"] is None else (f.q(p["classic"], p["dimension"]) if p["dimension"] != "per_cubic" else f"{p['classic']:.6g}"),
               "—" if p["ratio"] is None else f"{p['ratio']:.6f}", p["source"] or p.get("note", ""))
@@ -171,9 +202,15 @@ def _html(res: dict, system, figs: list, case_text: str | None, date: str | None
         f"{achieved} against the target "
         f"{100 * acc['target']:.3g} %.</p></section>",
         '<section id="regions"><h2>Regions and their stresses</h2>' + (_img(figs[0]) if figs else "") +
-        _table(("#", "region", "E", "G", "ν", "τmax", "σmax", "von Mises bound", "yield", "n"), rows, numeric=(2, 3, 4, 5, 6, 7, 8, 9)) +
+        _table(("#", "region", "E", "G", "ν", "τmax", "σmax", "von Mises bound", "yield", "n", "n fatigue"), rows,
+               numeric=(2, 3, 4, 5, 6, 7, 8, 9, 10)) +
         "<p class=\"small\">τmax and σmax are each region's peaks on its boundary and on both sides of its interfaces; "
-        "they are combined as if at one point (an upper bound of the region's von Mises stress).</p></section>",
+        "they are combined as if at one point (an upper bound of the region's von Mises stress); with a shear force τmax "
+        "adds the region's transverse-shear peak.</p></section>",
+        ('<section id="fatigue"><h2>Fatigue, region by region</h2>' +
+         _table(("#", "region", "governing criterion", "n", "σa'", "σm'", "where, strength and source"), fat_rows,
+                numeric=(3, 4, 5)) +
+         f"<p class=\"small\">{e((res.get('fatigue') or {}).get('method', ''))}.</p></section>") if fat_rows else "",
         '<section id="torsion"><h2>Torsional shear stress</h2>' + (_img(figs[1]) if len(figs) > 1 else "") + "</section>",
         '<section id="hand-vs-fe"><h2>Hand calculation against FE</h2>' +
         _table(("quantity", "FE", "hand", "FE/hand", "source"), pairs, numeric=(1, 2, 3)) + "</section>",
