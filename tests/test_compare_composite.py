@@ -251,3 +251,33 @@ def test_transverse_shear_of_concentric_layers_end_to_end(tmp_path, run_cli):
     el = pairs["transverse shear τmax over the transformed-section VΣEQ/(EI·b)"]
     assert el["kind"] == "factor" and el["ratio"] > 1  # the steel core's centre far above the mean across the cut
     assert math.hypot(*res["shear"]["centre"]) < 1e-9 and res["shear"]["force"] == [0.0, 800.0]
+
+
+def test_a_region_chart_factor_and_a_region_without_fatigue_data(tmp_path, run_cli):
+    """kt_bending on the steel core with no notch radius: Kf = Kt (q = 1, the conservative choice,
+    Shigley's Mechanical Engineering Design, 9th ed., eq. 6-32), so σa' = Kt·E₁·M·R₁/ΣEI and
+    σm' = Kt·√3·G₁·θ·R₁ (the region's stresses are scaled as a whole); the Goodman factor by hand as in
+    the test above (eqs. 6-8, 6-19, 6-20, 6-46). The sleeve gives no fatigue data while the loads
+    alternate: said, and the lowest factor is no verdict."""
+    text = (LAYERS.format(fineness=1.0)
+            .replace('yield = "350 MPa"', 'yield = "350 MPa"\nultimate = "600 MPa"\nsurface = "machined"\n'
+                     'fatigue = { kt_bending = 1.8, kt_bending_source = "a chart (test value)" }')
+            .replace("[analysis]", "rotating = true\n[analysis]\naccuracy = \"0.2 %\""))
+    code, out, err, res = run(tmp_path, run_cli, text)
+    assert code == 0, err
+    G1, G2 = 206e9 / 2.6, 3e9 / 2.76
+    R1, R2 = 0.004, 0.009
+    EI = concentric_bending_rigidity([206e9, 3e9], [0.0, R1, R2])
+    GJ = concentric_torsional_rigidity([G1, G2], [0.0, R1, R2])
+    Kt, Sut = 1.8, 600.0
+    sa, sm = Kt * 206e9 * 6.0 * R1 / EI, math.sqrt(3) * G1 * 8.0 / GJ * R1  # Kfs = 1: no kts_torsion given
+    Se = 0.5 * Sut * 4.51 * Sut**-0.265 * 1.24 * (2 * R2 * 1e3) ** -0.107
+    steel = res["regions"][0]["fatigue"]
+    row = {"fem": steel["criteria"]["goodman"]["factor"], "exact": 1 / (sa / (Se * 1e6) + sm / (Sut * 1e6))}
+    assert row["fem"] == pytest.approx(row["exact"], rel=res["accuracy"]["target"]), row
+    cf = steel["chart_factors"]["bending"]
+    assert cf["Kt"] == 1.8 and cf["q"] == 1.0 and cf["Kf"] == 1.8 and steel["chart_factors"]["torsion"] is None
+    assert res["regions"][1]["fatigue"]["skipped"].startswith("no fatigue data")
+    codes = [w["code"] for w in res["warnings"]]
+    assert codes == ["composite_fatigue_not_checked"] and res["governing"]["verdict_supported"] is False
+    assert "FATIGUE NOT CHECKED IN EVERY REGION" in out and "VERDICT: NOT SHOWN" in out
