@@ -280,7 +280,7 @@ UNITS = {
     "EA": "N", "centroid_weighted": "m", "sigma_max": "Pa", "von_mises_bound": "Pa", "tau_interface_max": "Pa",
     "sigma_max_at": "m", "elastic_modulus": "Pa", "shear_modulus": "Pa", "yield": "Pa",
     # a composite section's transverse shear and fatigue per region (compare/checks/composite_*.py)
-    "tau_shear_max": "Pa", "tau_shear_max_at": "m", "torque_with_shear": "N*m", "S_f": "Pa", "tensile_strength": "Pa",
+    "tau_shear_max": "Pa", "tau_shear_max_at": "m", "tau_shear_interface_max": "Pa", "torque_with_shear": "N*m", "S_f": "Pa", "tensile_strength": "Pa",
     "ultimate": "Pa",
     "section_modulus": "m**3",
     **dict.fromkeys(["kts", "J_relative_gap", "peak_relative_difference", "fe_vs_boundary_integral", "kappa_x",

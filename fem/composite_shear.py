@@ -133,11 +133,13 @@ def composite_shear(cm: CompositeMesh, E, G, nu, props: WeightedProperties) -> C
 @dataclass
 class ShearRegionPeak(RegionPeak):
     place: str = ""  # "boundary", "interface" or "inside"
+    interface: float | None = None  # the largest |τ| on the region's interfaces (its own side), or None
 
 
 def shear_stress_peaks(cm: CompositeMesh, sh: CompositeShear, Vx: float, Vy: float) -> list:
     """Per region: the largest |τ| of the forces (Vx, Vy) through the shear centre [Pa], where, and
-    whether on the outer boundary or a hole, on an interface (from the region's own side), or inside."""
+    whether on the outer boundary or a hole, on an interface (from the region's own side), or inside;
+    and the largest on the region's interfaces alone."""
     n_regions = len(sh.E)
     best = [ShearRegionPeak(-math.inf, (math.nan, math.nan), "") for _ in range(n_regions)]
 
@@ -156,15 +158,22 @@ def shear_stress_peaks(cm: CompositeMesh, sh: CompositeShear, Vx: float, Vy: flo
 
     x, mag, reg = read(sh.psi, sh.phi, cm.mesh.boundary_facets(), None)
     take(mag, x, reg, "boundary")
+    inter = [None] * n_regions
     for side in (0, 1) if len(cm.interfaces) else ():
         x, mag, reg = read(sh.psi, sh.phi, cm.interfaces, side)
         take(mag, x, reg, "interface")
+        for k in range(n_regions):
+            if np.any(reg == k):
+                m = float(np.max(mag[reg == k]))
+                inter[k] = m if inter[k] is None else max(inter[k], m)
     lat = _lattice(LATTICE)
     cb = CellBasis(cm.mesh, ElementTriP2(), quadrature=(lat, np.full(lat.shape[1], 1.0 / lat.shape[1])))
     x = np.asarray(cb.global_coordinates())
     reg = np.repeat(cm.region_of[:, None], x.shape[-1], axis=1)
     mag = np.hypot(*sh.stress(x, interpolate(cb, sh.psi).grad, interpolate(cb, sh.phi).grad, reg, Vx, Vy))
     take(mag, x, reg, "inside")  # an element's lattice: taken only where it beats the boundary reads
+    for k, b in enumerate(best):
+        b.interface = inter[k]
     return best
 
 

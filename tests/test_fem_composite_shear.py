@@ -181,3 +181,16 @@ def test_off_centre_insert_converges_to_a_finer_mesh():
     err = [[abs(v[k] / vals[-1][k] - 1) for k in (0, 1)] for v in vals[:2]]
     print(f"composite insert: shear peaks against the finest mesh {err}")
     assert all(err[1][k] < err[0][k] for k in (0, 1)) and max(err[1]) < 0.02
+
+
+def test_interface_values_from_both_sides_against_the_closed_form():
+    """On the core–sleeve interface τ_zr is continuous and τ_zθ jumps with G (closed form): each
+    side's largest value is the closed form's largest over the circle r = R1 in that layer."""
+    cm, sh, mod = layers(1.25, [STEEL, POLYMER])
+    V = 1000.0
+    peaks = shear_stress_peaks(cm, sh, V, 0.0)
+    for k in (0, 1):
+        a = concentric_flexure_shear(V, *mod, [0.0, R1, R2], k, R1, 0.0)[0]
+        b = concentric_flexure_shear(V, *mod, [0.0, R1, R2], k, R1, math.pi / 2)[1]
+        row = {"fem": peaks[k].interface, "exact": max(abs(a), abs(b))}
+        assert row["fem"] == pytest.approx(row["exact"], rel=3e-3), (k, row)

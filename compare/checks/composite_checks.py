@@ -62,7 +62,8 @@ def composite_checks(a) -> None:
         })
         if sol.shear_peaks:
             p = sol.shear_peaks[k]
-            regions[-1].update(tau_shear_max=p.value, tau_shear_max_at=list(p.at), tau_shear_max_place=p.place)
+            regions[-1].update(tau_shear_max=p.value, tau_shear_max_at=list(p.at), tau_shear_max_place=p.place,
+                               tau_shear_interface_max=p.interface)
         if T_shear:
             regions[-1]["torque_with_shear"] = T + T_shear
     fat = composite_fatigue(a)
