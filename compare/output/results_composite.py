@@ -99,6 +99,12 @@ def composite_summary(res: dict, system) -> str:
     t = res["torsion"]
     lines.append(f"  torsional rigidity GJ {f.q(t['GJ'], 'rigidity')} (bracket up to {f.q(t['GJ_warping'], 'rigidity')}); "
                  f"EIxx {f.q(res['section']['EIxx'], 'rigidity')}, EIyy {f.q(res['section']['EIyy'], 'rigidity')}")
+    if "shear" in res:
+        sh = res["shear"]
+        tiny = 1e-9 * res["section"]["area"] ** 0.5  # round-off shown as 0
+        centre = [0.0 if abs(c) < tiny else c for c in sh["centre"]]
+        lines.append(f"  transverse shear: V = ({f.q(sh['force'][0], 'force')}, {f.q(sh['force'][1], 'force')}) through the "
+                     f"shaft axis; shear centre at {f.point(centre)} (Saint-Venant flexure, E, G, ν per region)")
     acc = res["accuracy"]
     if acc["achieved"] is not None:
         lines.append(f"  accuracy: within {100 * acc['achieved']:.2g} % (target {100 * acc['target']:.3g} %, three-mesh study)")
