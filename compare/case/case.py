@@ -221,7 +221,8 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
         data = dict(data, section={"shape": "round", "diameter": f"{segment.d!r} m"})
     section = parse_section(data["section"], units, geometry, base_dir, region_materials) if "section" in data else None
     loads = parse_loads(data.get("loads", {}), units)
-    shaft = (parse_shaft(data["shaft"], units, parse_section, loads.rotating, parse_feature_lengths)
+    composite = (section, region_materials) if section is not None and section.kind == "composite" else None
+    shaft = (parse_shaft(data["shaft"], units, parse_section, loads.rotating, parse_feature_lengths, composite)
              if "shaft" in data else None)
     if "section" not in data and not (shaft is not None and shaft.segments):
         raise InputError("section", None, "is missing: every case describes a section (a [shaft] without "
@@ -253,8 +254,6 @@ def _composite_limits(data: dict, loads: Loads, shaft) -> None:
     if loads.shear is not None:
         raise InputError("loads.shear", data["loads"]["shear"], "transverse shear of a composite section is not "
                          "computed: give torque, bending and axial force")
-    if shaft is not None:
-        raise InputError("shaft", None, "a composite section is checked on its own, not yet as a station of a layout")
     if "fatigue" in data:
         raise InputError("fatigue", None, "the fatigue check of a composite section is not made: leave [fatigue] out")
 

@@ -20,7 +20,9 @@
 
 Each region is added and cut like a custom section; regions are bonded where they touch and may not
 overlap. ``shear_modulus`` defaults to E/(2(1 + ν)) (isotropic material); ``yield`` is the strength the
-region's static check uses (for a polymer: its strength at the service conditions).
+region's static check uses (for a polymer: its strength at the service conditions). ``density`` is
+optional on its own and needed when the section is a segment of a shaft layout with self-weight or a
+speed (the beam's mass per length; compare/case/shaft_composite.py).
 """
 from __future__ import annotations
 
@@ -33,7 +35,7 @@ from fem.geometry import Section, custom_section
 from .fields import known
 from .units import to_si
 
-_REGION = {"name", "add", "cut", "elastic_modulus", "shear_modulus", "poisson", "yield", "length"}
+_REGION = {"name", "add", "cut", "elastic_modulus", "shear_modulus", "poisson", "yield", "length", "density"}
 
 
 @dataclass
@@ -47,6 +49,7 @@ class RegionMaterial:
     yield_strength: float | None
     field: str
     shear_modulus_from: str = "given"
+    density: float | None = None  # [kg/m³]: a layout's self-weight and critical speeds (compare/case/shaft_composite.py)
 
 
 def parse_composite(s: dict, units, primitive, text) -> tuple[Section, list[RegionMaterial]]:
@@ -104,4 +107,9 @@ def _material(r: dict, f: str, name: str, units) -> RegionMaterial:
         Sy = to_si(r["yield"], "stress", f"{f}.yield", units)
         if not Sy > 0:
             raise InputError(f"{f}.yield", r["yield"], "must be positive")
-    return RegionMaterial(name, E, G, nu, Sy, f, src)
+    rho = None
+    if "density" in r:
+        rho = to_si(r["density"], "density", f"{f}.density", units)
+        if not rho > 0:
+            raise InputError(f"{f}.density", r["density"], "must be positive")
+    return RegionMaterial(name, E, G, nu, Sy, f, src, rho)

@@ -27,6 +27,7 @@ from ..case.units import from_si
 from .feature_local import fillet_fe_path
 from .findings import EXIT_NO_VERDICT, withdraw_verdicts
 from .shaft_beam import SIDE, loads_at, solve_layout
+from .shaft_composite import composite_segments
 from .shaft_extent import at_load_point, check_over_extent, section_loads
 
 #: Relative change of a station's loads between the round-bar beam and the beam with the stations'
@@ -78,6 +79,9 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
     if near:  # in a groove the plain section is the groove bottom's (the diameter of the groove's Kt nominals)
         d = min(d, min(d - 2 * g.depth for g in near))
     section = st.section if st.section is not None else round_section(d, bore)
+    comp = composite_segment_at(shaft, segs, st.at)
+    if comp is not None:  # bonded regions: the segment's composite section, checked region by region
+        section, bore = comp.section, None
     fat = replace(case.fatigue) if case.fatigue else Fatigue()
     kt_from = {}
     for key in ("kt_bending", "kts_torsion"):
@@ -102,7 +106,7 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
     title = f"{case.title} — station at z = {_where(case, st.at)}" + (f" ({st.name})" if st.name else "")
     sc = Case(title, case.units, section, lo, case.material, case.analysis, path=case.path, fatigue=fat,
               feature_lengths=parse_feature_lengths(st.raw.get("section", {}), case.units) if st.section else [],
-              geometry=st.geometry)
+              geometry=st.geometry, region_materials=list(comp.materials) if comp is not None else [])
     features = (["shoulder"] if step else []) + (["groove"] * bool(near))
     rec = {"at": st.at, "name": st.name, "diameter": d, "bore": bore, "features": features,
            "section_kind": section.kind, "kt_from": kt_from}
@@ -112,6 +116,28 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
     if sharp:
         rec["sharp"] = sharp
     return sc, rec
+
+
+def composite_segment_at(shaft: Shaft, segs, at: float) -> Segment | None:
+    """The composite segment a station is on, or None (a station at a joint of a composite segment
+    with another is refused by the case parser)."""
+    tol = SHARP_REACH * shaft.length
+    return next((s for s in segs if s.section is not None and s.start - tol <= at <= s.end + tol), None)
+
+
+def composite_fatigue_not_checked(rec: dict, a, rotating: bool) -> None:
+    """A station on a composite segment of a rotating shaft: its bending alternates, and the fatigue of
+    bonded regions is not checked here. Said first; the station (and so the shaft) has no verdict
+    (exit code :data:`EXIT_NO_VERDICT`), never a silent pass on the static factor alone."""
+    rec["composite"] = True
+    if not rotating:
+        return
+    w = {"code": "composite_fatigue_not_checked", "at": rec["at"], "name": rec.get("name", "")}
+    a.extra["warnings"] = [w] + list(a.extra.get("warnings") or [])
+    a.extra["exit_code"] = max(EXIT_NO_VERDICT, a.extra.get("exit_code") or 0)
+    if a.extra.get("governing"):
+        a.extra["governing"] = dict(a.extra["governing"], verdict_supported=False,
+                                    not_a_verdict="static only: the fatigue of a composite section is not checked")
 
 
 def _where(case: Case, z: float) -> str:
@@ -157,7 +183,8 @@ def layout_step(case: Case, analyse):
     governing station's Analysis, with ``extra['shaft']`` holding the layout record and
     ``extra['shaft_stations']`` the station analyses (governing included)."""
     shaft = case.shaft
-    layout = solve_layout(shaft, case.section, case.material)
+    comp = composite_segments(case)  # each composite segment's section solved once: EI, κGA, GJ, mass
+    layout = solve_layout(shaft, case.section, case.material, composite=comp)
     segs = shaft.segments or _uniform(shaft, case)
     stations, analyses = [], []
     for st in shaft.stations:
@@ -169,7 +196,7 @@ def layout_step(case: Case, analyse):
         analyses.append(analyse(sc))
     overrides = _fe_overrides(shaft, stations, analyses)
     if overrides:
-        layout2 = solve_layout(shaft, case.section, case.material, overrides=overrides)
+        layout2 = solve_layout(shaft, case.section, case.material, overrides=overrides, composite=comp)
         for i, st in enumerate(shaft.stations):
             d = stations[i]["diameter"]
             sl = station_loads(layout2, st, d)
@@ -186,6 +213,7 @@ def layout_step(case: Case, analyse):
         layout = layout2
     layout["fe_sections"] = [{"from": o[0], "to": o[1], "Ixx": o[2], "Iyy": o[3], "area": o[4], "kappa": o[5]}
                              for o in overrides]
+    layout["composite_segments"] = comp
     for i, (st, rec) in enumerate(zip(shaft.stations, stations)):
         a = analyses[i]
         rec["at_load_point"] = at_load_point(layout, st.at)
@@ -204,6 +232,8 @@ def layout_step(case: Case, analyse):
         elif hook is not None:  # the FE path from the feature's local stresses
             hook(a)
         no_verdict_at_sharp(rec, a)
+        if "composite" in a.extra:
+            composite_fatigue_not_checked(rec, a, shaft.rotating)
         gov = a.extra.get("governing") or {}
         rec["governing"] = gov or None
         rec["exit_code"] = a.extra.get("exit_code")
