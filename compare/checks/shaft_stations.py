@@ -130,8 +130,13 @@ def composite_fatigue_not_checked(rec: dict, a, rotating: bool) -> None:
     bonded regions is not checked here. Said first; the station (and so the shaft) has no verdict
     (exit code :data:`EXIT_NO_VERDICT`), never a silent pass on the static factor alone."""
     rec["composite"] = True
+    st = a.extra["composite"]["study"]
+    achieved = max((v["gci"] for v in st.estimates.values() if v["gci"] is not None), default=None)
+    if achieved is None or achieved > st.target or st.limited is not None:  # as the composite results say
+        a.extra["exit_code"] = max(3, a.extra.get("exit_code") or 0)
     if not rotating:
         return
+    rec["fatigue_not_checked"] = "composite section"
     w = {"code": "composite_fatigue_not_checked", "at": rec["at"], "name": rec.get("name", "")}
     a.extra["warnings"] = [w] + list(a.extra.get("warnings") or [])
     a.extra["exit_code"] = max(EXIT_NO_VERDICT, a.extra.get("exit_code") or 0)

@@ -84,6 +84,10 @@ def warning_text(w: dict, f: Fmt) -> str:
     code = w["code"]
     if code.startswith("polymer_"):  # a polymer's own data (compare/output/report_polymer.py)
         return polymer_warning_text(w, f)
+    if code == "composite_fatigue_not_checked":  # a layout's station on a composite segment, rotating
+        return ("FATIGUE NOT CHECKED: this station is on a composite segment of a rotating shaft (its bending "
+                "alternates every turn) and the fatigue of bonded regions is not checked; the factors below are "
+                "static only and are not a verdict.")
     if code.startswith("feature_"):  # shoulders and grooves of [shaft]
         return feature_warning_text(w, f) or code
     if code in SECTION_WARNINGS:

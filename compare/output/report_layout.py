@@ -15,6 +15,7 @@ from .report_combined import LABELS
 from .report_checklist import checklist_html
 from .report_polymer import layout_lines, polymer_html
 from .results_shaft import station_place_lines
+from .report_composite_layout import composite_segments_html, composite_station_html, is_composite
 from .report_html import CAUTION_MORE, CSS, _convergence, _factors, _img, _materials, _num, _table, e, hand_vs_fe
 
 #: the fixed sections of the layout report, in order (id, heading); each station's part follows
@@ -139,7 +140,7 @@ def render_layout(res: dict, system, figures: list, stations: list, case_text: s
         if res.get("polymer_layout") else "")
     parts["critical-speeds"] = _critical(sh) + _fig(figs, "shaft_modes")
     parts["features"] = _features(sh, f) + _fig(figs, "feature_stress")
-    parts["stations"] = _station_table(res, f)
+    parts["stations"] = _station_table(res, f) + composite_segments_html(res, f)
     parts["checklist"] = checklist_html(res, system, f)
     parts["accuracy"] = _accuracy(res, stations, f)
     parts["materials"] = _materials(res)
@@ -151,8 +152,9 @@ def render_layout(res: dict, system, figures: list, stations: list, case_text: s
         body.append(f'<section id="{sid}"{cls}><h2>{e(head)}</h2>{parts.get(sid, "")}</section>')
         if sid == "stations":
             for j, (st, (sres, sfigs)) in enumerate(zip(res.get("section_loads", []), stations)):
+                part = composite_station_html(st, sres, sfigs, f) if is_composite(sres) else _station_part(st, sres, sfigs, f)
                 body.append(f'<section id="station-{j + 1}"><h2>{e(station_label(st, j, f).capitalize())}</h2>'
-                            f"{_station_part(st, sres, sfigs, f)}</section>")
+                            f"{part}</section>")
     return ("<!DOCTYPE html>\n<html lang=\"en\"><head><meta charset=\"utf-8\">"
             f"<title>{e(title)} — shaftcheck layout report</title><style>{CSS_LAYOUT}</style></head><body>"
             f"<h1>{e(title)}</h1><p class=\"small\">shaftcheck {e(res['tool']['version'])} design report of a shaft "
@@ -305,6 +307,9 @@ def _station_table(res: dict, f: Fmt, short: bool = False) -> str:
         fe_path = "meridian-section FE at the fillet" if local else "2-D section FE"
         if gov.get("no_verdict"):
             verdict = "NO VERDICT (unbounded stress)"
+        elif gov.get("region") is not None:  # a composite station: per region, static only
+            verdict = (f"n = {gov['factor']:.3g} (von Mises bound, {gov['region']}; static only)" +
+                       ("; NOT A VERDICT: fatigue not checked" if gov.get("verdict_supported") is False else ""))
         elif gov.get("factor") is None:
             verdict = "no factor"
         else:

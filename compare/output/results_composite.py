@@ -50,7 +50,7 @@ def composite_results(a, warnings_out, schema_version: int) -> dict:
                                    f"{'unknown' if achieved is None else f'{100 * achieved:.3g} %'}"
                                    f"{f' ({st.limited})' if st.limited else ''}: the numbers carry that error at best.",
                                    "data": {"target": st.target, "achieved": achieved, "limited_by": st.limited}})
-    out["exit_code"] = 0 if met else 3
+    out["exit_code"] = max(0 if met else 3, a.extra.get("exit_code") or 0)  # 4: a layout station without a verdict
     return out
 
 
@@ -61,7 +61,9 @@ def composite_summary(res: dict, system) -> str:
     for w in res.get("warnings", []):
         lines.append(f"WARNING: {w['text']}")
     g = res.get("governing")
-    if g is not None and res["accuracy"]["met"]:
+    if g is not None and g.get("verdict_supported") is False:  # a layout station: static only (fatigue not checked)
+        lines.append(f"VERDICT: NOT SHOWN ({g.get('not_a_verdict')}); lowest static n = {g['factor']:.3g} in {g['region']}")
+    elif g is not None and res["accuracy"]["met"]:
         lines.append(f"VERDICT: lowest n = {g['factor']:.3g} in {g['region']} (von Mises bound, FE)")
     elif g is not None:
         lines.append(f"VERDICT: NOT SHOWN (accuracy not met); lowest n = {g['factor']:.3g} in {g['region']}")
@@ -88,5 +90,4 @@ def composite_summary(res: dict, system) -> str:
             lines.append(f"    {p['quantity']}: FE/exact {p['ratio']:.6f}")
     lines.append("")
     lines.append("Not checked: " + "; ".join(res["not_checked"]) + ".")
-    lines.append("section.vtu is not written for composite sections yet.")
     return "\n".join(lines)

@@ -11,7 +11,8 @@ from dataclasses import replace
 from ..checks.shaft_modes import mode_shapes
 from .report import Fmt
 
-_STATION_KEYS = ("governing", "warnings", "static", "fatigue", "torsion", "section", "exit_code")
+_STATION_KEYS = ("governing", "warnings", "static", "fatigue", "torsion", "section", "exit_code", "regions",
+                 "not_checked")  # regions, not_checked: a station on a composite segment
 
 
 def add_shaft_results(out: dict, a, build_results) -> None:
@@ -46,6 +47,7 @@ def add_shaft_results(out: dict, a, build_results) -> None:
                  "critical speeds)", "stiffness": "round-bar E·I and κ·G·A per segment; a station's FE section over "
                  "its feature length where given (fe_sections)"},
         "governing_station": lay["governing_station"],
+        "composite_segments": [p.record for p in (lay.get("composite_segments") or {}).values()],
         "warnings": shaft_warnings(lay, stations),
     }
     loads = []
@@ -78,6 +80,13 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
                                 f"corner ({c['field']} not given). The elastic stress there is unbounded, so no Kt, no "
                                 "local stress and no factor of safety can be given for it, and none is given for the "
                                 "whole shaft; give the real fillet radius."})
+    for st in stations:  # then: a rotating shaft's station on a composite segment, whose fatigue is not checked
+        if st.get("fatigue_not_checked"):
+            out.append({"code": "station_fatigue_not_checked", "at": st["at"], "name": st["name"],
+                        "text": f"NO VERDICT at station {st['name'] or st['at']}: FATIGUE NOT CHECKED. It is on a "
+                                "composite segment of a rotating shaft, so its bending stress alternates every turn, and "
+                                "the fatigue of bonded regions is not checked here; its factors are static only and are "
+                                "not a verdict for the shaft."})
     for st in stations:
         if st.get("warning") == "kt_missing" and not st.get("sharp"):
             out.append({"code": "station_kt_missing", "at": st["at"], "name": st["name"], "features": st["features"],
@@ -86,7 +95,7 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
                                 "fatigue.kt_bending / kts_torsion for the station with their source). Its factors are "
                                 "not a verdict for the shoulder."})
         code = st.get("exit_code")
-        if code:
+        if code and not (code == 4 and st.get("fatigue_not_checked")):  # said above
             out.append({"code": "station_without_verdict", "at": st["at"], "name": st["name"], "exit_code": code,
                         "text": f"station {st['name'] or st['at']}: its section check has no supported verdict "
                                 f"(exit code {code}; see its warnings in section_loads)"})
