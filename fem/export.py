@@ -30,9 +30,10 @@ def projector(basis: Basis):
 
 def centroid_values(mesh, u: np.ndarray):
     """A P2 field's value, gradient (2, elements) and position (2, elements) at every element's
-    centroid (one-point rule): for fields that jump between elements, such as the stresses of a
+    centroid (the reference point (1/3, 1/3), mapped; skfem's intorder=1 rule has three points, none of
+    them the centroid): for fields that jump between elements, such as the stresses of a
     composite section, whose gradients jump at every interface."""
-    b = Basis(mesh, ElementTriP2(), intorder=1)
+    b = Basis(mesh, ElementTriP2(), quadrature=(np.array([[1.0 / 3.0], [1.0 / 3.0]]), np.array([0.5])))
     f = interpolate(b, u)
     x = np.asarray(b.global_coordinates())[:, :, 0]
     return np.asarray(f)[:, 0], np.vstack([f.grad[0][:, 0], f.grad[1][:, 0]]), x

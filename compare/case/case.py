@@ -345,6 +345,7 @@ def parse_section(s: dict, units: UnitSystem | None, geometry: dict | None = Non
         if not found:
             raise
         unit = units.label("length") if units is not None and isinstance(raw, (int, float)) and not exc.field.endswith("angle") else None
+        unit = exc.unit or unit  # a field of another dimension (a composite region's density) says its own
         raise InputError(exc.field, raw, _lengths_in(exc.reason, units), unit) from None
 
 

@@ -111,5 +111,6 @@ def _material(r: dict, f: str, name: str, units) -> RegionMaterial:
     if "density" in r:
         rho = to_si(r["density"], "density", f"{f}.density", units)
         if not rho > 0:
-            raise InputError(f"{f}.density", r["density"], "must be positive")
+            raise InputError(f"{f}.density", r["density"], "must be positive",
+                             units.label("density") if units is not None else None)
     return RegionMaterial(name, E, G, nu, Sy, f, src, rho)

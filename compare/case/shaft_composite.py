@@ -124,7 +124,7 @@ def check_composite_segments(sh, raw: dict) -> None:
                                  "composite segment: the shoulder factor of bonded regions is not computed (leave it out)")
         for k, g in enumerate(sh.grooves):
             if s.start - tol < g.at + g.width / 2 and g.at - g.width / 2 < s.end + tol:
-                raise InputError(f"shaft.grooves[{k}].at", g.at, "is on a composite segment: the groove factor of "
+                raise InputError(f"shaft.grooves[{k}].at", (raw.get("grooves") or [{}])[k].get("at"), "is on a composite segment: the groove factor of "
                                  "bonded regions is not computed")
 
 

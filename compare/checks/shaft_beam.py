@@ -242,7 +242,7 @@ def solve_layout(shaft: Shaft, section, material, overrides=(), composite=None) 
             "fe_residual": max(rx.residual, ry.residual), "items": items, "qy": qy, "z": z,
             "plane_x": rx, "plane_y": ry, **checks, "critical_speeds": crit,
             "axial_reaction_note": "axial force taken by the left-most support (the locating bearing)" if Fz_total else None,
-            "model": model}
+            "model": model, "composite_segments": composite or {}}
 
 
 def loads_at(items: list[PointItem], z: np.ndarray, qy: np.ndarray, x: float) -> dict:

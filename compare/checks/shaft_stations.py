@@ -218,7 +218,6 @@ def layout_step(case: Case, analyse):
         layout = layout2
     layout["fe_sections"] = [{"from": o[0], "to": o[1], "Ixx": o[2], "Iyy": o[3], "area": o[4], "kappa": o[5]}
                              for o in overrides]
-    layout["composite_segments"] = comp
     for i, (st, rec) in enumerate(zip(shaft.stations, stations)):
         a = analyses[i]
         rec["at_load_point"] = at_load_point(layout, st.at)

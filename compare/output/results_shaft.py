@@ -151,6 +151,9 @@ def shaft_summary(res: dict, system) -> str:
         gov = (st["results"].get("governing") or {})
         n = gov.get("factor")
         verdict = "no verdict" if gov.get("no_verdict") or n is None else f"n = {n:.3g} ({gov.get('criterion')})"
+        if gov.get("region") is not None:  # a station on a composite segment
+            verdict += f" in {gov['region']}, static only" + ("; NOT A VERDICT: fatigue not checked"
+                                                             if gov.get("verdict_supported") is False else "")
         if "fe_local" in (st["results"].get("fatigue") or {}) or "fe_local" in (st["results"].get("static") or {}):
             verdict += "; FE path from the meridian-section FE at the fillet"
         M = math.hypot(st["Mx"], st["My"])
@@ -161,6 +164,14 @@ def shaft_summary(res: dict, system) -> str:
         lines.append(f"    {f.q(st['at'], 'length', 4)} {st['name'] or ''}: M {f.q(M, 'moment', 4)}, T "
                      f"{f.q(st['T'], 'moment', 4)}, N {f.q(st['N'], 'force', 4)}{side} — {verdict}")
         lines.extend(f"      {x}" for x in station_place_lines(st, f))
+    for c in sh.get("composite_segments") or []:
+        hand = {p["quantity"].split(": ", 1)[1]: p["ratio"] for p in c["compare"]}
+        ratios = ", ".join(f"{k.split(' (')[0]} FE/hand {v:.6f}" for k, v in hand.items() if v is not None)
+        lines.append(f"  composite segment {c['segment']} ({f.q(c['from'], 'length', 4)} to {f.q(c['to'], 'length', 4)}): "
+                     f"EI {f.q(c['EI'], 'rigidity', 5)}, GJ {f.q(c['GJ'], 'rigidity', 5)}" + (f"; {ratios}" if ratios else ""))
+    if sh.get("composite_segments"):
+        lines.append("  polymer regions: the supplier's data for the grade and the part's own tests decide (grade, processing, "
+                     "weld lines, orientation in the moulding, temperature, moisture and time under load change them)")
     g = sh["governing_station"]
     lines.append(f"  the section summary below is the governing station's ({_station_name(res, g, f)})")
     return "\n".join(lines)
