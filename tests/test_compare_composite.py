@@ -92,7 +92,7 @@ def test_the_demo_overmoulded_shaft_runs(tmp_path, run_cli):
     # a square body with a pin has no closed form: the pairs say so rather than compare
     assert all(p["kind"] == "not applicable" for p in res["compare"])
     # the design report: self-contained page, both figures in both formats, a csv row per region result
-    assert sorted(p.name for p in (tmp_path / "o").iterdir()) == ["figures", "report.html", "results.csv", "results.json"]
+    assert sorted(p.name for p in (tmp_path / "o").iterdir()) == ["figures", "report.html", "results.csv", "results.json", "section.vtu"]
     html = (tmp_path / "o" / "report.html").read_text()
     assert "http://" not in html.replace("http://www.w3.org", "") and "<script" not in html
     for r in res["regions"]:
