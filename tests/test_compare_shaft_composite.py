@@ -295,3 +295,86 @@ accuracy = "0.5 %"
         assert np.max(np.abs(cd["normal_sigma"][sel] - sig[sel])) <= 0.01 * np.abs(sig[sel]).max()
     assert np.allclose(cd["von_mises"], np.hypot(cd["normal_sigma"], math.sqrt(3) * cd["torsion_tau"]))
     assert {"prandtl_phi", "warping_omega"} <= set(m.point_data)
+
+
+MIXED = """[case]
+title = "steel ends, overmoulded middle"
+units = "mm-N-MPa"
+[material]
+elastic_modulus = "206 GPa"
+poisson = 0.3
+yield = "420 MPa"
+ultimate = "600 MPa"
+[shaft]
+length = 100
+density = 7850
+speed = "1000 rpm"
+supports = [{ at = 5 }, { at = 95 }]
+[[shaft.segments]]
+from = 0
+to = 30
+diameter = 8
+[[shaft.segments]]
+from = 30
+to = 70
+diameter = 12
+[shaft.segments.section]
+shape = "composite"
+[[shaft.segments.section.regions]]
+name = "core"
+add = [ { disk = { radius = 4 } } ]
+elastic_modulus = "206 GPa"
+poisson = 0.3
+yield = "420 MPa"
+density = 7850
+[[shaft.segments.section.regions]]
+name = "sleeve"
+add = [ { disk = { radius = 6 } } ]
+cut = [ { disk = { radius = 4 } } ]
+elastic_modulus = "6.5 GPa"
+poisson = 0.38
+yield = "70 MPa"
+density = 1350
+[[shaft.segments]]
+from = 70
+to = 100
+diameter = 8
+[[shaft.loads]]
+at = 50
+kind = "gear"
+torque = "2 N*m"
+pitch_diameter = 30
+pressure_angle = 20
+mesh_angle = 90
+[[shaft.loads]]
+at = 20
+torque = "-2 N*m"
+force = [0, -50]
+[[shaft.sections]]
+at = 50
+name = "gear"
+[[shaft.sections]]
+at = 20
+name = "coupling"
+"""
+
+
+def test_mixed_layout_end_to_end(tmp_path, run_cli):
+    # A steel shaft with an overmoulded middle, not rotating: the composite station is checked region by
+    # region, the steel one as any section; the steps at the composite's ends get no shoulder factor (said).
+    case = tmp_path / "mixed.toml"
+    case.write_text(MIXED)
+    code, stdout, err = run_cli("run", str(case), "--out", str(tmp_path / "o"))
+    res = json.loads((tmp_path / "o" / "results.json").read_text())
+    assert code == 0, err
+    gear, coupling = res["section_loads"]
+    assert [r["name"] for r in gear["results"]["regions"]] == ["core", "sleeve"]
+    assert "regions" not in coupling["results"] and coupling["results"]["static"]
+    codes = [w["code"] for w in res["warnings"]]
+    assert codes.count("feature_composite_shoulder") == 2
+    # the twist between the parts: the torsion line with the composite's FE GJ beside Σ T·L/GJ by hand
+    # (round bar on the steel, ΣGᵢJᵢ on the composite; Gere 6th ed.), within the FE's accuracy target
+    ang = res["shaft"]["torsional"]["between"][0]["angle"]
+    assert abs(ang["fe"] / ang["classic"] - 1) <= 1e-3
+    rows = (tmp_path / "o" / "results.csv").read_text()
+    assert "composite segment 1,torsional rigidity GJ" in rows

@@ -8,7 +8,8 @@ from dataclasses import replace
 
 from ..case.case import read_input_file
 from .headline import csv_text, headline_rows, layout_rows
-from .report_composite_layout import composite_headline_rows, composite_station_figures, is_composite
+from .report_composite_layout import (composite_headline_rows, composite_segment_rows, composite_station_figures,
+                                      is_composite)
 from .results import build_results
 from .vtu import fields_of
 
@@ -49,7 +50,7 @@ def report_files(a, res: dict, date: str | None = None) -> dict[str, str | bytes
         html = render_layout(res, a.case.units, figs, stations, case_text, res.get("inputs") or {}, date,
                              title=a.extra["shaft"].get("title"))
         figs = figs + [fg for _, sf in stations for fg in sf]
-        rows = rows + layout_rows(res, a.case.units)
+        rows = rows + layout_rows(res, a.case.units) + composite_segment_rows(res, a.case.units)
     else:
         from .figures_polymer import polymer_figures  # noqa: PLC0415  lazy import of a slow dependency: matplotlib, as above
         figs = all_figures(a, res, fields_of(a) if a.extra.get("combined") else {}) + polymer_figures(res, a.case.units)

@@ -123,3 +123,20 @@ def composite_headline_rows(res: dict, system) -> list[dict]:
             row(g, "n (von Mises bound against the region's yield; static only)", r["factor"], "dimensionless",
                 f"regions[{i}].factor")
     return rows
+
+
+def composite_segment_rows(res: dict, system) -> list[dict]:
+    """results.csv rows of the layout's composite segments: the beam's EI and GJ of each, beside ΣEᵢIᵢ and
+    ΣGᵢJᵢ where the regions are concentric layers (the ratio computed from the two)."""
+    f = Fmt(system)
+    rows = []
+    for i, s in enumerate((res.get("shaft") or {}).get("composite_segments") or []):
+        for j, p in enumerate(s["compare"]):
+            fe, hand = p["fe"], p["classic"]
+            rows.append({"group": f"composite segment {s['segment']}", "quantity": p["quantity"].split(": ", 1)[-1],
+                         "value": from_si(fe, "rigidity", f.s), "unit": f.s.label("rigidity"),
+                         "hand_value": None if hand is None else from_si(hand, "rigidity", f.s),
+                         "ratio": p["ratio"], "source": p["source"] or p.get("note", ""),
+                         "estimated_error": s["accuracy"]["achieved"],
+                         "results_json_key": f"shaft.composite_segments[{i}].compare[{j}]"})
+    return rows
