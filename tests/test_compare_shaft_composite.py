@@ -222,6 +222,7 @@ def test_the_demo_layout_runs_and_says_fatigue_is_not_checked(tmp_path, run_cli)
         assert st["results"]["exit_code"] == 4
     html = (out / "report.html").read_text()
     assert "supplier" in html and "Composite segments" in html and "FATIGUE NOT CHECKED" in html
+    assert "NO VERDICT for the shaft" in html
     assert (out / "figures" / "station1_composite_regions.svg").exists()
     assert "region 1: steel core pin" in (out / "results.csv").read_text()
     m = meshio.read(out / "section.vtu")

@@ -80,6 +80,11 @@ def whole_shaft_verdict(res: dict, f: Fmt) -> tuple[str, list[str]]:
         sentence = (f"NO VERDICT for the shaft: at {station_label(st, g, f)} the stress is unbounded (a sharp corner), so no "
                     "factor of safety can be given there, and none for the whole shaft. The factors of the other "
                     "stations below are theirs only.")
+    elif gov.get("region") is not None and gov.get("factor") is not None and st is not None:  # a composite station
+        sentence = (f"lowest static factor of safety n = {gov['factor']:.3g} at {station_label(st, g, f)}, in its region "
+                    f"{gov['region']} (von Mises bound against the region's yield)")
+        sentence = (f"NO VERDICT for the shaft: the fatigue of its composite stations is not checked; {sentence}, static only."
+                    if gov.get("verdict_supported") is False else f"The shaft's {sentence}; static only (not rotating).")
     elif gov.get("factor") is not None and st is not None:
         sentence = f"Lowest factor of safety of the shaft, at {station_label(st, g, f)}: {gov.get('text') or gov['factor']}."
     else:
