@@ -379,3 +379,18 @@ def test_mixed_layout_end_to_end(tmp_path, run_cli):
     assert abs(ang["fe"] / ang["classic"] - 1) <= 1e-3
     rows = (tmp_path / "o" / "results.csv").read_text()
     assert "composite segment 1,torsional rigidity GJ" in rows
+
+
+def test_a_composite_segment_short_of_its_target_says_so(tmp_path, run_cli):
+    # A target the meshes allowed by max_dofs cannot show (1e-9 is below round-off of the peaks): the
+    # segment's beam properties carry the study's error, said first among the shaft's warnings, exit 3.
+    text = (ROOT / "cases" / "overmoulded_idler_layout.toml").read_text()
+    text = text.replace('accuracy = "1 %"', 'accuracy = 1e-9\nmax_dofs = 30000').replace("rotating = true", "rotating = false")
+    case = tmp_path / "tight.toml"
+    case.write_text(text)
+    code, stdout, err = run_cli("run", "--no-report", "--no-vtu", str(case), "--out", str(tmp_path / "o"))
+    res = json.loads((tmp_path / "o" / "results.json").read_text())
+    assert code == 3, err
+    codes = [w["code"] for w in res["shaft"]["warnings"]]
+    assert "composite_segment_accuracy_not_met" in codes
+    assert res["shaft"]["composite_segments"][0]["accuracy"]["met"] is False

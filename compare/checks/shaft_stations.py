@@ -125,10 +125,11 @@ def composite_segment_at(shaft: Shaft, segs, at: float) -> Segment | None:
     return next((s for s in segs if s.section is not None and s.start - tol <= at <= s.end + tol), None)
 
 
-def composite_fatigue_not_checked(rec: dict, a, rotating: bool) -> None:
-    """A station on a composite segment of a rotating shaft: its bending alternates, and the fatigue of
-    bonded regions is not checked here. Said first; the station (and so the shaft) has no verdict
-    (exit code :data:`EXIT_NO_VERDICT`), never a silent pass on the static factor alone."""
+def composite_station(rec: dict, a, rotating: bool) -> None:
+    """A station on a composite segment: exit code 3 when its section study did not show the accuracy
+    target (as a composite section's own results say). On a rotating shaft its bending alternates, and
+    the fatigue of bonded regions is not checked here: said first, and the station (so the shaft) has
+    no verdict (exit code :data:`EXIT_NO_VERDICT`), never a silent pass on the static factor alone."""
     rec["composite"] = True
     st = a.extra["composite"]["study"]
     achieved = max((v["gci"] for v in st.estimates.values() if v["gci"] is not None), default=None)
@@ -237,7 +238,7 @@ def layout_step(case: Case, analyse):
             hook(a)
         no_verdict_at_sharp(rec, a)
         if "composite" in a.extra:
-            composite_fatigue_not_checked(rec, a, shaft.rotating)
+            composite_station(rec, a, shaft.rotating)
         gov = a.extra.get("governing") or {}
         rec["governing"] = gov or None
         rec["exit_code"] = a.extra.get("exit_code")
@@ -249,6 +250,8 @@ def layout_step(case: Case, analyse):
     a = analyses[g]
     layout["governing_station"] = g
     worst = max((rec["exit_code"] or 0 for rec in stations), default=0)
+    if any(not p.record["accuracy"]["met"] for p in comp.values()):  # a composite segment's EI, GJ not shown
+        worst = max(worst, 3)
     if worst:  # a station without a supported verdict makes the whole run one
         a.extra["exit_code"] = max(worst, a.extra.get("exit_code") or 0)
     a.extra["shaft"] = {"layout": layout, "stations": stations}

@@ -99,6 +99,14 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
             out.append({"code": "station_without_verdict", "at": st["at"], "name": st["name"], "exit_code": code,
                         "text": f"station {st['name'] or st['at']}: its section check has no supported verdict "
                                 f"(exit code {code}; see its warnings in section_loads)"})
+    for p in (lay.get("composite_segments") or {}).values():
+        acc = p.record["accuracy"]
+        if not acc["met"]:
+            got = "unknown" if acc["achieved"] is None else f"{100 * acc['achieved']:.3g} %"
+            out.append({"code": "composite_segment_accuracy_not_met", "segment": p.index, "achieved": acc["achieved"],
+                        "target": acc["target"], "text": f"ACCURACY TARGET NOT SHOWN for composite segment {p.index}: its "
+                        f"EI, κGA and GJ carry an estimated error of {got} (target {100 * acc['target']:.3g} %"
+                        f"{'; ' + acc['limited_by'] if acc['limited_by'] else ''}), and so do the beam's results (exit 3)"})
     for s in lay["slopes"]:
         if not s["ok"]:
             out.append({"code": "slope_above_limit", "at": s["at"], "name": s["name"], "slope": s["slope"],
