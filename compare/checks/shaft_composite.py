@@ -61,7 +61,7 @@ class SegmentProps:
     record: dict = field(default_factory=dict)
 
 
-def composite_segments(case) -> dict[int, SegmentProps]:
+def composite_segments(case, fineness: float | None = None) -> dict[int, SegmentProps]:
     """{segment index: SegmentProps} of every composite segment of ``case.shaft`` (solved once per
     section; segments sharing one section share one solve)."""
     shaft = case.shaft
@@ -72,7 +72,7 @@ def composite_segments(case) -> dict[int, SegmentProps]:
         key = id(seg.section)
         if key not in solved:
             sub = SimpleNamespace(section=seg.section, region_materials=list(seg.materials), analysis=case.analysis)
-            solved[key] = (sub, study_composite(sub))
+            solved[key] = (sub, study_composite(sub, fineness))
         sub, st = solved[key]
         out[i] = segment_props(i, seg, sub, st)
     return out

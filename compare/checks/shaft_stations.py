@@ -184,12 +184,13 @@ def no_verdict_at_sharp(rec: dict, a) -> None:
     a.extra["exit_code"] = max(EXIT_NO_VERDICT, a.extra.get("exit_code") or 0)
 
 
-def layout_step(case: Case, analyse):
+def layout_step(case: Case, analyse, fineness: float | None = None):
     """The whole shaft, then every station through ``analyse(case) -> Analysis``. Returns the
     governing station's Analysis, with ``extra['shaft']`` holding the layout record and
-    ``extra['shaft_stations']`` the station analyses (governing included)."""
+    ``extra['shaft_stations']`` the station analyses (governing included). ``fineness`` (the command
+    line's, else the case's) is that of the composite segments' section studies."""
     shaft = case.shaft
-    comp = composite_segments(case)  # each composite segment's section solved once: EI, κGA, GJ, mass
+    comp = composite_segments(case, fineness)  # each composite segment's section solved once: EI, κGA, GJ, mass
     layout = solve_layout(shaft, case.section, case.material, composite=comp)
     segs = shaft.segments or _uniform(shaft, case)
     stations, analyses = [], []
