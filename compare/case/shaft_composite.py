@@ -78,11 +78,12 @@ def outer_diameter(section) -> float:
 def segment_section(s: dict, w: str, units, parse_section):
     """The composite section of a segment's ``section`` table and its regions' materials."""
     raw = s["section"]
-    if not isinstance(raw, dict) or raw.get("shape") != "composite":
-        shown = raw.get("shape") if isinstance(raw, dict) else raw
-        raise InputError(f"{w}.section" + (".shape" if isinstance(raw, dict) else ""), shown,
-                         "a segment's section must be shape = \"composite\" (a segment of one material is given by its "
-                         "diameter and bore)")
+    if not isinstance(raw, dict):
+        raise InputError(f"{w}.section", raw, "must be a table: [shaft.segments.section] with shape = \"composite\" "
+                         "and its [[shaft.segments.section.regions]]")
+    if raw.get("shape") != "composite":
+        raise InputError(f"{w}.section.shape", raw.get("shape"), "a segment's section must be shape = \"composite\" (a "
+                         "segment of one material is given by its diameter and bore)")
     if "bore" in s:
         raise InputError(f"{w}.bore", s["bore"], "cannot be given with a composite section: its regions give any hole")
     mats: list = []
