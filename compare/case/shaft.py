@@ -294,7 +294,7 @@ def _segments(raw, length, units, parse_section=None) -> list[Segment]:
                                  _unit(s["fillet"], units, "length"))
         sec, mats = segment_section(s, w, units, parse_section) if "section" in s else (None, ())
         if sec is not None:
-            check_round(sec, dia, f"{w}.diameter", s["diameter"])
+            check_round(sec, dia, f"{w}.diameter", s["diameter"], _unit(s["diameter"], units, "length"))
         out.append(Segment(a, min(b, length), dia, bore, fil, sec, mats))
     if out and abs(out[-1].end - length) > GAP_TOL * length:
         raise InputError(f"shaft.segments[{len(out) - 1}].to", raw[-1]["to"], "must end at the shaft's length: the "

@@ -48,7 +48,7 @@ def _reach(p) -> float:
     return math.inf
 
 
-def check_round(section, diameter: float, fld: str, shown) -> None:
+def check_round(section, diameter: float, fld: str, shown, unit: str | None = None) -> None:
     """The composite section is a round of ``diameter`` on the shaft's axis: one region adds a disk of
     that diameter centred on the axis, and nothing reaches beyond it."""
     R = diameter / 2
@@ -57,7 +57,7 @@ def check_round(section, diameter: float, fld: str, shown) -> None:
                 for p in adds)
     if not outer or any(_reach(p) > R * (1 + ROUND_TOL) for p in adds):
         raise InputError(fld, shown, "must be the outer diameter of the composite section: one region's disk of that "
-                         "diameter centred on the shaft's axis, nothing beyond it")
+                         "diameter centred on the shaft's axis, nothing beyond it", unit)
 
 
 def outer_diameter(section) -> float:
