@@ -411,5 +411,7 @@ feature or from a chart, never from the 2-D section.</li>
 the margin asked is common practice.</li>
 <li>Slope and deflection limits are the published ranges named beside each check; bearings and gears of the real
 machine may need tighter ones (see their makers' data).</li>
-<li>Linear elastic, isotropic, homogeneous material; small strains and rotations.</li>
+<li>Linear elastic, isotropic, homogeneous material; small strains and rotations. A composite segment: each region
+homogeneous, the regions bonded without slip; its EI, κ·GA, GJ and mass per length from its own FE section (κ·GA by an
+approximate shear coefficient, see the composite segments table); creep of its polymer regions not applied.</li>
 </ul>"""
