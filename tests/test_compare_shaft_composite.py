@@ -114,8 +114,10 @@ def test_uniform_composite_against_one_material_of_equal_EI_and_GJ():
     # A whole layout (gear and pinion, torque carried between them) on a uniform composite shaft, and the same
     # layout on one material whose E·I and G·J equal the composite's FE values. The reactions and internal
     # loads are statics (equal to round-off), the twist between the parts Σ T·L/GJ equal to round-off, and
-    # the deflections equal up to the shear deformation, the one thing that differs (κ·GA): its share of the
-    # deflection is at most 12·EI/(κ_min·GA·L²) with κ_min = 1/2.
+    # the deflections equal up to the shear deformation, the one thing that differs (κ·GA). On a simply
+    # supported Timoshenko beam the shear deflection is w_s = M/(κGA) (dw_s/dz = V/κGA, w_s = 0 at the
+    # supports; Gere, Mechanics of Materials, 6th ed., shear deformations of beams, from memory for the section), so the two largest
+    # deflections differ by at most M_max/min(κGA): a bound that holds on any mesh.
     loads = [{"at": 0.08, "kind": "gear", "torque": 2.0, "pitch_diameter": 0.04, "pressure_angle": 20, "mesh_angle": 90},
              {"at": 0.2, "kind": "gear", "torque": -2.0, "pitch_diameter": 0.03, "pressure_angle": 20, "mesh_angle": 270}]
     c = composite_case(whole(), loads, [{"at": 0.2}])
@@ -131,10 +133,11 @@ def test_uniform_composite_against_one_material_of_equal_EI_and_GJ():
     for k in ("Fx", "Fy"):
         assert [x[k] for x in r["reactions"]] == pytest.approx([x[k] for x in r1["reactions"]], rel=1e-9, abs=1e-9)  # statics: round-off of the beam solves
     assert r["model"].beam.EI == pytest.approx(r1["model"].beam.EI, rel=1e-12)
-    share = 12 * p.EI / (0.5 * p.GA * L**2)
     d, d1 = r["diagrams"]["max_deflection"]["value"], r1["diagrams"]["max_deflection"]["value"]
-    print(f"deflection composite {d:.6e}, one material {d1:.6e}, shear share bound {share:.2e}")
-    assert abs(d / d1 - 1) <= share
+    kga = min(r["model"].beam.kGA.min(), r1["model"].beam.kGA.min())
+    bound = r1["diagrams"]["max_moment"]["value"] / kga
+    print(f"deflection composite {d:.6e}, one material {d1:.6e}, difference {abs(d - d1):.3e}, bound {bound:.3e}")
+    assert abs(d - d1) <= bound * (1 + 1e-9)
     # torsion along the shaft: the same GJ gives the same twist (fem/torsion_line.py)
     from compare.checks.shaft_checklist import torsional
     t = torsional(c.shaft, c, r, [], [])
