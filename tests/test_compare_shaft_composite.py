@@ -62,9 +62,11 @@ def node(r, z):
 def test_core_and_sleeve_deflection_against_the_transformed_section_beam(fineness):
     # Roark's Formulas for Stress and Strain, 7th ed., Table 8.1, case 1e: simply supported, load P at a,
     # y(a) = P a² b² / (3 E I L), with EI = ΣEᵢIᵢ of the transformed section (Gere, Mechanics of Materials,
-    # 6th ed., composite beams). Tolerance: the beam adds shear deformation, at most
-    # P a b/(L κ ΣGA) over the Euler–Bernoulli value, with κ ≥ 1/2 for any solid section (the thin tube's
-    # limit, classic.shear.energy_thin_tube); and the FE EI carries at most the section study's accuracy target.
+    # 6th ed., composite beams), plus the Timoshenko beam's shear deflection at the load, P a b/(L κGA) (w_s = M/κGA
+    # on a simply supported beam; Gere, 6th ed., shear deformations of beams, from memory for the section) with the
+    # model's own κ·ΣGᵢAᵢ (an approximation documented in compare/checks/shaft_composite.py, not what is tested
+    # here: it is about 0.1 % of the deflection at L/d = 25). The beam element is exact for point loads, so what is
+    # left is the FE EI's error: within the section study's accuracy target.
     P, a = 150.0, 0.11
     b = L - a
     c = composite_case(whole(), [{"at": a, "force": [0, -P]}], [{"at": a}], fineness=fineness)
@@ -73,13 +75,12 @@ def test_core_and_sleeve_deflection_against_the_transformed_section_beam(finenes
     EI = hand_EI()
     exact = P * a**2 * b**2 / (3 * EI * L)
     res = {"y": {"fem": -r["plane_y"].w[node(r, a)], "exact": exact}}
-    G = [E_S / (2 * (1 + NU_S)), E_P / (2 * (1 + NU_P))]
-    GA = G[0] * math.pi * R_CORE**2 + G[1] * math.pi * (R_OUT**2 - R_CORE**2)
-    shear_share = (P * a * b / (L * 0.5 * GA)) / exact
-    print(json.dumps(res), f"shear share bound {shear_share:.2e}")
+    shear = P * a * b / (L * comp[0].kGA)
+    res["y"]["exact_with_shear"] = exact + shear
+    print(json.dumps(res), f"shear part {shear / exact:.2e}")
     target = c.analysis.accuracy
-    assert res["y"]["fem"] >= exact * (1 - target)
-    assert res["y"]["fem"] <= exact * (1 + target) * (1 + shear_share)
+    assert abs(res["y"]["fem"] / (exact + shear) - 1) <= target
+    G = [E_S / (2 * (1 + NU_S)), E_P / (2 * (1 + NU_P))]
     # the pairs: FE EI and GJ beside ΣEᵢIᵢ and ΣGᵢJᵢ (exact for concentric layers), ratios computed
     p = comp[0]
     pairs = {q.quantity.split(": ", 1)[1]: q for q in p.pairs}
