@@ -299,7 +299,7 @@ def torsional(shaft, case: Case, lay, stations, analyses) -> dict:
         GJ.append(G * J)
         Jp.append(jp)
         basis.append(b)
-    GJ, Jp = np.array(GJ), np.array(Jp)
+    GJ, Jp = np.array(GJ), np.array(Jp)  # hand: round bars, and ΣGᵢJᵢ of concentric layers on composite segments
     GJ_round = np.array([composite_hand_GJ(comp[id(s)]) if id(s) in comp else
                          G * math.pi * (s.diameter**4 - (s.bore or 0.0) ** 4) / 32 for s in segs])
     Tel = np.array([loads_at(lay["items"], z, lay["qy"], x)["T"] for x in mid])
@@ -317,7 +317,9 @@ def torsional(shaft, case: Case, lay, stations, analyses) -> dict:
             between.append({"from": parts[p][1], "to": parts[q][1], "from_at": parts[p][0], "to_at": parts[q][0],
                             "angle": {"fe": float(phi[n2] - phi[n1]), "classic": float(phi_round[n2] - phi_round[n1]),
                                       "source": "round-bar GJ everywhere: Σ T·L/(G·J), J = π(D⁴ − d⁴)/32 "
-                                                f"({SHIGLEY9}, eq. (3-35))",
+                                                f"({SHIGLEY9}, eq. (3-35))" + (
+                                                    "; on composite segments GJ = ΣGᵢJᵢ of bonded concentric layers (Gere, "
+                                                    "Mechanics of Materials, 6th ed.), else their FE GJ" if comp else ""),
                                       "kind": "factor"}})
     rec = {"G": G, "parts": rot, "between": between,
            "stiffness": "round-bar G·J per segment; a station's FE torsion constant J (and FE polar moment) over its "
