@@ -35,6 +35,7 @@ from .output.figure_shaft import shaft_figure_svg
 from .output.notebook import result_html
 from .output.report import summary
 from .output.results import build_results
+from .output.vtu import composite_vtu_bytes
 from .pipeline import analyse as _analyse
 
 __all__ = ["Case", "Result", "analyse", "InputError"]
@@ -244,8 +245,11 @@ class Result(Record):
         for a layout) into the folder ``out``; nothing is half-written. Returns the folder."""
         out = Path(out)
         files = {"results.json": json.dumps(self._d, indent=2, ensure_ascii=False) + "\n"}
-        if report and self.analysis.mesh is not None:  # as `run` without --no-report
+        layout = "shaft" in self.analysis.extra and bool(self._d.get("section_loads"))
+        if report and (self.analysis.mesh is not None or layout):  # as `run` without --no-report
             files.update(report_files(self.analysis, self._d))
+        if vtu and "composite" in self.analysis.extra:  # a composite section's regions and stresses
+            files["section.vtu"] = composite_vtu_bytes(self.analysis)
         if (self._d.get("shaft") or {}).get("diagrams"):  # a layout case: its diagrams too, as the command line writes them
             files["shaft.svg"] = files.get("figures/shaft_diagrams.svg") or shaft_figure_svg(self._d, self.analysis.case.units)
         write_outputs(out, files, self.analysis if vtu and self.analysis.mesh is not None else None)

@@ -33,7 +33,7 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         feats = shaft_features_step(case)  # shoulders and grooves first: their FE Kt go to the stations
         if case.shaft.factors_only:  # no loads, no stations: the features' factors are the whole result
             return factors_only(case, feats)
-        a = layout_step(case, lambda c: analyse(c, fineness, study))
+        a = layout_step(case, lambda c: analyse(c, fineness, study), fineness)
         checklist_step(a, case)  # keys, splines, press fits, bearing life, torsion along the shaft
         attach_features(a, feats)
         # the layout itself and its title (the report's drawing and mode shapes; the stations' titles add their place)

@@ -28,15 +28,29 @@ def projector(basis: Basis):
     return lambda q: lu.solve(forms.projection_load.assemble(basis, f=np.asarray(q)))
 
 
-def write_vtu(path: str | Path, sm: SectionMesh, point_data: dict[str, np.ndarray]) -> Path:
-    """Write the curved mesh as 6-node triangles with the given P2 nodal fields."""
+def centroid_values(mesh, u: np.ndarray):
+    """A P2 field's value, gradient (2, elements) and position (2, elements) at every element's
+    centroid (the reference point (1/3, 1/3), mapped; skfem's intorder=1 rule has three points, none of
+    them the centroid): for fields that jump between elements, such as the stresses of a
+    composite section, whose gradients jump at every interface."""
+    b = Basis(mesh, ElementTriP2(), quadrature=(np.array([[1.0 / 3.0], [1.0 / 3.0]]), np.array([0.5])))
+    f = interpolate(b, u)
+    x = np.asarray(b.global_coordinates())[:, :, 0]
+    return np.asarray(f)[:, 0], np.vstack([f.grad[0][:, 0], f.grad[1][:, 0]]), x
+
+
+def write_vtu(path: str | Path, sm: SectionMesh, point_data: dict[str, np.ndarray],
+              cell_data: dict[str, np.ndarray] | None = None) -> Path:
+    """Write the curved mesh as 6-node triangles with the given P2 nodal fields (and per-element
+    ``cell_data``, one value per triangle). ``sm`` is anything with the skfem mesh as ``.mesh``."""
     m = sm.mesh
     basis = Basis(m, ElementTriP2())
     t = basis.element_dofs  # (6, nelems): vertices then edge midpoints, in skfem's edge order
     # skfem edges of a triangle are (0,1), (1,2), (0,2); VTK's 6-node triangle wants the same order
     cells = [("triangle6", t.T.astype(np.int64))]
     pts = np.vstack([m.doflocs, np.zeros(m.doflocs.shape[1])]).T
-    mio = meshio.Mesh(pts, cells, point_data={k: np.asarray(v).T for k, v in point_data.items()})
+    mio = meshio.Mesh(pts, cells, point_data={k: np.asarray(v).T for k, v in point_data.items()},
+                      cell_data={k: [np.asarray(v)] for k, v in (cell_data or {}).items()})
     path = Path(path)
     mio.write(path)
     return path

@@ -99,7 +99,7 @@ def test_the_demo_overmoulded_shaft_runs(tmp_path, run_cli):
     assert res["warnings"][0]["code"] == "polymer_illustrative_data" and res["governing"]["verdict_supported"] is False
     assert "VERDICT: NOT SHOWN" in out
     # the design report: self-contained page, both figures in both formats, a csv row per region result
-    assert sorted(p.name for p in (tmp_path / "o").iterdir()) == ["figures", "report.html", "results.csv", "results.json"]
+    assert sorted(p.name for p in (tmp_path / "o").iterdir()) == ["figures", "report.html", "results.csv", "results.json", "section.vtu"]
     html = (tmp_path / "o" / "report.html").read_text()
     assert "http://" not in html.replace("http://www.w3.org", "") and "<script" not in html
     for r in res["regions"]:

@@ -221,7 +221,8 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
         data = dict(data, section={"shape": "round", "diameter": f"{segment.d!r} m"})
     section = parse_section(data["section"], units, geometry, base_dir, region_materials) if "section" in data else None
     loads = parse_loads(data.get("loads", {}), units)
-    shaft = (parse_shaft(data["shaft"], units, parse_section, loads.rotating, parse_feature_lengths)
+    composite = (section, region_materials) if section is not None and section.kind == "composite" else None
+    shaft = (parse_shaft(data["shaft"], units, parse_section, loads.rotating, parse_feature_lengths, composite)
              if "shaft" in data else None)
     if "section" not in data and not (shaft is not None and shaft.segments):
         raise InputError("section", None, "is missing: every case describes a section (a [shaft] without "
@@ -253,8 +254,6 @@ def _composite_limits(data: dict, loads: Loads, shaft) -> None:
     if "material" in data:
         raise InputError("material", None, "a composite section names a material in each [[section.regions]] table; "
                          "leave [material] out")
-    if shaft is not None:
-        raise InputError("shaft", None, "a composite section is checked on its own, not yet as a station of a layout")
     if "fatigue" in data:
         raise InputError("fatigue", None, "a composite section takes its fatigue data region by region "
                          "(section.regions[k].fatigue, ultimate, surface, polymer); leave [fatigue] out")
@@ -347,6 +346,7 @@ def parse_section(s: dict, units: UnitSystem | None, geometry: dict | None = Non
         if not found:
             raise
         unit = units.label("length") if units is not None and isinstance(raw, (int, float)) and not exc.field.endswith("angle") else None
+        unit = exc.unit or unit  # a field of another dimension (a composite region's density) says its own
         raise InputError(exc.field, raw, _lengths_in(exc.reason, units), unit) from None
 
 

@@ -20,7 +20,9 @@
 
 Each region is added and cut like a custom section; regions are bonded where they touch and may not
 overlap. ``shear_modulus`` defaults to E/(2(1 + ν)) (isotropic material); ``yield`` is the strength the
-region's static check uses (for a polymer: its strength at the service conditions).
+region's static check uses (for a polymer: its strength at the service conditions). ``density`` is
+optional on its own and needed when the section is a segment of a shaft layout with self-weight or a
+speed (the beam's mass per length; compare/case/shaft_composite.py).
 
 Fatigue, region by region (docs/case-files.md, 'Composite sections'): a steel region gives ``ultimate``
 and ``surface`` (or ``endurance_limit``), optionally ``reliability`` and ``temperature``, and is checked
@@ -47,7 +49,7 @@ from .polymer import at_service, parse_polymer, parse_service
 from .units import to_si
 
 _REGION = {"name", "add", "cut", "elastic_modulus", "shear_modulus", "poisson", "yield", "length",
-           "ultimate", "surface", "endurance_limit", "reliability", "temperature", "polymer", "fatigue"}
+           "ultimate", "surface", "endurance_limit", "reliability", "temperature", "polymer", "fatigue", "density"}
 _REGION_FATIGUE = {"kt_bending", "kt_bending_source", "kts_torsion", "kts_torsion_source", "notch_radius"}
 #: Keys a polymer region takes from its data at the service conditions (a second value would contradict them).
 _POLYMER_REPLACES = ("elastic_modulus", "shear_modulus", "yield", "ultimate", "surface", "endurance_limit",
@@ -75,6 +77,7 @@ class RegionMaterial:
     fatigue: dict | None = None
     #: a polymer region's data read at the [service] conditions (compare/case/polymer.PolymerAtService)
     polymer: object | None = None
+    density: float | None = None  # [kg/m³]: a layout's self-weight and critical speeds (compare/case/shaft_composite.py)
 
     @property
     def kind(self) -> str | None:
@@ -123,7 +126,7 @@ def _material(r: dict, f: str, name: str, units) -> RegionMaterial:
             if k in r:
                 raise InputError(f"{f}.{k}", r[k], f"cannot be given with {f}.polymer: the modulus and strengths are "
                                  "read from the polymer data at the [service] conditions")
-        return _polymer_region(r, f, name)
+        return _polymer_region(r, f, name, units)
     if "elastic_modulus" not in r:
         raise InputError(f"{f}.elastic_modulus", None, "is needed: every region names its material's modulus")
     E = to_si(r["elastic_modulus"], "stress", f"{f}.elastic_modulus", units)
@@ -147,10 +150,21 @@ def _material(r: dict, f: str, name: str, units) -> RegionMaterial:
         Sy = to_si(r["yield"], "stress", f"{f}.yield", units)
         if not Sy > 0:
             raise InputError(f"{f}.yield", r["yield"], "must be positive")
-    m = RegionMaterial(name, E, G, nu, Sy, f, src)
+    m = RegionMaterial(name, E, G, nu, Sy, f, src, density=_density(r, f, units))
     _steel_fatigue(m, r, f, units)
     m.fatigue = _region_fatigue(r, f, units, polymer=False)
     return m
+
+
+def _density(r: dict, f: str, units) -> float | None:
+    """The region's ``density`` [kg/m³] (a layout's mass per length), or None."""
+    if "density" not in r:
+        return None
+    rho = to_si(r["density"], "density", f"{f}.density", units)
+    if not rho > 0:
+        raise InputError(f"{f}.density", r["density"], "must be positive",
+                         units.label("density") if units is not None else None)
+    return rho
 
 
 def _positive(r, key, f, units, dim="stress"):
@@ -219,7 +233,7 @@ def _region_fatigue(r: dict, f: str, units, polymer: bool) -> dict | None:
     return out or None
 
 
-def _polymer_region(r: dict, f: str, name: str) -> RegionMaterial:
+def _polymer_region(r: dict, f: str, name: str, units) -> RegionMaterial:
     """A polymer region before the [service] conditions are known: E and G come later
     (:func:`apply_region_polymers`)."""
     if "poisson" not in r:
@@ -227,7 +241,8 @@ def _polymer_region(r: dict, f: str, name: str) -> RegionMaterial:
     nu = to_si(r["poisson"], "dimensionless", f"{f}.poisson", None)
     if not -1.0 < nu < 0.5:
         raise InputError(f"{f}.poisson", r["poisson"], "must lie between -1 and 0.5")
-    m = RegionMaterial(name, math.nan, math.nan, nu, None, f, "E/(2(1 + ν)) at the service conditions, isotropic")
+    m = RegionMaterial(name, math.nan, math.nan, nu, None, f, "E/(2(1 + ν)) at the service conditions, isotropic",
+                       density=_density(r, f, units))
     return m
 
 

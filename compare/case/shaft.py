@@ -21,6 +21,8 @@ Case-file schema (docs/layout.md is the reference)::
     diameter = 35
     bore = 0                             # optional
     fillet = 1.5                         # optional: shoulder fillet radius at the step where it begins
+    section = { shape = "composite", ... }  # optional: bonded regions of several materials (a round of
+                                         # the segment's diameter; compare/case/shaft_composite.py)
     [[shaft.grooves]]                    # carried for the shoulder/groove Kt step
     at = 200
     width = 2
@@ -51,7 +53,8 @@ Case-file schema (docs/layout.md is the reference)::
 
 Dataclasses (stable: later steps build on them; fields are added, never renamed):
 
-- :class:`Segment` (start, end, diameter, bore, fillet) [m]
+- :class:`Segment` (start, end, diameter, bore, fillet) [m]; section (a composite fem Section or None),
+  materials (its regions' compare.case.composite.RegionMaterial, in region order)
 - :class:`Groove` (at, width, depth, radius) [m]
 - :class:`Support` (at [m], stiffness [N/m] or None = rigid, name, bearing (type for the slope
   limit, one of :data:`BEARING_TYPES`, or None), rating (shaft_checklist.BearingRating or None))
@@ -84,6 +87,7 @@ from fem.errors import InputError, escape_text
 from .units import from_si, to_si
 from .fields import angle as _angle, chart_factor, known as _known
 from .shaft_checklist import STATION_KEYS, SUPPORT_KEYS, parse_rating, parse_station_checklist
+from .shaft_composite import check_composite_segments, check_composite_station, check_round, outer_diameter, segment_section
 
 #: Relative tolerance of the torque balance: the torques of the loads must sum to zero within this
 #: share of the largest one. Values typed with 4-6 figures balance far better than this; a torque
@@ -94,7 +98,7 @@ GAP_TOL = 1e-9
 
 _SHAFT = {"length", "density", "speed", "rotating", "self_weight", "supports", "segments", "grooves", "loads",
           "sections"}
-_SEGMENT = {"from", "to", "diameter", "bore", "fillet"}
+_SEGMENT = {"from", "to", "diameter", "bore", "fillet", "section"}
 _GROOVE = {"at", "width", "depth", "radius"}
 _SUPPORT = {"at", "stiffness", "name", "bearing"} | SUPPORT_KEYS  # rating: shaft_checklist.py
 #: Bearing types the slope check knows (classic.shaft.SLOPE_LIMITS, Shigley 9th ed., Table 7-2).
@@ -117,6 +121,8 @@ class Segment:
     diameter: float
     bore: float | None = None
     fillet: float | None = None  # shoulder fillet radius at the step where this segment begins
+    section: object | None = field(default=None, compare=False)  # a composite fem Section, or None: one material
+    materials: tuple = field(default=(), compare=False)  # the composite's RegionMaterial, in region order
 
 
 @dataclass(frozen=True)
@@ -218,10 +224,13 @@ class Shaft:
 # ----------------------------------------------------------------------------- parser
 
 
-def parse_shaft(d, units, parse_section, loads_rotating: bool = False, feature_lengths=None) -> Shaft:
+def parse_shaft(d, units, parse_section, loads_rotating: bool = False, feature_lengths=None,
+                composite=None) -> Shaft:
     """``[shaft]`` as a :class:`Shaft` (SI). ``parse_section(table, units)`` parses a station's
     section table and ``feature_lengths(table, units)`` lists its features' lengths as [(field, m)]
-    (both handed in by ``case.py``); ``loads_rotating`` is ``loads.rotating``."""
+    (both handed in by ``case.py``); ``loads_rotating`` is ``loads.rotating``. ``composite`` is
+    (section, region materials) of the case's composite [section]: without segments, the shaft is that
+    section all along (one composite segment)."""
     _known(d, _SHAFT, "shaft")
     length = _pos(d, "length", "length", "shaft", units, required=True)
     sh = Shaft(length=length)
@@ -234,8 +243,14 @@ def parse_shaft(d, units, parse_section, loads_rotating: bool = False, feature_l
             raise InputError(f"shaft.{key}", d[key], "must be true or false")
     sh.rotating = bool(d.get("rotating", False)) or loads_rotating
     sh.self_weight = bool(d.get("self_weight", True))
-    sh.segments = _segments(d.get("segments", []), length, units)
+    sh.segments = _segments(d.get("segments", []), length, units, parse_section)
+    if composite is not None:
+        if sh.segments:
+            raise InputError("section.shape", "composite", "with [[shaft.segments]]: give the composite in the "
+                             "segment's own section table ([shaft.segments.section])")
+        sh.segments = [uniform_composite(length, *composite)]
     sh.grooves = [_groove(g, i, sh, units) for i, g in enumerate(_table_list(d.get("grooves", []), "shaft.grooves"))]
+    check_composite_segments(sh, d)
     # a layout without loads and stations asks for the shoulder and groove factors only: no beam, no bearings
     factors_only = not d.get("loads") and not d.get("sections") and d.get("supports") is None
     sh.supports = [] if factors_only else _supports(d, length, units)
@@ -246,7 +261,7 @@ def parse_shaft(d, units, parse_section, loads_rotating: bool = False, feature_l
     return sh
 
 
-def _segments(raw, length, units) -> list[Segment]:
+def _segments(raw, length, units, parse_section=None) -> list[Segment]:
     out = []
     for i, s in enumerate(_table_list(raw, "shaft.segments")):
         w = f"shaft.segments[{i}]"
@@ -277,11 +292,19 @@ def _segments(raw, length, units) -> list[Segment]:
             if fil > b - a:
                 raise InputError(f"{w}.fillet", s["fillet"], "is longer than the segment",
                                  _unit(s["fillet"], units, "length"))
-        out.append(Segment(a, min(b, length), dia, bore, fil))
+        sec, mats = segment_section(s, w, units, parse_section) if "section" in s else (None, ())
+        if sec is not None:
+            check_round(sec, dia, f"{w}.diameter", s["diameter"], _unit(s["diameter"], units, "length"))
+        out.append(Segment(a, min(b, length), dia, bore, fil, sec, mats))
     if out and abs(out[-1].end - length) > GAP_TOL * length:
         raise InputError(f"shaft.segments[{len(out) - 1}].to", raw[-1]["to"], "must end at the shaft's length: the "
                          "segments cover the whole shaft", _unit(raw[-1]["to"], units, "length"))
     return out
+
+
+def uniform_composite(length: float, section, materials) -> Segment:
+    """The one segment of a shaft that is the case's composite [section] all along."""
+    return Segment(0.0, length, outer_diameter(section), None, None, section, tuple(materials))
 
 
 def _groove(g, i, sh: Shaft, units) -> Groove:
@@ -388,6 +411,7 @@ def _station(s, i, sh: Shaft, units, parse_section, feature_lengths=None) -> Sta
     w = f"shaft.sections[{i}]"
     _known(s, _STATION, w)
     at = _at(s, w, sh.length, units)
+    check_composite_station(s, w, sh, at, STATION_KEYS)
     st = Station(at=at, name=_name(s, w), raw=dict(s))
     if "section" in s:
         if not isinstance(s["section"], dict):
@@ -506,6 +530,8 @@ def check_with_case(sh: Shaft, raw_loads: dict, material) -> None:
         raise InputError("shaft.sections", None, "is required with [shaft]: name at least one station to check, "
                          "e.g. [[shaft.sections]] at = ... (without loads and stations, a layout with shoulders or "
                          "grooves gives their factors only)")
+    if sh.segments and all(s.section is not None for s in sh.segments):
+        return  # every segment composite: each region names its own material
     if material.elastic_modulus is None:
         raise InputError("material.elastic_modulus", None, "is needed with [shaft]: the beam's deflections, slopes "
                          "and critical speeds depend on it")

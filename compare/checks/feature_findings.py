@@ -64,6 +64,6 @@ def factors_only(case, feats: dict) -> Analysis:
     a = Analysis(case, None, None, None, [], {}, extra={"shaft": {"factors_only": True}})
     attach_features(a, feats)
     a.extra["warnings"] = feature_findings(a)
-    sharp = any(r.get("skipped") == "sharp_shoulder" for r in a.extra["shaft"]["features"])
+    sharp = any(r.get("skipped") in ("sharp_shoulder", "composite_shoulder") for r in a.extra["shaft"]["features"])
     a.extra["exit_code"] = EXIT_NO_VERDICT if sharp else 0
     return a

@@ -257,6 +257,10 @@ def long_term_layout(a) -> dict | None:
                            ("; on a rotating shaft each fibre's bending stress reverses every turn, which creeps less "
                             "than a steady stress: the scaled values are taken as an upper bound (from memory)"
                             if rotating else "")))
+    if shaft.get("composite_segments"):  # their regions name their own moduli; creep of those is not known here
+        out["composite_segments_note"] = ("the composite segments are scaled by the material's E/E_c too, which is not "
+                                          "theirs (their regions name their own moduli and no creep data are read for "
+                                          "them): where they bend, the long-term values are not a checked result")
     md = shaft["diagrams"]["max_deflection"]
     out["max_deflection"] = {"value": md["value"] * r, "at": md["at"], "short_term": md["value"]}
     out["slopes"] = [{"at": s["at"], "name": s["name"], "kind": s["kind"], "slope": s["slope"] * r,

@@ -7,7 +7,10 @@ those on the cut face whose outward normal is +z (the part to the right acting o
 left), the same convention as the section's [loads]: σ = N/A + Mx·y/Ix − My·x/Iy for a round.
 Internal loads come from statics with the beam model's reactions, so they are exact for the point
 loads and the piecewise-uniform self-weight; slopes and deflections come from the Timoshenko beam
-(fem/beam.py) with E·I and κ·G·A of each segment.
+(fem/beam.py) with E·I and κ·G·A of each segment. A composite segment (bonded regions of several
+materials) takes its EI, κ·GA, mass and rotary inertia per length from its own FE section
+(:mod:`.shaft_composite`); the one-material segments keep the expressions they always had, so a
+layout without composite segments gives the same numbers bit for bit.
 """
 from __future__ import annotations
 
@@ -101,6 +104,10 @@ class BeamModel:
     segs: list  # segment of each element
     area: np.ndarray
     I: np.ndarray
+    #: per element [kg/m] and [kg·m] when the layout has composite segments (their regions' densities;
+    #: ``shaft.density`` times A and I elsewhere); None: one material, ``rho * area`` and ``rho * I``
+    rhoA: np.ndarray | None = None
+    rhoI: np.ndarray | None = None
 
 
 #: Points of the layout closer than this fraction of the shaft's length share one beam node (0.36 µm on
@@ -109,11 +116,13 @@ class BeamModel:
 NODE_MERGE = 1e-6
 
 
-def build_beam(shaft: Shaft, segs, E: float, G: float, nu: float, extra_z=(), overrides=()) -> BeamModel:
+def build_beam(shaft: Shaft, segs, E: float, G: float, nu: float, extra_z=(), overrides=(), composite=None) -> BeamModel:
     """The beam: nodes at every segment end, load, support, station and extra point, elements at most
     :data:`MAX_ELEMENT_SHARE` of the length. ``overrides`` = [(z0, z1, Ixx, Iyy, A, kappa)] replace
     the round-bar values over a stretch (a station's FE section over its feature length); the beam
-    takes the smaller of Ixx, Iyy there (both planes share one model)."""
+    takes the smaller of Ixx, Iyy there (both planes share one model). ``composite`` = {segment index:
+    :class:`~compare.checks.shaft_composite.SegmentProps`} gives a composite segment's EI, κ·GA and mass
+    per length (E, G and ν are then those of the one-material segments, None when there are none)."""
     L = shaft.length
     pts = {0.0, L}
     pts |= {s.start for s in segs} | {s.end for s in segs}
@@ -131,11 +140,23 @@ def build_beam(shaft: Shaft, segs, E: float, G: float, nu: float, extra_z=(), ov
     z = np.array(z)
     mid = 0.5 * (z[:-1] + z[1:])
     EI, kGA, A_, I_, seg_of = [], [], [], [], []
+    rhoA, rhoI = [], []
+    rho = shaft.density or 0.0
     for m in mid:
-        s = next(s for s in segs if s.start <= m <= s.end)
+        i, s = next((i, s) for i, s in enumerate(segs) if s.start <= m <= s.end)
         D, d = s.diameter, (s.bore or 0.0)
         A = math.pi * (D**2 - d**2) / 4
         I = math.pi * (D**4 - d**4) / 64
+        if composite and i in composite:  # bonded regions: the segment's own FE section
+            p = composite[i]
+            EI.append(p.EI)
+            kGA.append(p.kGA)
+            A_.append(A)
+            I_.append(I)
+            rhoA.append(p.rhoA or 0.0)
+            rhoI.append(p.rhoI or 0.0)
+            seg_of.append(s)
+            continue
         kappa = energy_hollow_round(nu, d / D) if d else energy_round(nu)
         for z0, z1, Ixx, Iyy, Ao, ko in overrides:
             if z0 <= m <= z1:
@@ -144,29 +165,49 @@ def build_beam(shaft: Shaft, segs, E: float, G: float, nu: float, extra_z=(), ov
         kGA.append(kappa * G * A)
         A_.append(A)
         I_.append(I)
+        rhoA.append(rho * A)
+        rhoI.append(rho * I)
         seg_of.append(s)
-    return BeamModel(Beam(z, np.array(EI), np.array(kGA)), seg_of, np.array(A_), np.array(I_))
+    model = BeamModel(Beam(z, np.array(EI), np.array(kGA)), seg_of, np.array(A_), np.array(I_))
+    if composite:
+        model.rhoA, model.rhoI = np.array(rhoA), np.array(rhoI)
+    return model
+
+
+def mass_per_length(model: BeamModel, rho) -> tuple[np.ndarray, np.ndarray]:
+    """(ρA [kg/m], ρI [kg·m]) per element: ``rho`` times the round-bar A and I for one material, the
+    regions' own values on composite segments."""
+    if model.rhoA is None:
+        r = rho or 0.0
+        return r * model.area, r * model.I
+    return model.rhoA, model.rhoI
 
 
 def node_of(z: np.ndarray, at: float) -> int:
     return int(np.argmin(np.abs(z - at)))
 
 
-def solve_layout(shaft: Shaft, section, material, overrides=()) -> dict:
+def solve_layout(shaft: Shaft, section, material, overrides=(), composite=None) -> dict:
     """The whole-shaft step: returns a record with the parts' forces, reactions, diagrams, stiffness
-    checks and critical speeds (SI). ``material`` needs E; G and ν follow from it or are given."""
+    checks and critical speeds (SI). ``material`` needs E; G and ν follow from it or are given (not
+    when every segment is composite: ``composite`` = {segment index: SegmentProps} gives those)."""
     E, G, nu = material.elastic_modulus, material.shear_modulus, material.poisson
-    if E is None:
-        raise InputError("material.elastic_modulus", None, "is needed for the shaft's deflections and critical speeds")
-    if G is None or nu is None:
-        raise InputError("material.poisson", None, "is needed (with elastic_modulus) for the shaft's shear deformation")
     segs = segments_of(shaft, section)
-    model = build_beam(shaft, segs, E, G, nu, overrides=overrides)
+    if composite and all(i in composite for i in range(len(segs))):
+        pass  # every segment composite: no one-material modulus is used
+    elif E is None:
+        raise InputError("material.elastic_modulus", None, "is needed for the shaft's deflections and critical speeds")
+    elif G is None or nu is None:
+        raise InputError("material.poisson", None, "is needed (with elastic_modulus) for the shaft's shear deformation")
+    model = build_beam(shaft, segs, E, G, nu, overrides=overrides, composite=composite)
     z = model.beam.z
     parts = part_actions(shaft)
     rho = shaft.density
     qy = np.zeros(len(z) - 1)
-    if rho and shaft.self_weight:
+    if model.rhoA is not None:  # composite segments: each region's density (compare/case/shaft_composite.py)
+        if shaft.self_weight and model.rhoA.any():
+            qy = -G_STANDARD * model.rhoA
+    elif rho and shaft.self_weight:
         qy = -rho * G_STANDARD * model.area  # self-weight along −y [N/m]
     sup = [(node_of(z, s.at), s.stiffness) for s in shaft.supports]
     beam = model.beam
@@ -201,7 +242,7 @@ def solve_layout(shaft: Shaft, section, material, overrides=()) -> dict:
             "fe_residual": max(rx.residual, ry.residual), "items": items, "qy": qy, "z": z,
             "plane_x": rx, "plane_y": ry, **checks, "critical_speeds": crit,
             "axial_reaction_note": "axial force taken by the left-most support (the locating bearing)" if Fz_total else None,
-            "model": model}
+            "model": model, "composite_segments": composite or {}}
 
 
 def loads_at(items: list[PointItem], z: np.ndarray, qy: np.ndarray, x: float) -> dict:
@@ -314,16 +355,17 @@ def critical_speeds(shaft: Shaft, model: BeamModel, sup, rho) -> dict:
     masses = [(node_of(z, ld.at), ld.mass) for ld in shaft.loads if ld.mass]
     # diametral inertia of a part: half its polar inertia (thin disc; common practice)
     inertias = [(node_of(z, ld.at), ld.inertia / 2) for ld in shaft.loads if ld.inertia]
-    if not rho and not masses:
+    rhoA, rhoI = mass_per_length(model, rho)
+    if not rhoA.any() and not masses:
         return {"skipped": "no shaft density and no part masses: nothing to vibrate"}
-    vib = Beam(beam.z, beam.EI, beam.kGA, rhoA=(rho or 0.0) * model.area, rhoI=(rho or 0.0) * model.I)
+    vib = Beam(beam.z, beam.EI, beam.kGA, rhoA=rhoA, rhoI=rhoI)
     omega, modes = natural_frequencies(vib, sup, masses, inertias, count=3)
     # Rayleigh: lumped weights (parts, and the shaft's own mass at the nodes) all along one direction
     lump = np.zeros(len(z))
     for n, m in masses:
         lump[n] += m
-    if rho:
-        mseg = rho * model.area * np.diff(z)
+    if rhoA.any():
+        mseg = rhoA * np.diff(z)
         lump[:-1] += mseg / 2
         lump[1:] += mseg / 2
     W = lump * G_STANDARD

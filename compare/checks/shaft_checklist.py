@@ -257,6 +257,13 @@ def merged_nodes(z: np.ndarray) -> np.ndarray:
 
 
 
+def composite_hand_GJ(p) -> float:
+    """The hand GJ of a composite segment: ΣGᵢJᵢ of bonded concentric layers where it has that pair
+    (Gere, Mechanics of Materials, 6th ed.), else its FE value (no closed form)."""
+    pair = next((q for q in p.pairs if q.quantity.endswith("torsional rigidity GJ") and q.classic is not None), None)
+    return pair.classic if pair is not None else p.GJ
+
+
 def torsional(shaft, case: Case, lay, stations, analyses) -> dict:
     G = case.material.shear_modulus
     z = merged_nodes(np.asarray(lay["z"], float))
@@ -272,7 +279,17 @@ def torsional(shaft, case: Case, lay, stations, analyses) -> dict:
             ell = max(lengths)
             fe.append((max(st.at - ell / 2, 0.0), min(st.at + ell / 2, shaft.length), a.torsion.J, a.props.polar,
                        st.name or f"sections[{len(fe)}]"))
+    comp = {id(shaft.segments[i]): p for i, p in (lay.get("composite_segments") or {}).items()}
+    rhoJ = []  # polar mass per length of composite elements (None elsewhere)
     for m, seg in zip(mid, segs):
+        if id(seg) in comp:  # bonded regions: the segment's FE GJ (the bracket's lower end) and ΣρᵢJᵢ
+            p = comp[id(seg)]
+            GJ.append(p.GJ)
+            Jp.append(0.0)
+            rhoJ.append(p.rhoJ or 0.0)
+            basis.append("composite")
+            continue
+        rhoJ.append(None)
         D, d = seg.diameter, seg.bore or 0.0
         J = math.pi * (D**4 - d**4) / 32
         jp, b = J, "round"
@@ -282,8 +299,9 @@ def torsional(shaft, case: Case, lay, stations, analyses) -> dict:
         GJ.append(G * J)
         Jp.append(jp)
         basis.append(b)
-    GJ, Jp = np.array(GJ), np.array(Jp)
-    GJ_round = np.array([G * math.pi * (s.diameter**4 - (s.bore or 0.0) ** 4) / 32 for s in segs])
+    GJ, Jp = np.array(GJ), np.array(Jp)  # hand: round bars, and ΣGᵢJᵢ of concentric layers on composite segments
+    GJ_round = np.array([composite_hand_GJ(comp[id(s)]) if id(s) in comp else
+                         G * math.pi * (s.diameter**4 - (s.bore or 0.0) ** 4) / 32 for s in segs])
     Tel = np.array([loads_at(lay["items"], z, lay["qy"], x)["T"] for x in mid])
     line = TorsionLine(z, GJ)
     phi = twist(line, Tel)
@@ -299,7 +317,9 @@ def torsional(shaft, case: Case, lay, stations, analyses) -> dict:
             between.append({"from": parts[p][1], "to": parts[q][1], "from_at": parts[p][0], "to_at": parts[q][0],
                             "angle": {"fe": float(phi[n2] - phi[n1]), "classic": float(phi_round[n2] - phi_round[n1]),
                                       "source": "round-bar GJ everywhere: Σ T·L/(G·J), J = π(D⁴ − d⁴)/32 "
-                                                f"({SHIGLEY9}, eq. (3-35))",
+                                                f"({SHIGLEY9}, eq. (3-35))" + (
+                                                    "; on composite segments GJ = ΣGᵢJᵢ of bonded concentric layers (Gere, "
+                                                    "Mechanics of Materials, 6th ed.), else their FE GJ" if comp else ""),
                                       "kind": "factor"}})
     rec = {"G": G, "parts": rot, "between": between,
            "stiffness": "round-bar G·J per segment; a station's FE torsion constant J (and FE polar moment) over its "
@@ -307,14 +327,19 @@ def torsional(shaft, case: Case, lay, stations, analyses) -> dict:
            "fe_stretches": [{"from": f[0], "to": f[1], "J": f[2], "polar": f[3], "name": f[4]} for f in fe]}
     rho = shaft.density
     inertias = [(node(ld.at), ld.inertia) for ld in shaft.loads if ld.inertia]
-    if not rho and len(inertias) < 2:
+    polar = (rho or 0.0) * Jp
+    if comp:  # composite elements: their regions' ΣρᵢJᵢ (compare/checks/shaft_composite.py)
+        polar = np.array([pj if pj is not None else v for pj, v in zip(rhoJ, polar)])
+        rec["composite"] = "composite segments: FE GJ (stress function, the lower end of its bracket) and the " \
+                           "regions' polar mass ΣρᵢJᵢ; the hand angles use ΣGᵢJᵢ of concentric layers"
+    if not polar.any() and len(inertias) < 2:
         rec["frequencies"] = {"skipped": "needs shaft.density or the inertia of at least two parts"}
         return rec
-    line_m = TorsionLine(z, GJ, (rho or 0.0) * Jp)
+    line_m = TorsionLine(z, GJ, polar)
     omega, modes = natural_frequencies(line_m, inertias, count=3)
     fr = {"values": [float(w) for w in omega],
           "method": "linear finite elements along the shaft: G·J per element, consistent polar mass ρ·Jp of the shaft"
-                    + (" (no density given: massless shaft)" if not rho else "") + ", the parts' polar inertias at "
+                    + (" (no density given: massless shaft)" if not polar.any() else "") + ", the parts' polar inertias at "
                     "their positions; free in rotation at the bearings (rigid-body mode left out)",
           "margin": SEPARATION_MARGIN,
           "margin_basis": f"a torsional natural frequency within ±{SEPARATION_MARGIN:.0%} of the operating speed is "

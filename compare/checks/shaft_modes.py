@@ -12,7 +12,7 @@ import numpy as np
 from fem.beam import Beam, natural_frequencies
 
 from ..case.shaft import Shaft
-from .shaft_beam import node_of
+from .shaft_beam import mass_per_length, node_of
 
 
 def mode_shapes(shaft: Shaft, layout: dict, count: int = 3) -> dict | None:
@@ -22,11 +22,11 @@ def mode_shapes(shaft: Shaft, layout: dict, count: int = 3) -> dict | None:
         return None
     model = layout["model"]
     beam, z = model.beam, model.beam.z
-    rho = shaft.density or 0.0
     sup = [(node_of(z, s.at), s.stiffness) for s in shaft.supports]
     masses = [(node_of(z, ld.at), ld.mass) for ld in shaft.loads if ld.mass]
     inertias = [(node_of(z, ld.at), ld.inertia / 2) for ld in shaft.loads if ld.inertia]  # as critical_speeds
-    vib = Beam(beam.z, beam.EI, beam.kGA, rhoA=rho * model.area, rhoI=rho * model.I)
+    rhoA, rhoI = mass_per_length(model, shaft.density)
+    vib = Beam(beam.z, beam.EI, beam.kGA, rhoA=rhoA, rhoI=rhoI)
     omega, modes = natural_frequencies(vib, sup, masses, inertias, count=count)
     shapes = []
     for k in range(modes.shape[1]):

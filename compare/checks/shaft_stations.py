@@ -27,6 +27,7 @@ from ..case.units import from_si
 from .feature_local import fillet_fe_path
 from .findings import EXIT_NO_VERDICT, withdraw_verdicts
 from .shaft_beam import SIDE, loads_at, solve_layout
+from .shaft_composite import composite_segments
 from .shaft_extent import at_load_point, check_over_extent, section_loads
 
 #: Relative change of a station's loads between the round-bar beam and the beam with the stations'
@@ -78,6 +79,9 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
     if near:  # in a groove the plain section is the groove bottom's (the diameter of the groove's Kt nominals)
         d = min(d, min(d - 2 * g.depth for g in near))
     section = st.section if st.section is not None else round_section(d, bore)
+    comp = composite_segment_at(shaft, segs, st.at)
+    if comp is not None:  # bonded regions: the segment's composite section, checked region by region
+        section, bore = comp.section, None
     fat = replace(case.fatigue) if case.fatigue else Fatigue()
     kt_from = {}
     for key in ("kt_bending", "kts_torsion"):
@@ -102,7 +106,7 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
     title = f"{case.title} — station at z = {_where(case, st.at)}" + (f" ({st.name})" if st.name else "")
     sc = Case(title, case.units, section, lo, case.material, case.analysis, path=case.path, fatigue=fat,
               feature_lengths=parse_feature_lengths(st.raw.get("section", {}), case.units) if st.section else [],
-              geometry=st.geometry)
+              geometry=st.geometry, region_materials=list(comp.materials) if comp is not None else [])
     features = (["shoulder"] if step else []) + (["groove"] * bool(near))
     rec = {"at": st.at, "name": st.name, "diameter": d, "bore": bore, "features": features,
            "section_kind": section.kind, "kt_from": kt_from}
@@ -112,6 +116,37 @@ def station_case(case: Case, shaft: Shaft, st: Station, segs, loads: dict) -> tu
     if sharp:
         rec["sharp"] = sharp
     return sc, rec
+
+
+def composite_segment_at(shaft: Shaft, segs, at: float) -> Segment | None:
+    """The composite segment a station is on, or None (a station at a joint of a composite segment
+    with another is refused by the case parser)."""
+    tol = SHARP_REACH * shaft.length
+    return next((s for s in segs if s.section is not None and s.start - tol <= at <= s.end + tol), None)
+
+
+def composite_station(rec: dict, a, rotating: bool) -> None:
+    """A station on a composite segment: exit code 3 when its section study did not show the accuracy
+    target (as a composite section's own results say). On a rotating shaft its bending alternates: each
+    region's fatigue is checked with its own data (compare/checks/composite_fatigue.py); a region left
+    without fatigue data there is said first, and the station (so the shaft) has no verdict (exit code
+    :data:`EXIT_NO_VERDICT`), never a silent pass on the static factor alone."""
+    rec["composite"] = True
+    st = a.extra["composite"]["study"]
+    achieved = max((v["gci"] for v in st.estimates.values() if v["gci"] is not None), default=None)
+    if achieved is None or achieved > st.target or st.limited is not None:  # as the composite results say
+        a.extra["exit_code"] = max(3, a.extra.get("exit_code") or 0)
+    if not rotating:
+        return
+    skipped = [r for w in a.extra.get("warnings") or [] if w["code"] == "composite_fatigue_not_checked"
+               for r in w.get("regions", [])]
+    if not skipped:  # every region's fatigue was checked
+        return
+    rec["fatigue_not_checked"] = ", ".join(skipped)
+    a.extra["exit_code"] = max(EXIT_NO_VERDICT, a.extra.get("exit_code") or 0)
+    if a.extra.get("governing"):
+        a.extra["governing"] = dict(a.extra["governing"], verdict_supported=False,
+                                    not_a_verdict="fatigue not checked in " + ", ".join(skipped) + " (no fatigue data)")
 
 
 def _where(case: Case, z: float) -> str:
@@ -152,12 +187,14 @@ def no_verdict_at_sharp(rec: dict, a) -> None:
     a.extra["exit_code"] = max(EXIT_NO_VERDICT, a.extra.get("exit_code") or 0)
 
 
-def layout_step(case: Case, analyse):
+def layout_step(case: Case, analyse, fineness: float | None = None):
     """The whole shaft, then every station through ``analyse(case) -> Analysis``. Returns the
     governing station's Analysis, with ``extra['shaft']`` holding the layout record and
-    ``extra['shaft_stations']`` the station analyses (governing included)."""
+    ``extra['shaft_stations']`` the station analyses (governing included). ``fineness`` (the command
+    line's, else the case's) is that of the composite segments' section studies."""
     shaft = case.shaft
-    layout = solve_layout(shaft, case.section, case.material)
+    comp = composite_segments(case, fineness)  # each composite segment's section solved once: EI, κGA, GJ, mass
+    layout = solve_layout(shaft, case.section, case.material, composite=comp)
     segs = shaft.segments or _uniform(shaft, case)
     stations, analyses = [], []
     for st in shaft.stations:
@@ -169,7 +206,7 @@ def layout_step(case: Case, analyse):
         analyses.append(analyse(sc))
     overrides = _fe_overrides(shaft, stations, analyses)
     if overrides:
-        layout2 = solve_layout(shaft, case.section, case.material, overrides=overrides)
+        layout2 = solve_layout(shaft, case.section, case.material, overrides=overrides, composite=comp)
         for i, st in enumerate(shaft.stations):
             d = stations[i]["diameter"]
             sl = station_loads(layout2, st, d)
@@ -204,6 +241,8 @@ def layout_step(case: Case, analyse):
         elif hook is not None:  # the FE path from the feature's local stresses
             hook(a)
         no_verdict_at_sharp(rec, a)
+        if "composite" in a.extra:
+            composite_station(rec, a, shaft.rotating)
         gov = a.extra.get("governing") or {}
         rec["governing"] = gov or None
         rec["exit_code"] = a.extra.get("exit_code")
@@ -215,6 +254,8 @@ def layout_step(case: Case, analyse):
     a = analyses[g]
     layout["governing_station"] = g
     worst = max((rec["exit_code"] or 0 for rec in stations), default=0)
+    if any(not p.record["accuracy"]["met"] for p in comp.values()):  # a composite segment's EI, GJ not shown
+        worst = max(worst, 3)
     if worst:  # a station without a supported verdict makes the whole run one
         a.extra["exit_code"] = max(worst, a.extra.get("exit_code") or 0)
     a.extra["shaft"] = {"layout": layout, "stations": stations}

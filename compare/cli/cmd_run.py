@@ -27,7 +27,7 @@ from ..output.figure_shaft import shaft_figure_svg
 from ..output.report_composite import composite_report_files
 from ..output.results_composite import composite_summary
 from ..output.results_segment import segment_summary
-from ..output.vtu import segment_vtu_bytes
+from ..output.vtu import composite_vtu_bytes, segment_vtu_bytes
 from ..output.report_checklist import checklist_summary
 from ..output.results_shaft import shaft_summary
 from ..output.vtu import write_fields_vtu
@@ -63,17 +63,20 @@ def run(args) -> int:
     res = build_results(a)
     files = {"results.json": json.dumps(res, indent=2, ensure_ascii=False) + "\n"}
     vtu = not args.no_vtu and a.mesh is not None  # no section mesh when only feature factors were asked for
+    layout = "shaft" in a.extra and bool(res.get("section_loads"))
     composite = "composite" in a.extra  # bonded regions of several materials: their own report
     if "segment" in a.extra and not args.no_vtu:  # the 3-D segment's surface stresses
         files["segment.vtu"] = segment_vtu_bytes(a)
+    if composite and not args.no_vtu:  # the composite section's regions and stresses (cell data)
+        files["section.vtu"] = composite_vtu_bytes(a)
     report = not args.no_report and (a.mesh is not None or composite)
-    if report:
-        files.update(composite_report_files(a, res) if composite else report_files(a, res))
+    if report:  # a layout whose governing station is composite gets the layout report
+        files.update(composite_report_files(a, res) if composite and not layout else report_files(a, res))
     if (res.get("shaft") or {}).get("diagrams"):  # the layout's diagrams (the report's, when it drew them)
         files["shaft.svg"] = files.get("figures/shaft_diagrams.svg") or shaft_figure_svg(res, case.units)
     write_outputs(out, files, a if vtu else None)
     if not args.quiet:
-        written = [out / "results.json"] + ([out / "section.vtu"] if vtu else [])
+        written = [out / "results.json"] + ([out / "section.vtu"] if vtu or "section.vtu" in files else [])
         if "segment.vtu" in files:
             written.append(out / "segment.vtu")
         if "shaft.svg" in files:
@@ -86,7 +89,7 @@ def run(args) -> int:
         if "segment" in a.extra:  # a 3-D segment study
             print(segment_summary(res, case.units))
             print("\nwritten: " + ", ".join(str(w) for w in written))
-        elif "composite" in a.extra:  # bonded regions of several materials
+        elif composite:  # bonded regions of several materials (a layout's governing station, too)
             print(composite_summary(res, case.units))
             print("\nwritten: " + ", ".join(str(w) for w in written))
         elif a.mesh is None:  # factors only: the shaft block above is the whole answer

@@ -8,6 +8,8 @@ from dataclasses import replace
 
 from ..case.case import read_input_file
 from .headline import csv_text, headline_rows, layout_rows
+from .report_composite_layout import (composite_headline_rows, composite_segment_rows, composite_station_figures,
+                                      is_composite)
 from .results import build_results
 from .vtu import fields_of
 
@@ -31,13 +33,16 @@ def report_files(a, res: dict, date: str | None = None) -> dict[str, str | bytes
     from .figures import all_figures  # noqa: PLC0415  lazy import of a slow dependency: matplotlib (~0.8 s), only when a report is drawn
     from .report_html import render  # noqa: PLC0415  lazy import of a slow dependency (it reaches matplotlib through .figures)
     case_text = read_input_file(a.case.path, "case") if a.case.path is not None else None
-    rows = headline_rows(res, a.case.units)
+    rows = composite_headline_rows(res, a.case.units) if is_composite(res) else headline_rows(res, a.case.units)
     if is_layout(res):
         from .figures_layout import layout_figures  # noqa: PLC0415  lazy import of a slow dependency (matplotlib)
         from .report_layout import STATION_FIGURES, render_layout  # noqa: PLC0415  lazy import of a slow dependency (matplotlib through .figures)
         figs = layout_figures(a, res, a.case.units)
         stations = []
         for i, (sa, sres) in enumerate(station_results(a), 1):
+            if is_composite(sres):  # a station on a composite segment: its regions and torsional stress
+                stations.append((sres, composite_station_figures(sa, sres, i)))
+                continue
             sfigs = all_figures(sa, sres, fields_of(sa) if sa.extra.get("combined") else {}, only=set(STATION_FIGURES))
             for fg in sfigs:
                 fg.name = f"station{i}_{fg.name}"
@@ -45,7 +50,7 @@ def report_files(a, res: dict, date: str | None = None) -> dict[str, str | bytes
         html = render_layout(res, a.case.units, figs, stations, case_text, res.get("inputs") or {}, date,
                              title=a.extra["shaft"].get("title"))
         figs = figs + [fg for _, sf in stations for fg in sf]
-        rows = rows + layout_rows(res, a.case.units)
+        rows = rows + layout_rows(res, a.case.units) + composite_segment_rows(res, a.case.units)
     else:
         from .figures_polymer import polymer_figures  # noqa: PLC0415  lazy import of a slow dependency: matplotlib, as above
         figs = all_figures(a, res, fields_of(a) if a.extra.get("combined") else {}) + polymer_figures(res, a.case.units)

@@ -149,7 +149,7 @@ def layout_rows(res: dict, system) -> list[dict]:
             row("station", f"{who}: NO VERDICT (unbounded stress at a sharp corner)", None, "dimensionless",
                 f"section_loads[{i}].results.governing")
         elif gov.get("factor") is not None:
-            row("station", f"{who}: lowest n ({LABELS.get(gov['criterion'], gov['criterion'])}, {gov['path']} path)",
+            row("station", f"{who}: lowest n ({LABELS.get(gov['criterion'], gov['criterion'])}, {gov.get('path', 'composite')} path)",
                 gov["factor"], "dimensionless", f"section_loads[{i}].results.governing.factor")
     # the shoulder and groove factors have their rows in headline_rows (feature_rows), chart wording included
     for i, rc in enumerate(sh.get("reactions") or []):

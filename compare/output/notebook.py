@@ -8,6 +8,7 @@ import html
 
 from .design_report import is_layout
 from .headline import headline_rows, layout_rows
+from .report_composite_layout import composite_headline_rows, composite_segment_rows, is_composite
 from .report import Fmt
 
 
@@ -32,8 +33,10 @@ def result_html(res: dict, system) -> str:
         parts.append(f"<p>{_e(sentence)}</p><ul>" + "".join(f"<li>{_e(x)}</li>" for x in other) + "</ul>")
     else:
         gov = res.get("governing")
-        parts.append(f"<p>{_e('Lowest factor of safety: ' + gov['text'] if gov else 'No factor of safety computed.')}</p>")
-    rows = headline_rows(res, system) + (layout_rows(res, system) if layout else [])
+        text = (gov.get("text") or f"n = {gov['factor']:.3g} in {gov.get('region')}") if gov else None  # composite: no text
+        parts.append(f"<p>{_e('Lowest factor of safety: ' + text if gov else 'No factor of safety computed.')}</p>")
+    rows = (composite_headline_rows(res, system) if is_composite(res) else headline_rows(res, system)) + (
+        layout_rows(res, system) + composite_segment_rows(res, system) if layout else [])
     parts.append("<table><thead><tr><th>group</th><th>quantity</th><th>value</th><th>unit</th><th>hand</th>"
                  "<th>FE/hand</th><th>source</th></tr></thead><tbody>")
     for r in rows:

@@ -69,7 +69,8 @@ def checklist_lines(res: dict, system, fmt: Fmt | None = None) -> list[str]:
         for bt in tor["between"]:
             a = bt["angle"]
             lines.append(f"  twist from {bt['from']} to {bt['to']}: {math.degrees(a['fe']):.4g}° "
-                         f"(round bars: {math.degrees(a['classic']):.4g}°)")
+                         f"({'hand, ΣGᵢJᵢ on composite segments' if tor.get('composite') else 'round bars'}: "
+                         f"{math.degrees(a['classic']):.4g}°)")
         fr = tor["frequencies"]
         if "skipped" in fr:
             lines.append(f"  torsional frequencies: not computed ({fr['skipped']})")

@@ -49,9 +49,7 @@ def composite_figures(a, res: dict) -> list:
     import matplotlib  # noqa: PLC0415  lazy import of a slow dependency: matplotlib, only when a report is drawn
     import matplotlib.pyplot as plt  # noqa: PLC0415  lazy import of a slow dependency (matplotlib, scikit-fem), only when drawn
     from matplotlib.tri import Triangulation  # noqa: PLC0415  lazy import of a slow dependency (matplotlib, scikit-fem), only when drawn
-    from skfem import Basis, ElementTriP2  # noqa: PLC0415  lazy import of a slow dependency (matplotlib, scikit-fem), only when drawn
-
-    from fem.bases import interpolate  # noqa: PLC0415  lazy import: loads scikit-fem, only when a report is drawn
+    from fem.export import centroid_values  # noqa: PLC0415  lazy import: loads scikit-fem, only when a report is drawn
 
     from .figures import CMAP, INK, STYLE, Figure  # noqa: PLC0415  lazy import of a slow dependency (matplotlib)
 
@@ -89,9 +87,8 @@ def composite_figures(a, res: dict) -> list:
         out.append(Figure("composite_regions", "The section's bonded regions and their material boundaries", fig))
         # --- torsional shear stress under the case's torque (stress function, per element)
         T = abs(res["torsion"]["torque"]) or 1.0
-        b1 = Basis(m, ElementTriP2(), intorder=1)  # one point per element: its centroid
-        g = interpolate(b1, sol.torsion.phi).grad
-        tau = np.hypot(g[0][:, 0], g[1][:, 0]) / sol.torsion.GJ * T * from_si(1.0, "stress", f.s)
+        _, g, _ = centroid_values(m, sol.torsion.phi)  # one value per element: at its centroid
+        tau = np.hypot(g[0], g[1]) / sol.torsion.GJ * T * from_si(1.0, "stress", f.s)
         fig, ax = plt.subplots(figsize=(6.0, 4.8))
         pc = ax.tripcolor(tri, facecolors=tau, cmap=CMAP, edgecolors="none")
         for ln in lines:

@@ -51,7 +51,9 @@ def _chart_text(fe: float, ch: dict) -> str:
 
 _SKIP = {"sharp_shoulder": "no fillet radius given; a sharp shoulder has an unbounded elastic stress",
          "fillet_beyond_step": "the fillet is larger than the step (not a tangent quarter arc)",
-         "groove_radius_beyond_depth": "the bottom radius is larger than the depth (not modelled)"}
+         "groove_radius_beyond_depth": "the bottom radius is larger than the depth (not modelled)",
+         "composite_shoulder": "a step of a composite segment (bonded regions): the shoulder factor of one material "
+                               "does not apply, and none is computed"}
 _WHY = {"outside_range": "geometry outside the fit's h/r range; not extrapolated",
         "bored_shaft": "the fit is for solid shafts"}
 
@@ -63,7 +65,7 @@ def feature_warning_text(w: dict, f) -> str | None:
         return (f"NO FACTOR AT A SHARP SHOULDER: {w['field']} (at {f.q(w['at'], 'length', 5)}) gives no fillet radius. The "
                 "elastic stress in a sharp corner is unbounded, so no Kt, Kts or fatigue verdict can be given there; "
                 "give the fillet radius.")
-    if code in ("feature_fillet_beyond_step", "feature_groove_radius_beyond_depth"):
+    if code in ("feature_fillet_beyond_step", "feature_groove_radius_beyond_depth", "feature_composite_shoulder"):
         return (f"FEATURE NOT MODELLED: {w['field']} (at {f.q(w['at'], 'length', 5)}): "
                 f"{_SKIP[code[len('feature_'):]]}; no factors are given for it.")
     if code == "feature_far_field":

@@ -15,6 +15,7 @@ from .report_combined import LABELS
 from .report_checklist import checklist_html
 from .report_polymer import layout_lines, polymer_html
 from .results_shaft import station_place_lines
+from .report_composite_layout import composite_segments_html, composite_station_html, is_composite
 from .report_html import CAUTION_MORE, CSS, _convergence, _factors, _img, _materials, _num, _table, e, hand_vs_fe
 
 #: the fixed sections of the layout report, in order (id, heading); each station's part follows
@@ -79,6 +80,13 @@ def whole_shaft_verdict(res: dict, f: Fmt) -> tuple[str, list[str]]:
         sentence = (f"NO VERDICT for the shaft: at {station_label(st, g, f)} the stress is unbounded (a sharp corner), so no "
                     "factor of safety can be given there, and none for the whole shaft. The factors of the other "
                     "stations below are theirs only.")
+    elif gov.get("region") is not None and gov.get("factor") is not None and st is not None:  # a composite station
+        sentence = (f"lowest factor of safety n = {gov['factor']:.3g} at {station_label(st, g, f)}, in its region "
+                    f"{gov['region']} ({LABELS.get(gov.get('criterion'), gov.get('criterion'))}, each region in its own "
+                    "material)")
+        why = gov.get("not_a_verdict") or ", ".join(str(w).replace("_", " ") for w in gov.get("not_supported_because", []))
+        sentence = (f"NO VERDICT for the shaft ({why or 'see the warnings'}): {sentence}."
+                    if gov.get("verdict_supported") is False else f"The shaft's {sentence}.")
     elif gov.get("factor") is not None and st is not None:
         sentence = f"Lowest factor of safety of the shaft, at {station_label(st, g, f)}: {gov.get('text') or gov['factor']}."
     else:
@@ -139,7 +147,7 @@ def render_layout(res: dict, system, figures: list, stations: list, case_text: s
         if res.get("polymer_layout") else "")
     parts["critical-speeds"] = _critical(sh) + _fig(figs, "shaft_modes")
     parts["features"] = _features(sh, f) + _fig(figs, "feature_stress")
-    parts["stations"] = _station_table(res, f)
+    parts["stations"] = _station_table(res, f) + composite_segments_html(res, f)
     parts["checklist"] = checklist_html(res, system, f)
     parts["accuracy"] = _accuracy(res, stations, f)
     parts["materials"] = _materials(res)
@@ -151,8 +159,9 @@ def render_layout(res: dict, system, figures: list, stations: list, case_text: s
         body.append(f'<section id="{sid}"{cls}><h2>{e(head)}</h2>{parts.get(sid, "")}</section>')
         if sid == "stations":
             for j, (st, (sres, sfigs)) in enumerate(zip(res.get("section_loads", []), stations)):
+                part = composite_station_html(st, sres, sfigs, f) if is_composite(sres) else _station_part(st, sres, sfigs, f)
                 body.append(f'<section id="station-{j + 1}"><h2>{e(station_label(st, j, f).capitalize())}</h2>'
-                            f"{_station_part(st, sres, sfigs, f)}</section>")
+                            f"{part}</section>")
     return ("<!DOCTYPE html>\n<html lang=\"en\"><head><meta charset=\"utf-8\">"
             f"<title>{e(title)} — shaftcheck layout report</title><style>{CSS_LAYOUT}</style></head><body>"
             f"<h1>{e(title)}</h1><p class=\"small\">shaftcheck {e(res['tool']['version'])} design report of a shaft "
@@ -305,6 +314,11 @@ def _station_table(res: dict, f: Fmt, short: bool = False) -> str:
         fe_path = "meridian-section FE at the fillet" if local else "2-D section FE"
         if gov.get("no_verdict"):
             verdict = "NO VERDICT (unbounded stress)"
+        elif gov.get("region") is not None:  # a composite station: per region, static only
+            verdict = (f"n = {gov['factor']:.3g} ({LABELS.get(gov.get('criterion'), gov.get('criterion'))}, {gov['region']})" +
+                       ("; NOT A VERDICT: " + (gov.get("not_a_verdict") or ", ".join(
+                           str(w).replace("_", " ") for w in gov.get("not_supported_because", [])) or "see its warnings")
+                        if gov.get("verdict_supported") is False else ""))
         elif gov.get("factor") is None:
             verdict = "no factor"
         else:
@@ -401,5 +415,7 @@ feature or from a chart, never from the 2-D section.</li>
 the margin asked is common practice.</li>
 <li>Slope and deflection limits are the published ranges named beside each check; bearings and gears of the real
 machine may need tighter ones (see their makers' data).</li>
-<li>Linear elastic, isotropic, homogeneous material; small strains and rotations.</li>
+<li>Linear elastic, isotropic, homogeneous material; small strains and rotations. A composite segment: each region
+homogeneous, the regions bonded without slip; its EI, κ·GA, GJ and mass per length from its own FE section (κ·GA by an
+approximate shear coefficient, see the composite segments table); creep of its polymer regions not applied.</li>
 </ul>"""

@@ -6,6 +6,7 @@ import math
 
 from .._version import __version__
 from .results_composite import composite_results
+from .results_composite_layout import composite_layout_results
 from .results_segment import segment_results
 from ..pairs.analysis import Analysis
 from .report import CAUTION, Fmt, warning_text
@@ -22,6 +23,8 @@ SCHEMA_VERSION = 1
 def build_results(a: Analysis) -> dict:
     if (a.extra.get("shaft") or {}).get("factors_only"):  # a layout asking for the feature factors only
         return _clean(factors_only_results(a, warnings_out, SCHEMA_VERSION))
+    if "composite" in a.extra and "shaft" in a.extra:  # a layout whose governing station is composite
+        return _clean(composite_layout_results(a, warnings_out, SCHEMA_VERSION, build_results))
     if "composite" in a.extra:  # bonded regions of several materials
         return _clean(composite_results(a, warnings_out, SCHEMA_VERSION))
     if "segment" in a.extra:  # a 3-D segment study

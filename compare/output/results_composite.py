@@ -59,10 +59,12 @@ def composite_results(a, warnings_out, schema_version: int) -> dict:
                                    "data": {"target": st.target, "achieved": achieved, "limited_by": st.limited}})
     if "governing" in out:
         why = [w["code"] for w in out["warnings"] if w["code"] in UNSUPPORTED]
+        if out["governing"].get("verdict_supported") is False:  # said by a layout's station check
+            why.append(out["governing"].get("not_a_verdict") or "not a verdict")
         out["governing"]["verdict_supported"] = not why
         if why:
             out["governing"]["not_supported_because"] = why
-    out["exit_code"] = 0 if met else 3
+    out["exit_code"] = max(0 if met else 3, a.extra.get("exit_code") or 0)  # 4: a layout station without a verdict
     return out
 
 
@@ -139,5 +141,4 @@ def composite_summary(res: dict, system) -> str:
             lines.append(f"    {p['quantity']}: FE/{'exact' if p['kind'] == 'check' else 'hand'} {p['ratio']:.6f} ({p['kind']})")
     lines.append("")
     lines.append("Not checked: " + "; ".join(res["not_checked"]) + ".")
-    lines.append("section.vtu is not written for composite sections yet.")
     return "\n".join(lines)

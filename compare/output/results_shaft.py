@@ -11,7 +11,8 @@ from dataclasses import replace
 from ..checks.shaft_modes import mode_shapes
 from .report import Fmt
 
-_STATION_KEYS = ("governing", "warnings", "static", "fatigue", "torsion", "section", "exit_code")
+_STATION_KEYS = ("governing", "warnings", "static", "fatigue", "torsion", "section", "exit_code", "regions",
+                 "not_checked")  # regions, not_checked: a station on a composite segment
 
 
 def add_shaft_results(out: dict, a, build_results) -> None:
@@ -46,6 +47,7 @@ def add_shaft_results(out: dict, a, build_results) -> None:
                  "critical speeds)", "stiffness": "round-bar E·I and κ·G·A per segment; a station's FE section over "
                  "its feature length where given (fe_sections)"},
         "governing_station": lay["governing_station"],
+        "composite_segments": [p.record for p in (lay.get("composite_segments") or {}).values()],
         "warnings": shaft_warnings(lay, stations),
     }
     loads = []
@@ -78,6 +80,14 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
                                 f"corner ({c['field']} not given). The elastic stress there is unbounded, so no Kt, no "
                                 "local stress and no factor of safety can be given for it, and none is given for the "
                                 "whole shaft; give the real fillet radius."})
+    for st in stations:  # then: a rotating shaft's station on a composite segment, whose fatigue is not checked
+        if st.get("fatigue_not_checked"):
+            out.append({"code": "station_fatigue_not_checked", "at": st["at"], "name": st["name"],
+                        "text": f"NO VERDICT at station {st['name'] or st['at']}: FATIGUE NOT CHECKED in "
+                                f"{st['fatigue_not_checked']}. It is on a composite segment of a rotating shaft, so its "
+                                "bending stress alternates every turn, and those regions have no fatigue data (give "
+                                "ultimate and surface, or polymer data, per region); its factors leave their fatigue out "
+                                "and are not a verdict for the shaft."})
     for st in stations:
         if st.get("warning") == "kt_missing" and not st.get("sharp"):
             out.append({"code": "station_kt_missing", "at": st["at"], "name": st["name"], "features": st["features"],
@@ -86,10 +96,18 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
                                 "fatigue.kt_bending / kts_torsion for the station with their source). Its factors are "
                                 "not a verdict for the shoulder."})
         code = st.get("exit_code")
-        if code:
+        if code and not (code == 4 and st.get("fatigue_not_checked")):  # said above
             out.append({"code": "station_without_verdict", "at": st["at"], "name": st["name"], "exit_code": code,
                         "text": f"station {st['name'] or st['at']}: its section check has no supported verdict "
                                 f"(exit code {code}; see its warnings in section_loads)"})
+    for p in (lay.get("composite_segments") or {}).values():
+        acc = p.record["accuracy"]
+        if not acc["met"]:
+            got = "unknown" if acc["achieved"] is None else f"{100 * acc['achieved']:.3g} %"
+            out.append({"code": "composite_segment_accuracy_not_met", "segment": p.index, "achieved": acc["achieved"],
+                        "target": acc["target"], "text": f"ACCURACY TARGET NOT SHOWN for composite segment {p.index}: its "
+                        f"EI, κGA and GJ carry an estimated error of {got} (target {100 * acc['target']:.3g} %"
+                        f"{'; ' + acc['limited_by'] if acc['limited_by'] else ''}), and so do the beam's results (exit 3)"})
     for s in lay["slopes"]:
         if not s["ok"]:
             out.append({"code": "slope_above_limit", "at": s["at"], "name": s["name"], "slope": s["slope"],
@@ -142,6 +160,10 @@ def shaft_summary(res: dict, system) -> str:
         gov = (st["results"].get("governing") or {})
         n = gov.get("factor")
         verdict = "no verdict" if gov.get("no_verdict") or n is None else f"n = {n:.3g} ({gov.get('criterion')})"
+        if gov.get("region") is not None:  # a station on a composite segment
+            why = gov.get("not_a_verdict") or ", ".join(str(w).replace("_", " ") for w in gov.get("not_supported_because", []))
+            verdict += f" in {gov['region']}" + (f"; NOT A VERDICT: {why or 'see its warnings'}"
+                                                 if gov.get("verdict_supported") is False else "")
         if "fe_local" in (st["results"].get("fatigue") or {}) or "fe_local" in (st["results"].get("static") or {}):
             verdict += "; FE path from the meridian-section FE at the fillet"
         M = math.hypot(st["Mx"], st["My"])
@@ -152,6 +174,14 @@ def shaft_summary(res: dict, system) -> str:
         lines.append(f"    {f.q(st['at'], 'length', 4)} {st['name'] or ''}: M {f.q(M, 'moment', 4)}, T "
                      f"{f.q(st['T'], 'moment', 4)}, N {f.q(st['N'], 'force', 4)}{side} — {verdict}")
         lines.extend(f"      {x}" for x in station_place_lines(st, f))
+    for c in sh.get("composite_segments") or []:
+        hand = {p["quantity"].split(": ", 1)[1]: p["ratio"] for p in c["compare"]}
+        ratios = ", ".join(f"{k.split(' (')[0]} FE/hand {v:.6f}" for k, v in hand.items() if v is not None)
+        lines.append(f"  composite segment {c['segment']} ({f.q(c['from'], 'length', 4)} to {f.q(c['to'], 'length', 4)}): "
+                     f"EI {f.q(c['EI'], 'rigidity', 5)}, GJ {f.q(c['GJ'], 'rigidity', 5)}" + (f"; {ratios}" if ratios else ""))
+    if sh.get("composite_segments"):
+        lines.append("  polymer regions: the supplier's data for the grade and the part's own tests decide (grade, processing, "
+                     "weld lines, orientation in the moulding, temperature, moisture and time under load change them)")
     g = sh["governing_station"]
     lines.append(f"  the section summary below is the governing station's ({_station_name(res, g, f)})")
     return "\n".join(lines)

@@ -7,7 +7,7 @@ from pathlib import Path
 import meshio
 import numpy as np
 
-from fem.export import nodal_gradient, write_vtu
+from fem.export import centroid_values, nodal_gradient, write_vtu
 
 from ..checks.fields import nodal_fields
 
@@ -62,4 +62,30 @@ def segment_vtu_bytes(a) -> bytes:
     with tempfile.TemporaryDirectory() as d:
         path = Path(d) / "segment.vtu"
         meshio.Mesh(pts, [("vertex", np.arange(len(pts)).reshape(-1, 1))], point_data=data).write(path)
+        return path.read_bytes()
+
+
+def composite_vtu_bytes(a) -> bytes:
+    """``section.vtu`` of a composite section (on its own, or a layout's station): the finest mesh as
+    6-node triangles with, per element (cell data, since the stresses jump at every interface):
+    ``region`` and ``material`` (the index of the region and of its material, in the order of the
+    case's regions, both from 0), ``torsion_tau`` (|τ| under the case's torque, or per unit torque
+    [Pa/(N·m)] when it is 0), ``normal_sigma`` (σ = Eₖ·ε under the case's N, Mx, My, transformed
+    section) and ``von_mises`` (√(σ² + 3τ²)), each at the element's centroid; per node, the stress
+    function ``prandtl_phi`` and the warping function ``warping_omega`` (one unit twist rate).
+    Returned as the bytes of a VTU file; the region names are in results.json ``regions``."""
+    case = a.case
+    sol = a.extra["composite"]["solution"]
+    cm, tr, pr = sol.mesh, sol.torsion, sol.props
+    E = np.array([m.elastic_modulus for m in case.region_materials])
+    T = abs(case.loads.torque) or 1.0
+    _, g, x = centroid_values(cm.mesh, tr.phi)
+    tau = np.hypot(g[0], g[1]) / tr.GJ * T
+    Mx, My = case.loads.bending
+    sigma = E[cm.region_of] * pr.strain(case.loads.axial, Mx, My, x[0], x[1])
+    cells = {"region": cm.region_of.astype(np.int64), "material": cm.region_of.astype(np.int64),
+             "torsion_tau": tau, "normal_sigma": sigma, "von_mises": np.hypot(sigma, np.sqrt(3.0) * tau)}
+    with tempfile.TemporaryDirectory() as d:
+        path = Path(d) / "section.vtu"
+        write_vtu(path, cm, {"prandtl_phi": tr.phi, "warping_omega": tr.omega}, cells)
         return path.read_bytes()

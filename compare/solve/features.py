@@ -107,7 +107,9 @@ def shaft_features(shaft) -> list[Feature]:
                     bore=bore, step_down=a.diameter > b.diameter)
         if (a.bore or 0.0) != (b.bore or 0.0):
             f.notes.append("bore_taken_uniform")  # the smaller segment's bore, on both sides
-        if b.fillet is None:
+        if a.section is not None or b.section is not None:
+            f.skipped = "composite_shoulder"  # bonded regions: the meridian-section FE is of one material
+        elif b.fillet is None:
             f.skipped = "sharp_shoulder"  # no fillet given: the corner's elastic stress is unbounded
         elif b.fillet > f.h * (1 + 1e-9):
             f.skipped = "fillet_beyond_step"  # a fillet larger than the step is not a tangent quarter arc
