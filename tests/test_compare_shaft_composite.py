@@ -209,28 +209,50 @@ def test_no_composite_keeps_the_one_material_beam_bit_for_bit():
     assert np.array_equal(r["qy"], -7850 * 9.80665 * m.area)
 
 
-def test_the_demo_layout_runs_and_says_fatigue_is_not_checked(tmp_path, run_cli):
+def test_the_demo_layout_checks_each_region_in_fatigue(tmp_path, run_cli):
     out = tmp_path / "o"
     code, stdout, err = run_cli("run", str(ROOT / "cases" / "overmoulded_idler_layout.toml"), "--out", str(out))
-    assert code == 4, err  # rotating: the composite stations' fatigue is not checked, so no verdict
+    assert code == 0, err  # every region has fatigue data; the invented polymer data leave no verdict (warning)
     res = json.loads((out / "results.json").read_text())
-    assert res["warnings"][0]["code"] == "station_fatigue_not_checked"
-    assert "FATIGUE NOT CHECKED" in stdout.split("\n")[1]
+    codes = [w["code"] for w in res["warnings"]]
+    assert "polymer_illustrative_data" in codes and "station_fatigue_not_checked" not in codes
     assert res["governing"]["verdict_supported"] is False
     seg = res["shaft"]["composite_segments"][0]
     assert {p["quantity"] for p in seg["compare"]} >= {"segment 0: torsional rigidity GJ"}
     for p in seg["compare"]:
         assert p["ratio"] == pytest.approx(p["fe"] / p["classic"], rel=1e-12)  # computed, not typed
     for st in res["section_loads"]:
-        assert [r["name"] for r in st["results"]["regions"]][0] == "steel core pin"
-        assert st["results"]["exit_code"] == 4
+        regions = st["results"]["regions"]
+        assert regions[0]["name"] == "steel core pin"
+        assert all(r["fatigue"] for r in regions)  # each region checked in its own material
+        gov = st["results"]["governing"]
+        # the governing factor is the lowest over every region's static bound and fatigue criteria
+        lows = [r["factor"] for r in regions] + [r["fatigue"]["factor"] for r in regions]
+        assert gov["factor"] == pytest.approx(min(lows), rel=1e-12)
     html = (out / "report.html").read_text()
-    assert "supplier" in html and "Composite segments" in html and "FATIGUE NOT CHECKED" in html
-    assert "NO VERDICT for the shaft" in html
+    assert "supplier" in html and "Composite segments" in html and "NO VERDICT for the shaft" in html
     assert (out / "figures" / "station1_composite_regions.svg").exists()
     assert "region 1: steel core pin" in (out / "results.csv").read_text()
     m = meshio.read(out / "section.vtu")
     assert set(np.unique(m.cell_data["region"][0])) == {0, 1}
+
+
+def test_a_rotating_station_with_a_region_without_fatigue_data_has_no_verdict(tmp_path, run_cli):
+    text = (ROOT / "cases" / "overmoulded_idler_layout.toml").read_text()
+    text = text.replace('ultimate = "650 MPa"\nsurface = "ground"\n', "")
+    assert "ultimate" not in text
+    case = tmp_path / "nofat.toml"
+    case.write_text(text)
+    out = tmp_path / "o"
+    code, stdout, err = run_cli("run", str(case), "--out", str(out))
+    assert code == 4, err  # the steel pin's fatigue cannot be checked: no verdict
+    res = json.loads((out / "results.json").read_text())
+    assert res["warnings"][0]["code"] == "station_fatigue_not_checked"
+    assert "steel core pin" in res["warnings"][0]["text"]
+    assert "FATIGUE NOT CHECKED" in stdout.split("\n")[1]
+    for st in res["section_loads"]:
+        assert st["results"]["exit_code"] == 4
+    assert "NO VERDICT for the shaft" in (out / "report.html").read_text()
 
 
 def test_a_still_shaft_station_has_its_static_verdict(tmp_path, run_cli):
