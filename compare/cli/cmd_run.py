@@ -27,6 +27,7 @@ from ..output.figure_shaft import shaft_figure_svg
 from ..output.report_composite import composite_report_files
 from ..output.results_composite import composite_summary
 from ..output.results_segment import segment_summary
+from ..output.report_segment import segment_report_files
 from ..output.vtu import segment_vtu_bytes
 from ..output.report_checklist import checklist_summary
 from ..output.results_shaft import shaft_summary
@@ -66,9 +67,11 @@ def run(args) -> int:
     composite = "composite" in a.extra  # bonded regions of several materials: their own report
     if "segment" in a.extra and not args.no_vtu:  # the 3-D segment's surface stresses
         files["segment.vtu"] = segment_vtu_bytes(a)
-    report = not args.no_report and (a.mesh is not None or composite)
+    segment = "segment" in a.extra  # a 3-D segment study: its own report
+    report = not args.no_report and (a.mesh is not None or composite or segment)
     if report:
-        files.update(composite_report_files(a, res) if composite else report_files(a, res))
+        files.update(composite_report_files(a, res) if composite else segment_report_files(a, res) if segment
+                     else report_files(a, res))
     if (res.get("shaft") or {}).get("diagrams"):  # the layout's diagrams (the report's, when it drew them)
         files["shaft.svg"] = files.get("figures/shaft_diagrams.svg") or shaft_figure_svg(res, case.units)
     write_outputs(out, files, a if vtu else None)

@@ -29,7 +29,7 @@ SECTIONS = (
     ("assumptions", "Assumptions and limits of validity"), ("cautions", "Cautions"),
 )
 #: the figures each station's part draws (names of compare/output/figures.py); its factors are tables
-STATION_FIGURES = ("section", "torsion_stress", "von_mises", "mohr")
+STATION_FIGURES = ("section", "torsion_stress", "von_mises", "segment_surface", "mohr")
 
 CSS_LAYOUT = CSS + """
 .ok { } .bad { font-weight: bold; }
@@ -75,7 +75,11 @@ def whole_shaft_verdict(res: dict, f: Fmt) -> tuple[str, list[str]]:
     g = sh["governing_station"]
     st = loads[g] if loads else None
     gov = (st or {}).get("results", {}).get("governing") or res.get("governing") or {}
-    if gov.get("no_verdict"):
+    if gov.get("no_verdict") and gov.get("reason_text"):  # a station's 3-D study short of its target
+        sentence = (f"NO VERDICT for the shaft: at {station_label(st, g, f)} "
+                    f"{gov['reason_text'].removeprefix('no verdict: ')}, so no factor of safety can be given there, and "
+                    "none for the whole shaft. The factors of the other stations below are theirs only.")
+    elif gov.get("no_verdict"):
         sentence = (f"NO VERDICT for the shaft: at {station_label(st, g, f)} the stress is unbounded (a sharp corner), so no "
                     "factor of safety can be given there, and none for the whole shaft. The factors of the other "
                     "stations below are theirs only.")
@@ -303,7 +307,11 @@ def _station_table(res: dict, f: Fmt, short: bool = False) -> str:
         hn, hc = lowest(hand, ft.get("criteria", [])) if "skipped" not in hand else (None, None)
         local = "fe_local" in (r.get("fatigue") or {}) or "fe_local" in (r.get("static") or {})
         fe_path = "meridian-section FE at the fillet" if local else "2-D section FE"
-        if gov.get("no_verdict"):
+        if st.get("fe_path") == "segment":
+            fe_path = "3-D segment FE at the feature"
+        if gov.get("no_verdict") and gov.get("reason_text"):
+            verdict = "NO VERDICT (3-D accuracy not shown)"
+        elif gov.get("no_verdict"):
             verdict = "NO VERDICT (unbounded stress)"
         elif gov.get("factor") is None:
             verdict = "no factor"

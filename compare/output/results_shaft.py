@@ -60,9 +60,13 @@ def add_shaft_results(out: dict, a, build_results) -> None:
                  "at_load_point": rec_st.get("at_load_point"), "extent": rec_st.get("extent"),
                  # where along the station's feature its loads were taken, where the station record says
                  **{k: rec_st[k] for k in ("loads_where", "governing_at") if k in rec_st},
+                 # a 3-D feature: its study (also in results 'segments') and which FE path the station took
+                 **({"segment": rec_st["segment"], "fe_path": rec_st.get("fe_path")} if "segment" in rec_st else {}),
                  "results": {k: r[k] for k in _STATION_KEYS if k in r}}
         loads.append(entry)
     out["section_loads"] = loads
+    if rec.get("segments"):  # each station's 3-D study (a [segment] case's entry, with its station)
+        out["segments"] = rec["segments"]
     # the layout's warnings first, beside the governing station's own
     out["warnings"] = [{"code": w["code"], "text": w["text"], "data": {k: v for k, v in w.items() if k not in ("code", "text")}}
                        for w in out["shaft"]["warnings"]] + out.get("warnings", [])
@@ -71,6 +75,18 @@ def add_shaft_results(out: dict, a, build_results) -> None:
 def shaft_warnings(lay: dict, stations: list) -> list[dict]:
     """Records with a sentence each (SI numbers in the data; the terminal writes its own units)."""
     out = []
+    for st in stations:  # first: stations whose 3-D study did not show its target: no verdict there
+        seg = st.get("segment")
+        if seg is not None and not seg["met"]:
+            ach = seg["achieved"]
+            out.append({"code": "station_segment_accuracy_not_met", "at": st["at"], "name": st["name"],
+                        "field": seg["field"], "target": seg["target"], "achieved": ach, "limited_by": seg["limited_by"],
+                        "text": f"NO VERDICT at station {st['name'] or st['at']}: ACCURACY TARGET NOT SHOWN by the 3-D "
+                                f"study of its {seg['kind'].replace('_', ' ')} ({seg['field']}): target "
+                                f"{100 * seg['target']:.3g} %, estimated error "
+                                f"{'unknown' if ach is None else f'{100 * ach:.3g} %'}"
+                                + (f" ({seg['limited_by']})" if seg["limited_by"] else "") + ". Its Kt, Kts and "
+                                "local stresses are estimates, not a verdict."})
     for st in stations:  # first: stations at a sharp corner, which can have no verdict at all
         for c in st.get("sharp") or []:
             out.append({"code": "station_sharp_no_verdict", "at": st["at"], "name": st["name"], "corner": c,
@@ -142,7 +158,9 @@ def shaft_summary(res: dict, system) -> str:
         gov = (st["results"].get("governing") or {})
         n = gov.get("factor")
         verdict = "no verdict" if gov.get("no_verdict") or n is None else f"n = {n:.3g} ({gov.get('criterion')})"
-        if "fe_local" in (st["results"].get("fatigue") or {}) or "fe_local" in (st["results"].get("static") or {}):
+        if st.get("fe_path") == "segment":
+            verdict += "; FE path from the 3-D segment's local stresses"
+        elif "fe_local" in (st["results"].get("fatigue") or {}) or "fe_local" in (st["results"].get("static") or {}):
             verdict += "; FE path from the meridian-section FE at the fillet"
         M = math.hypot(st["Mx"], st["My"])
         ext = st.get("extent")

@@ -29,7 +29,10 @@ def headline(res: dict, system) -> list[str]:
     for w in res.get("warnings", []):
         out.append(f"WARNING: {w['text']}")
     gov = res.get("governing")
-    if gov and gov.get("no_verdict"):
+    if gov and gov.get("no_verdict") and gov.get("reason_text"):  # not a corner (a 3-D study short of its target)
+        out.append(f"VERDICT: none — {gov['reason_text'].removeprefix('no verdict: ')}; no factor of safety governs "
+                   "(the factors in the table are estimates, not a verdict)")
+    elif gov and gov.get("no_verdict"):
         out.append("VERDICT: none — a sharp re-entrant corner leaves the stress unbounded; no factor of safety governs "
                    "(factors in the table are for the rest of the section only)")
     elif gov:
