@@ -56,7 +56,7 @@ name = "coupling"
 torque = -40
 
 [[shaft.sections]]
-at = 100
+at = 150
 name = "lubrication hole"
 segment = { kind = "cross_hole", hole_diameter = 4, angle = 30, fineness = 0.3 }
 """
@@ -77,7 +77,7 @@ def test_results_keys_and_exit_code(layout_run):
     code, res, out, _ = layout_run
     (seg,) = res["segments"]
     assert seg["station"] == 0 and seg["kind"] == "cross_hole" and seg["field"] == "shaft.sections[0].segment"
-    assert seg["centre"] == pytest.approx(0.1) and seg["angle_deg"] == 30.0 and seg["diameter"] == pytest.approx(0.024)
+    assert seg["centre"] == pytest.approx(0.15) and seg["angle_deg"] == 30.0 and seg["diameter"] == pytest.approx(0.024)
     for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
         assert seg[k] > 1.0, k  # a hole raises the stress under every load (Peterson's charts: Kt > 1)
         assert f"{k}_gci" in seg and len(seg["peak_location"][k]["at"]) == 3
@@ -143,7 +143,14 @@ def test_fe_path_is_the_superposed_3d_stress(layout_run, tmp_path):
     vx, vy = von_mises(fl.S[1][..., k]), von_mises(fl.S[2][..., k])
     lo, hi = M * np.max(np.maximum(vx, vy)), M * np.max(np.hypot(vx, vy))
     assert lo * (1 - 1e-9) <= s["alternating_peak"] <= hi * (1 + 1e-9)
-    assert s["sigma_m_vm"] >= 0 and r["fatigue"]["fe_local"]["field"] == "shaft.sections[0].segment"
+    assert r["fatigue"]["fe_local"]["field"] == "shaft.sections[0].segment"
+    # the mean tensor is T·S_T (steady torque, no axial force here), so its von Mises stress is |T| times
+    # the unit torque's at that point, at most |T|·max vm(S_T) (exact)
+    T = local["loads"]["T"]
+    assert abs(T) > 0
+    vt = von_mises(fl.S[3][..., k])
+    assert s["alternating_peak_mean"] <= abs(T) * np.max(vt) * (1 + 1e-9)
+    assert s["sigma_m_vm"] <= abs(T) * np.max(vt) * (1 + 1e-9)
 
 
 @pytest.mark.slow
@@ -152,6 +159,7 @@ def test_layout_report_has_the_surface_figure(layout_run):
     html = (out / "report.html").read_text()
     assert (out / "figures" / "station1_segment_surface.png").stat().st_size > 1000
     assert "station1_segment_surface" in html and "3-D segment FE at the feature" in html
+    assert "<h3>3-D feature</h3>" in html and "Kt bending" in html
 
 
 SEGMENT = """[case]

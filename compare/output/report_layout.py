@@ -14,7 +14,7 @@ from .report import CAUTION, Fmt, num
 from .report_combined import LABELS
 from .report_checklist import checklist_html
 from .report_polymer import layout_lines, polymer_html
-from .results_shaft import station_place_lines
+from .results_shaft import segment_line, station_place_lines
 from .report_html import CAUTION_MORE, CSS, _convergence, _factors, _img, _materials, _num, _table, e, hand_vs_fe
 
 #: the fixed sections of the layout report, in order (id, heading); each station's part follows
@@ -349,6 +349,15 @@ def _station_part(st: dict, sres: dict, sfigs: list, f: Fmt) -> str:
     out = [warn, f'<p class="verdict">{e(sentence)}</p>', "<h3>Loads</h3>",
            _table(("", *L), rows, numeric=(1, 2, 3, 4, 5, 6)),
            f"<p class=\"small\">Loads taken {e(_loads_where(st, f))}.</p>"]
+    seg = st.get("segment")
+    if seg:  # a 3-D feature: its factors with their estimates, before the figures
+        rows3 = [(k, f"{seg[k]:.4g}", "—" if seg[f"{k}_gci"] is None else f"{100 * seg[f'{k}_gci']:.3g} %",
+                  seg[f"{k}_status"]) for k in ("kt_bending_x", "kt_bending_y", "kts", "kt_axial")]
+        out += ["<h3>3-D feature</h3>", f"<p>{e(segment_line(seg))}.</p>",
+                _table(("factor", "3-D FE (finest mesh)", "three-mesh estimate", "study"), rows3, numeric=(1, 2)),
+                f"<p class=\"small\">Hand path: Kt = {e(seg['kt_bending_used']['from'])} ({e(seg['kt_bending_used']['why'])}), "
+                "Kts = kts. FE path: the 3-D unit-load results superposed with the station's loads at every candidate "
+                "point along the feature.</p>"]
     for name in STATION_FIGURES:
         if name in figs:
             out.append(_img(figs[name]))

@@ -170,9 +170,22 @@ def shaft_summary(res: dict, system) -> str:
         lines.append(f"    {f.q(st['at'], 'length', 4)} {st['name'] or ''}: M {f.q(M, 'moment', 4)}, T "
                      f"{f.q(st['T'], 'moment', 4)}, N {f.q(st['N'], 'force', 4)}{side} — {verdict}")
         lines.extend(f"      {x}" for x in station_place_lines(st, f))
+        if st.get("segment"):  # a 3-D feature: its factors, each with its three-mesh estimate
+            lines.append(f"      {segment_line(st['segment'])}")
     g = sh["governing_station"]
     lines.append(f"  the section summary below is the governing station's ({_station_name(res, g, f)})")
     return "\n".join(lines)
+
+
+def segment_line(seg: dict) -> str:
+    """The 3-D factors of a station's feature in one line, each with its estimate."""
+    def one(key, label):
+        g = seg[f"{key}_gci"]
+        return f"{label} {seg[key]:.3g} ({'no estimate' if g is None else f'±{100 * g:.2g} %'})"
+    kb = seg["kt_bending_used"]["from"]
+    return (f"3-D {seg['kind'].replace('_', ' ')} ({seg['dofs'][-1]} unknowns on the finest of three meshes): "
+            f"{one(kb, 'Kt bending')}, {one('kts', 'Kts')}, {one('kt_axial', 'Kt axial')}; "
+            + ("estimates within the target" if seg["met"] else "ACCURACY TARGET NOT SHOWN: no verdict at this station"))
 
 
 def _feature_word(field: str) -> str:
