@@ -94,8 +94,12 @@ def test_rotating_shaft_alternating_and_mean_are_exact():
     s = sup.summary(sp)
     assert s["von_mises_peak"] == pytest.approx(peak, rel=1e-5)
     # Tresca on the surface: σ1 − σ3 = √((σ)² + 4τ²) with σ = σ_N + σ_b cos ψ; its worst found by the pruned scan
+    tresca = math.sqrt((abs(sN) + sb) ** 2 + 4 * tau**2)
     tr, i, _ = sp.worst(lambda p: p[..., 2] - p[..., 0], math.sqrt(2))
-    assert tr == pytest.approx(math.sqrt((abs(sN) + sb) ** 2 + 4 * tau**2), rel=1e-5)
+    assert tr == pytest.approx(tresca, rel=1e-5)
+    tv, _, _ = sp.worst(lambda p: p[..., 2] - p[..., 0], 2 / math.sqrt(3), of="von_mises")
+    assert tv == pytest.approx(tresca, rel=1e-5)
+    assert np.all(sp.vm_bound >= sp.vm_peak * (1 - 1e-12))  # the pruning's bound is a bound
 
 
 def test_alternating_closed_form_matches_a_fine_scan():
@@ -159,7 +163,27 @@ def test_single_load_reproduces_its_factor(keyseat_study, load, key):
         val, _, _ = sp.worst(lambda p: (p[..., 2] - p[..., 0]) / 2, 1.0)
         nominal = 16 * M / (math.pi * D**3)
     else:
-        val, _, _ = sp.worst(lambda p: p[..., 2], 1.0)
+        val, _, _ = sp.worst(lambda p: p[..., 2], 1.0, of="sigma1")
         nominal = 4 * 5e3 / (math.pi * D**2) if load == "tension" else 32 * M / (math.pi * D**3)
     check = {"fem": val / nominal, "exact": st.values[key]}
     assert check["fem"] == pytest.approx(check["exact"], rel=1e-9)
+
+
+@pytest.mark.parametrize("rotating", [True, False])
+def test_pruned_scans_equal_the_full_scan(rotating):
+    """The pruning is rigorous: on random unit fields the pruned scans give the same worst Tresca stress
+    and σ1 as scanning every point at every sampled angle."""
+    res, _ = _exact_results(n=300, seed=7)
+    rng = np.random.default_rng(11)
+    for r in res.values():
+        s = rng.normal(size=(3, 3, 300)) * 1e6
+        r.stress = s + s.transpose(1, 0, 2)
+    f = sup.unit_fields(res, D, LENGTH, turn=40.0)
+    sp = sup.superpose(f, 1.3e3, 20.0, -35.0, 15.0, rotating=rotating)
+    th = sp.angles()
+    full = sup.principal(sp.mean[..., None] + np.cos(th) * sp.A[..., None] + np.sin(th) * sp.B[..., None])
+    for g, c, of in ((lambda p: p[..., 2] - p[..., 0], 2 / math.sqrt(3), "von_mises"),
+                     (lambda p: p[..., 2] - p[..., 0], math.sqrt(2), "norm"), (lambda p: p[..., 2], 1.0, "norm"),
+                     (lambda p: p[..., 2], 1.0, "sigma1")):
+        v, _, _ = sp.worst(g, c, of=of)
+        assert v == pytest.approx(float(np.max(g(full))), rel=1e-12)

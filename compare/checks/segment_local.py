@@ -85,7 +85,7 @@ def segment_fe_path(a, local: dict) -> dict:
     if "von_mises" in crits:
         i = int(np.argmax(sp.vm_peak))
         new_static["von_mises"] = (float(cs.yield_factor_von_mises(m.yield_strength, sp.vm_peak[i])), i)
-        v, k, _ = sp.worst(lambda p: p[..., 2] - p[..., 0], math.sqrt(2.0))
+        v, k, _ = sp.worst(lambda p: p[..., 2] - p[..., 0], 2.0 / math.sqrt(3.0), of="von_mises")
         new_static["tresca"] = (float(m.yield_strength / v) if v > 0 else math.inf, k)
     for name, fn in (("coulomb_mohr", cs.coulomb_mohr_factor), ("modified_mohr", cs.modified_mohr_factor)):
         if name in crits:

@@ -30,9 +30,11 @@ stress is a mean stress, one instant.
 
 Criteria other than von Mises (Tresca, Coulomb–Mohr) need the principal stresses; they are evaluated at
 every sampled angle on the points that can reach the worst value: a criterion g with g(σ) ≤ c·‖σ‖
-(Frobenius norm) cannot exceed c·(‖m‖ + √(‖A‖² + ‖B‖²)) at a point, so only points where that bound
-reaches the value already found at the von Mises-worst instants are scanned (a rigorous pruning, not
-a sample).
+(Frobenius norm) cannot exceed c·(‖m‖ + √(‖A‖² + ‖B‖²)) at a point, and Tresca's σ1 − σ3 ≤ (2/√3)·σ_vM
+(Mohr's circles) cannot exceed (2/√3)·√(Q(m) + 2·√(Q(m, A)² + Q(m, B)²) + σa'²) there (each part of the
+von Mises stress squared at its own largest), so only points where the bound reaches the value already
+found at the von Mises-worst instants are scanned (a rigorous pruning, not a sample). The largest
+principal stress σ1 = tr σ/3 + (the deviator's largest) ≤ tr σ/3 + (2/3)·σ_vM is pruned the same way.
 """
 from __future__ import annotations
 
@@ -138,6 +140,7 @@ class Superposed:
     psi_peak: np.ndarray
     sa: np.ndarray
     sm: np.ndarray
+    vm_bound: np.ndarray  # (n,) an upper bound of the von Mises stress over the turn (module docstring)
 
     @property
     def points(self) -> np.ndarray:
@@ -150,14 +153,22 @@ class Superposed:
     def angles(self) -> np.ndarray:
         return np.arange(N_ANGLES) * (2 * math.pi / N_ANGLES) if self.rotating else np.zeros(1)
 
-    def worst(self, g, c: float) -> tuple[float, int, float]:
+    def worst(self, g, c: float, of: str = "norm") -> tuple[float, int, float]:
         """Largest of the criterion ``g`` (principal stresses (..., 3) -> value) over the points and the
-        turn, with g(σ) ≤ c·‖σ‖: (value, point index, angle [rad]); the pruning is in the module docstring."""
+        turn, with g(σ) ≤ c·‖σ‖ (``of="norm"``, Frobenius), g(σ) ≤ c·σ_vM (``of="von_mises"``) or
+        g(σ) ≤ c·σ1 (``of="sigma1"``):
+        (value, point index, angle [rad]); the pruning is in the module docstring."""
         i0 = np.arange(len(self.idx))
         first = g(principal(self.at(i0, self.psi_peak)))
         best = float(np.max(first))
-        fro = lambda t: np.sqrt(np.einsum("ij...,ij...->...", t, t))  # noqa: E731
-        bound = c * (fro(self.mean) + np.sqrt(fro(self.A) ** 2 + fro(self.B) ** 2))
+        if of == "von_mises":
+            bound = c * self.vm_bound
+        elif of == "sigma1":  # σ1 = tr σ/3 + (deviator's largest) ≤ tr σ/3 + (2/3)·σ_vM, each part at its largest
+            tr = lambda t: np.einsum("ii...->...", t)  # noqa: E731
+            bound = c * ((tr(self.mean) + np.hypot(tr(self.A), tr(self.B))) / 3 + 2 * self.vm_bound / 3)
+        else:
+            fro = lambda t: np.sqrt(np.einsum("ij...,ij...->...", t, t))  # noqa: E731
+            bound = c * (fro(self.mean) + np.sqrt(fro(self.A) ** 2 + fro(self.B) ** 2))
         cand = np.nonzero(bound >= best * (1 - 1e-12))[0]
         th = self.angles()
         val, ib, pb = best, int(np.argmax(first)), float(self.psi_peak[int(np.argmax(first))])
@@ -191,6 +202,9 @@ def superpose(f: UnitFields, N: float, Mx: float, My: float, T: float, rotating:
         q0, q1, q2 = _dev_form(mean, mean), _dev_form(mean, A), _dev_form(mean, B)
         th = np.arange(N_ANGLES) * (2 * math.pi / N_ANGLES)
         c, s = np.cos(th), np.sin(th)
+        # von Mises squared over the turn: q0 + 2(q1 cos ψ + q2 sin ψ) + (the alternating part's form), each
+        # part at most its own largest value: a rigorous bound for the pruning
+        vm_bound = np.sqrt(np.maximum(q0 + 2 * np.hypot(q1, q2) + sa**2, 0.0))
         vm_peak, psi_peak = np.empty(n), np.empty(n)
         for lo in range(0, n, BLOCK):
             sl = slice(lo, lo + BLOCK)
@@ -203,8 +217,9 @@ def superpose(f: UnitFields, N: float, Mx: float, My: float, T: float, rotating:
         vm_peak = von_mises(mean)
         psi_peak = np.zeros(n)
         sa, sm = np.zeros(n), vm_peak
+        vm_bound = vm_peak
     return Superposed(f, idx, {"N": N, "Mx": Mx, "My": My, "T": T}, bool(rotating), mean, A, B, vm_peak, psi_peak,
-                      sa, sm)
+                      sa, sm, vm_bound)
 
 
 def summary(sp: Superposed) -> dict:
@@ -213,7 +228,7 @@ def summary(sp: Superposed) -> dict:
     stress, the largest principal stress over the turn and where."""
     i = int(np.argmax(sp.vm_peak))
     j = int(np.argmax(sp.sa)) if sp.rotating else i
-    s1, k1, p1 = sp.worst(lambda p: p[..., 2], 1.0)
+    s1, k1, p1 = sp.worst(lambda p: p[..., 2], 1.0, of="sigma1")
     pts = sp.points
 
     def place(k):
