@@ -50,9 +50,13 @@ def headline(res: dict, system) -> list[str]:
     else:
         out.append("VERDICT: no factor of safety (no strengths given)")
     acc = res.get("accuracy")
+    seg = ((res.get("static") or {}).get("fe_local") or (res.get("fatigue") or {}).get("fe_local") or {})
+    three_d = "accuracy_met" in seg  # a station with a 3-D feature (compare/checks/segment_local.py)
     if acc:
         if acc.get("met"):
-            out.append(f"  accuracy: within {100 * acc['achieved']:.2g} % (target {100 * acc['target']:.3g} %, three-mesh study)")
+            out.append(f"  accuracy: within {100 * acc['achieved']:.2g} % (target {100 * acc['target']:.3g} %, three-mesh study"
+                       + (" of the 2-D section; the 3-D feature's study: "
+                          + ("within the target" if seg["accuracy_met"] else "NOT SHOWN") if three_d else "") + ")")
         else:
             out.append(f"  accuracy: NOT SHOWN within the target {100 * acc['target']:.3g} % — see --verbose")
     return out
