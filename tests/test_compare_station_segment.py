@@ -195,3 +195,22 @@ def test_segment_case_report_has_the_surface_figure(tmp_path, capsys):
         assert "ACCURACY TARGET NOT SHOWN" in html
     csv = (tmp_path / "out" / "results.csv").read_text().splitlines()
     assert csv[0].startswith("factor,") and len(csv) == 5
+
+
+@pytest.mark.slow
+def test_on_a_shoulder_too_each_factor_is_the_larger(tmp_path):
+    """A station whose 3-D feature also sits on a shoulder (the feature step ran first): each hand-path
+    factor is the larger of the two models' (neither holds both raisers), with its own source."""
+    from compare.pairs.station_segment import station_segments_step
+
+    case_path = tmp_path / "case.toml"
+    case_path.write_text(LAYOUT)
+    case = load_case(case_path)
+    st = case.shaft.stations[0]
+    st.kt.update(kt_bending=(9.0, "shoulder (test stand-in)"), kts_torsion=(1.01, "shoulder (test stand-in)"),
+                 notch_radius=(0.001, "shaft.segments[1].fillet"))
+    (rec,) = station_segments_step(case)
+    assert st.kt["kt_bending"] == (9.0, "shoulder (test stand-in)")
+    assert st.kt["notch_radius"] == (0.001, "shaft.segments[1].fillet")
+    assert st.kt["kts_torsion"][0] == rec["kts"] > 1.01 and "3-D FE, this run" in st.kt["kts_torsion"][1]
+    assert "kt_bending" in rec["also_on_a_shoulder_or_groove"]

@@ -202,7 +202,11 @@ def layout_step(case: Case, analyse):
         if solid3d:  # a 3-D feature (keyseat end, cross hole): its local stresses at every candidate point
             rec["fe_path"] = "segment"
             rec["segment"] = st.kt["segment_stresses"][0]["record"]
-            hook = lambda b, st=st: segment_fe_path(b, st.kt["segment_stresses"][0])  # noqa: E731
+            if fillet:  # also on a shoulder or groove: each criterion the smaller of the 3-D and the fillet's
+                hook = lambda b, st=st: (segment_fe_path(b, st.kt["segment_stresses"][0]),  # noqa: E731
+                                         fillet_fe_path(b, st.kt["fillet_stresses"][0], keep_section_min=True))
+            else:
+                hook = lambda b, st=st: segment_fe_path(b, st.kt["segment_stresses"][0])  # noqa: E731
         if st.extent is not None:  # the worst loads anywhere along the station's feature
             a, used, rec["extent"] = check_over_extent(a, st, layout, shaft.rotating, at_station=hook,
                                                        everywhere=solid3d)

@@ -6,6 +6,8 @@ the station check takes from it (numbers and records only):
   shaft the moment turns round the section, and on a standing one the larger is the safe side), Kts in
   torsion, each with the source "3-D FE, this run" and its three-mesh estimate, and the notch radius
   (the keyseat's bottom fillet, the hole's radius) for the notch sensitivity;
+* a station also on a shoulder or groove keeps, factor by factor, the larger of the two (neither model
+  holds both raisers), and its FE path takes the smaller factor of the 3-D and the fillet's local stresses;
 * the FE path's unit fields (``Station.kt['segment_stresses']``): the finest mesh's stress per unit
   N, Mx, My, T at the surface points, turned into the station's frame (compare/solve/segment_superpose.py),
   superposed with the station's loads by compare/checks/segment_local.py.
@@ -82,12 +84,20 @@ def station_segments_step(case) -> list[dict] | None:
                               nu=m.poisson, max_dofs=an.max_dofs, max_seconds=an.max_seconds)
         rec = station_segment_record(i, st, ss, study, an.accuracy)
         kb = rec["kt_bending_used"]["from"]
-        st.kt["kt_bending"] = (rec["kt_bending_used"]["value"], _source(ss, kb, rec))
-        st.kt["kts_torsion"] = (rec["kts_used"]["value"], _source(ss, "kts", rec))
-        if ss.notch is not None:
-            st.kt["notch_radius"] = ss.notch
-        else:  # a cross hole: the notch sensitivity at the hole's radius
-            st.kt["notch_radius"] = (ss.sizes["hole_diameter"] / 2, f"{ss.field}.hole_diameter")
+        notch = ss.notch if ss.notch is not None else (ss.sizes["hole_diameter"] / 2, f"{ss.field}.hole_diameter")
+        # a station also on a shoulder or groove (the feature step ran first): each factor the larger of the
+        # two, with the notch radius of the one that gave the bending factor (neither model holds both raisers)
+        shoulder = {k: st.kt[k] for k in ("kt_bending", "kts_torsion", "notch_radius") if k in st.kt}
+        for key, value, src in (("kt_bending", rec["kt_bending_used"]["value"], _source(ss, kb, rec)),
+                                ("kts_torsion", rec["kts_used"]["value"], _source(ss, "kts", rec))):
+            if key in shoulder and shoulder[key][0] > value:
+                rec.setdefault("also_on_a_shoulder_or_groove", {})[key] = "the shoulder or groove's factor is larger: used"
+                continue
+            st.kt[key] = (value, src)
+            if key == "kt_bending":
+                st.kt["notch_radius"] = notch
+        if "notch_radius" not in st.kt:
+            st.kt["notch_radius"] = notch
         turn = ss.angle - MODEL_ANGLE[ss.kind]
         fields = unit_fields(study.finest, ss.d, ss.model.length, turn=turn)
         local = {"fields": fields, "record": rec, "kind": ss.kind, "field": ss.field, "centre": ss.centre,
