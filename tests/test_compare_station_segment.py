@@ -81,6 +81,10 @@ def test_results_keys_and_exit_code(layout_run):
     for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
         assert seg[k] > 1.0, k  # a hole raises the stress under every load (Peterson's charts: Kt > 1)
         assert f"{k}_gci" in seg and len(seg["peak_location"][k]["at"]) == 3
+        x, y, z = seg["peak_location"][k]["at"]
+        xs, ys, zs = seg["peak_location"][k]["at_on_shaft"]
+        assert math.hypot(xs, ys) == pytest.approx(math.hypot(x, y), rel=1e-12)  # turned about the axis only
+        assert zs - seg["centre"] == pytest.approx(z - seg["length"] / 2, abs=1e-12)
     assert len(seg["dofs"]) == 3 and seg["dofs"][0] < seg["dofs"][1] < seg["dofs"][2]
     gcis = [seg[f"{k}_gci"] for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts")]
     met = all(g is not None for g in gcis) and max(gcis) <= 0.25 and seg["limited_by"] is None

@@ -17,6 +17,7 @@ station's own 3-D feature overrides a shoulder's factors there).
 """
 from __future__ import annotations
 
+import math
 import time
 
 from ..solve.segment_superpose import MODEL_ANGLE, unit_fields
@@ -42,16 +43,20 @@ def station_segment_record(i: int, st, ss, study, target: float) -> dict:
            "diameter": ss.d, "length": L, "sizes": dict(ss.sizes), "dofs": study.dofs, "seconds": study.seconds,
            "limited_by": study.limited, "target": target, "achieved": achieved, "met": bool(met)}
     peaks = {}
+    turn = math.radians(ss.angle - MODEL_ANGLE[ss.kind])
+    c, s = math.cos(turn), math.sin(turn)
     for key in KEYS.values():
         est = study.estimates[key]
         rec[key] = study.values[key]
         rec[f"{key}_gci"] = est["gci"]
         rec[f"{key}_status"] = est["status"]
-        at = list(study.peaks[key]["at"])
-        peaks[key] = {"at": at, "on_feature": study.peaks[key]["on_feature"]}
+        x, y, z = (float(v) for v in study.peaks[key]["at"])
+        peaks[key] = {"at": [x, y, z], "on_feature": study.peaks[key]["on_feature"],
+                      "at_on_shaft": [c * x - s * y, s * x + c * y, ss.centre + z - L / 2]}
     rec["peak_location"] = peaks
-    rec["peak_location_frame"] = ("the 3-D model's: z from its left end face, the feature centred at length/2, a keyseat "
-                                  "on +y, a hole's axis along x")
+    rec["peak_location_frame"] = ("at: the 3-D model's (z from its left end face, the feature centred at length/2, a "
+                                  "keyseat on +y, a hole's axis along x); at_on_shaft: the station's x, y and z along "
+                                  "the shaft")
     kb = max(("kt_bending_x", "kt_bending_y"), key=lambda k: study.values[k])
     rec["kt_bending_used"] = {"value": study.values[kb], "from": kb, "gci": rec[f"{kb}_gci"],
                               "why": "the larger of the two bending planes (the moment's direction relative to the "
