@@ -67,7 +67,7 @@ def layout_run(tmp_path_factory):
     d = tmp_path_factory.mktemp("station_segment")
     case = d / "case.toml"
     case.write_text(LAYOUT)
-    code = main(["run", str(case), "--out", str(d / "out"), "--no-vtu"])
+    code = main(["run", str(case), "--out", str(d / "out")])
     res = json.loads((d / "out" / "results.json").read_text())
     return code, res, d / "out", case
 
@@ -218,3 +218,22 @@ def test_on_a_shoulder_too_each_factor_is_the_larger(tmp_path):
     assert st.kt["notch_radius"] == (0.001, "shaft.segments[1].fillet")
     assert st.kt["kts_torsion"][0] == rec["kts"] > 1.01 and "3-D FE, this run" in st.kt["kts_torsion"][1]
     assert "kt_bending" in rec["also_on_a_shoulder_or_groove"]
+
+
+@pytest.mark.slow
+def test_layout_segment_vtu(layout_run):
+    """segment.vtu of a layout: the station's 3-D surface points along the shaft, its largest von Mises
+    stress over the turn equal to the FE path's recorded peak (the same superposition)."""
+    import meshio
+
+    _, res, out, _ = layout_run
+    m = meshio.read(out / "segment.vtu")
+    seg = res["segments"][0]
+    z = m.points[:, 2]
+    assert seg["centre"] - seg["length"] / 2 < z.min() and z.max() < seg["centre"] + seg["length"] / 2
+    assert set(m.point_data["station"].tolist()) == {0.0}
+    peak = res["section_loads"][0]["results"]["static"]["fe_local"]["summary"]["von_mises_peak"]
+    assert float(m.point_data["von_mises"].max()) == pytest.approx(peak, rel=1e-12)
+    for k in ("tension", "bending_x", "bending_y"):
+        assert m.point_data[f"von_mises_over_nominal_{k}"].max() > 1.0  # a hole raises every load's stress
+    assert m.point_data["von_mises_over_nominal_torsion"].max() > math.sqrt(3)  # √3 on the plain surface

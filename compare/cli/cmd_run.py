@@ -28,7 +28,7 @@ from ..output.report_composite import composite_report_files
 from ..output.results_composite import composite_summary
 from ..output.results_segment import segment_summary
 from ..output.report_segment import segment_report_files
-from ..output.vtu import segment_vtu_bytes
+from ..output.vtu import layout_segment_vtu_bytes, segment_vtu_bytes
 from ..output.report_checklist import checklist_summary
 from ..output.results_shaft import shaft_summary
 from ..output.vtu import write_fields_vtu
@@ -67,6 +67,8 @@ def run(args) -> int:
     composite = "composite" in a.extra  # bonded regions of several materials: their own report
     if "segment" in a.extra and not args.no_vtu:  # the 3-D segment's surface stresses
         files["segment.vtu"] = segment_vtu_bytes(a)
+    elif (a.extra.get("shaft") or {}).get("segments") and not args.no_vtu:  # a layout's 3-D station features
+        files["segment.vtu"] = layout_segment_vtu_bytes(a)
     segment = "segment" in a.extra  # a 3-D segment study: its own report
     report = not args.no_report and (a.mesh is not None or composite or segment)
     if report:
