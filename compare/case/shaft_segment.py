@@ -162,7 +162,7 @@ def build_station_segments(shaft, section, material) -> None:
         if material.poisson is None:
             raise InputError("material.poisson", None, "is needed: a station's 3-D segment study depends on "
                              "Poisson's ratio")
-        z = sz = ss.sizes  # noqa: F841
+        sz = ss.sizes
         if ss.kind == "cross_hole":
             span = sz["hole_diameter"] + 2 * sz["chamfer"]
         else:
@@ -170,12 +170,12 @@ def build_station_segments(shaft, section, material) -> None:
         L = ss.length if ss.length is not None else max(MIN_LENGTH * d, span + MARGIN * d)
         mid = L / 2
         if ss.kind == "cross_hole":
-            feat = solid.CrossHole(z["hole_diameter"], mid, z["chamfer"], z["hole_depth"])
+            feat = solid.CrossHole(sz["hole_diameter"], mid, sz["chamfer"], sz["hole_depth"])
         elif ss.kind == "keyseat_end":
-            feat = solid.ProfileKeyseat(z["width"], z["depth"], mid - span / 2, mid + span / 2, z["fillet"])
+            feat = solid.ProfileKeyseat(sz["width"], sz["depth"], mid - span / 2, mid + span / 2, sz["fillet"])
         else:
-            feat = solid.SledKeyseat(z["width"], z["depth"], mid - span / 2, mid + span / 2, z["cutter_diameter"],
-                                     z["fillet"])
+            feat = solid.SledKeyseat(sz["width"], sz["depth"], mid - span / 2, mid + span / 2, sz["cutter_diameter"],
+                                     sz["fillet"])
         model = solid.Segment(d, L, (feat,))
         try:
             model.check(ss.field)
