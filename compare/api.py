@@ -306,6 +306,11 @@ UNITS = {
                      "shear_factor", "exponent", "X", "Y", "L10_revolutions", "ratios"], ""),
     **dict.fromkeys(["L10_hours", "required_life_hours"], "hour"),
     "speed": "rad/s", "rotation": "rad",
+    # a 3-D segment's study ('segments') and a station's superposed 3-D local stresses (fe_local.summary)
+    **dict.fromkeys(["von_mises_peak", "alternating_peak", "alternating_peak_mean", "sigma1_peak"], "Pa"),
+    **dict.fromkeys(["von_mises_peak_at", "alternating_peak_at", "sigma1_peak_at", "span"], "m"),
+    **dict.fromkeys(["kt_axial", "kt_bending_x", "kt_bending_y", "kt_axial_gci", "kt_bending_x_gci",
+                     "kt_bending_y_gci", "kts_gci"], ""),
 }
 #: Units of keys whose name alone is ambiguous, by their path in the results (the shaft layout's).
 PATH_UNITS = {".shaft.max_deflection.value": "m", ".shaft.max_moment.value": "N*m",

@@ -20,6 +20,7 @@ from .pairs.composite_step import composite_step
 from .pairs.segment_step import segment_step
 from .pairs.feature_step import attach_features, shaft_features_step
 from .pairs.shear_step import shear_step
+from .pairs.station_segment import station_segments_step
 from .pairs.spline_step import spline_step
 from .solve.accuracy_step import accuracy_step
 from .solve.selfchecks import self_checks
@@ -31,11 +32,14 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     from the finest mesh."""
     if case.shaft is not None:  # the whole shaft, then each station through this same function
         feats = shaft_features_step(case)  # shoulders and grooves first: their FE Kt go to the stations
+        segs = station_segments_step(case)  # a station's 3-D feature: its Kt, Kts and unit stresses
         if case.shaft.factors_only:  # no loads, no stations: the features' factors are the whole result
             return factors_only(case, feats)
         a = layout_step(case, lambda c: analyse(c, fineness, study), fineness)
         checklist_step(a, case)  # keys, splines, press fits, bearing life, torsion along the shaft
         attach_features(a, feats)
+        if segs is not None:  # results 'segments': each station's 3-D study
+            a.extra["shaft"]["segments"] = segs
         # the layout itself and its title (the report's drawing and mode shapes; the stations' titles add their place)
         a.extra["shaft"].update(shaft=case.shaft, title=case.title)
         lt = long_term_layout(a)  # a polymer shaft: deflections and slopes after the service life

@@ -37,6 +37,7 @@ from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
 from .units import UnitSystem, from_si, to_si, unit_system
 from .composite import apply_region_polymers, parse_composite
 from .segment import parse_segment
+from .shaft_segment import build_station_segments
 from .fields import angle as _angle, chart_factor, known as _known
 
 if sys.version_info >= (3, 11):
@@ -240,6 +241,7 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
     if shaft is not None:
         check_with_case(shaft, data.get("loads", {}), material)
         check_fits_with_section(shaft, section, units)  # a press fit's hub on a shaft without segments
+        build_station_segments(shaft, section, material)  # a station's 3-D feature, now that its diameter is known
     if section.kind == "composite":
         _composite_limits(data, loads, shaft)
     if segment is not None:

@@ -50,6 +50,9 @@ Case-file schema (docs/layout.md is the reference)::
     fatigue = { kt_bending = 2.1, kt_bending_source = "..." }   # optional, same keys as [fatigue]
     feature_from = 130                   # optional: where the section's feature (keyway, flat, spline,
                                          # cut with a length) begins; without it the feature is centred on at
+    segment = { kind = "keyseat_end" }   # optional: the keyway's end (or "sled_runner", "cross_hole") studied
+                                         # in 3-D; its Kt, Kts and local stresses are the station's
+                                         # (shaft_segment.py: keys, defaults, refusals)
 
 Dataclasses (stable: later steps build on them; fields are added, never renamed):
 
@@ -69,7 +72,8 @@ Dataclasses (stable: later steps build on them; fields are added, never renamed)
   ((z0, z1) [m] of the section's longest feature with a length: centred on ``at``, or from
   ``feature_from``; None without one), extent_field (the case-file field of that length), geometry
   (the section's resolved dimensions, as Case.geometry), checklist
-  (shaft_checklist.StationChecklist: key, fit, spline; or None))
+  (shaft_checklist.StationChecklist: key, fit, spline; or None), segment (shaft_segment.StationSegment:
+  the station's 3-D feature and, once built, its fem.solid.Segment model; or None))
 - :class:`Shaft` (length, segments, grooves, supports, loads, stations, density, speed [rad/s],
   rotating, self_weight)
 
@@ -88,6 +92,7 @@ from .units import from_si, to_si
 from .fields import angle as _angle, chart_factor, known as _known
 from .shaft_checklist import STATION_KEYS, SUPPORT_KEYS, parse_rating, parse_station_checklist
 from .shaft_composite import check_composite_segments, check_composite_station, check_round, outer_diameter, segment_section
+from .shaft_segment import parse_station_segment
 
 #: Relative tolerance of the torque balance: the torques of the loads must sum to zero within this
 #: share of the largest one. Values typed with 4-6 figures balance far better than this; a torque
@@ -110,7 +115,8 @@ _LOAD_KEYS = {
     "pulley": _COMMON | {"diameter", "tension_ratio", "pull_angle"},
     "sprocket": _COMMON | {"diameter", "pull_angle"},
 }
-_STATION = {"at", "name", "section", "fatigue", "feature_from"} | STATION_KEYS  # key, fit, spline: shaft_checklist.py
+_STATION = {"at", "name", "section", "fatigue", "feature_from", "segment"} | STATION_KEYS  # key, fit, spline: shaft_checklist.py;
+# segment: a 3-D feature (keyseat end, cross hole) studied in 3-D (shaft_segment.py)
 _STATION_FATIGUE = {"kt_bending", "kt_bending_source", "kts_torsion", "kts_torsion_source", "notch_radius"}
 
 
@@ -185,6 +191,7 @@ class Station:
     extent_field: str = ""  # the case-file field of that feature's length
     geometry: dict = field(default_factory=dict)  # the section's resolved dimensions (Case.geometry of its run)
     checklist: object | None = None  # shaft_checklist.StationChecklist: key, press fit, spline
+    segment: object | None = None  # shaft_segment.StationSegment: the station's 3-D feature, or None
 
 
 @dataclass
@@ -441,6 +448,8 @@ def _station(s, i, sh: Shaft, units, parse_section, feature_lengths=None) -> Sta
         if "notch_radius" in f:
             st.fatigue["notch_radius"] = _pos(f, "notch_radius", "length", f"{w}.fatigue", units)
     _place_feature(s, w, st, sh, units, feature_lengths)
+    if "segment" in s:  # a keyseat end or a cross hole, studied in 3-D (shaft_segment.py)
+        st.segment = parse_station_segment(s, w, st, units, feature_lengths)
     if STATION_KEYS & set(s):
         seg = sh.segment_at(at)
         st.checklist = parse_station_checklist(s, w, units, st.section, seg.diameter if seg else None, None)

@@ -52,7 +52,7 @@ def feature_findings(a) -> list[dict]:
                 out.append({"code": "feature_neighbours", "field": rec["field"], "neighbours": note["neighbours"],
                             "length": note["modelled_alone_over"]})
     for st in (a.extra.get("shaft") or {}).get("stations") or []:
-        if "feature" in (st.get("kt_from") or {}).values() and st.get("fe_path") != "feature":
+        if "feature" in (st.get("kt_from") or {}).values() and st.get("fe_path") not in ("feature", "segment"):
             out.append({"code": "feature_station_fe_path", "at": st["at"], "name": st.get("name", "")})
     return out
 

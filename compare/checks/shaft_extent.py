@@ -151,9 +151,10 @@ def _key(value) -> float:
     return value if value is not None and math.isfinite(value) else math.inf
 
 
-def check_over_extent(base, st, layout: dict, rotating: bool, at_station=None):
+def check_over_extent(base, st, layout: dict, rotating: bool, at_station=None, everywhere: bool = False):
     """Check the station's solved section at every candidate along its feature. ``at_station(b)`` is
-    applied to the candidates at the station's own ``at`` (a shoulder's fillet path there). Returns
+    applied to the candidates at the station's own ``at`` (a shoulder's fillet path there), or with
+    ``everywhere`` to every candidate (a 3-D feature model that spans the whole feature). Returns
     (the governing candidate's analysis, its loads, the record ``extent``)."""
     cands = candidates(layout, st)
     checked, seen = [], {}
@@ -161,7 +162,7 @@ def check_over_extent(base, st, layout: dict, rotating: bool, at_station=None):
         key = (tuple(c["loads"][k] for k in LOAD_KEYS), c["station"])
         if key not in seen:
             b = with_loads(base, c["loads"], rotating)
-            if c["station"] and at_station is not None:
+            if (c["station"] or everywhere) and at_station is not None:
                 if b is base:  # the hook changes the analysis it is given: keep the base clean for the rest
                     b = replace(base, extra=dict(base.extra))
                 at_station(b)

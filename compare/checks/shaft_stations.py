@@ -13,6 +13,9 @@ warning: a 2-D section cannot see a shoulder or a groove, so its fatigue check l
 A station on a solved feature takes its FE path (static and fatigue) from the feature's local stresses
 at the fillet (:mod:`.feature_local`), not from the plain round section. A station at a sharp shoulder
 or groove bottom (no radius) has no verdict (:func:`no_verdict_at_sharp`), and then neither has the shaft.
+A station with a 3-D feature (``Station.segment``: a keyseat's end, a cross hole) takes its hand-path
+factors from its 3-D study (``Station.kt``, compare/pairs/station_segment.py) and its FE path from the
+study's superposed local stresses at every candidate point along its feature (:mod:`.segment_local`).
 """
 from __future__ import annotations
 
@@ -25,6 +28,7 @@ from ..case.case import Case, Fatigue, parse_feature_lengths
 from ..case.shaft import Segment, Shaft, Station
 from ..case.units import from_si
 from .feature_local import fillet_fe_path
+from .segment_local import segment_fe_path
 from .findings import EXIT_NO_VERDICT, withdraw_verdicts
 from .shaft_beam import SIDE, loads_at, solve_layout
 from .shaft_composite import composite_segments
@@ -231,8 +235,18 @@ def layout_step(case: Case, analyse, fineness: float | None = None):
             rec["fe_path"] = "feature"
         hook = (lambda b, st=st: fillet_fe_path(b, st.kt["fillet_stresses"][0], keep_section_min=st.section is not None)
                 ) if fillet else None
+        solid3d = "segment_stresses" in st.kt and not rec.get("sharp")
+        if solid3d:  # a 3-D feature (keyseat end, cross hole): its local stresses at every candidate point
+            rec["fe_path"] = "segment"
+            rec["segment"] = st.kt["segment_stresses"][0]["record"]
+            if fillet:  # also on a shoulder or groove: each criterion the smaller of the 3-D and the fillet's
+                hook = lambda b, st=st: (segment_fe_path(b, st.kt["segment_stresses"][0]),  # noqa: E731
+                                         fillet_fe_path(b, st.kt["fillet_stresses"][0], keep_section_min=True))
+            else:
+                hook = lambda b, st=st: segment_fe_path(b, st.kt["segment_stresses"][0])  # noqa: E731
         if st.extent is not None:  # the worst loads anywhere along the station's feature
-            a, used, rec["extent"] = check_over_extent(a, st, layout, shaft.rotating, at_station=hook)
+            a, used, rec["extent"] = check_over_extent(a, st, layout, shaft.rotating, at_station=hook,
+                                                       everywhere=solid3d)
             g = rec["extent"]["governing"]
             rec["loads"] = dict(rec["loads"], used=used, used_at=g["z"], used_side=g["side"])
             if not g["station"]:  # the section results that follow say where their loads were taken

@@ -27,7 +27,8 @@ from ..output.figure_shaft import shaft_figure_svg
 from ..output.report_composite import composite_report_files
 from ..output.results_composite import composite_summary
 from ..output.results_segment import segment_summary
-from ..output.vtu import composite_vtu_bytes, segment_vtu_bytes
+from ..output.report_segment import segment_report_files
+from ..output.vtu import composite_vtu_bytes, layout_segment_vtu_bytes, segment_vtu_bytes
 from ..output.report_checklist import checklist_summary
 from ..output.results_shaft import shaft_summary
 from ..output.vtu import write_fields_vtu
@@ -67,11 +68,15 @@ def run(args) -> int:
     composite = "composite" in a.extra  # bonded regions of several materials: their own report
     if "segment" in a.extra and not args.no_vtu:  # the 3-D segment's surface stresses
         files["segment.vtu"] = segment_vtu_bytes(a)
+    elif (a.extra.get("shaft") or {}).get("segments") and not args.no_vtu:  # a layout's 3-D station features
+        files["segment.vtu"] = layout_segment_vtu_bytes(a)
     if composite and not args.no_vtu:  # the composite section's regions and stresses (cell data)
         files["section.vtu"] = composite_vtu_bytes(a)
-    report = not args.no_report and (a.mesh is not None or composite)
+    segment = "segment" in a.extra  # a 3-D segment study: its own report
+    report = not args.no_report and (a.mesh is not None or composite or segment)
     if report:  # a layout whose governing station is composite gets the layout report
-        files.update(composite_report_files(a, res) if composite and not layout else report_files(a, res))
+        files.update(composite_report_files(a, res) if composite and not layout else
+                     segment_report_files(a, res) if segment else report_files(a, res))
     if (res.get("shaft") or {}).get("diagrams"):  # the layout's diagrams (the report's, when it drew them)
         files["shaft.svg"] = files.get("figures/shaft_diagrams.svg") or shaft_figure_svg(res, case.units)
     write_outputs(out, files, a if vtu else None)

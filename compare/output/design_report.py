@@ -10,6 +10,7 @@ from ..case.case import read_input_file
 from .headline import csv_text, headline_rows, layout_rows
 from .report_composite_layout import (composite_headline_rows, composite_segment_rows, composite_station_figures,
                                       is_composite)
+from .report import Fmt
 from .results import build_results
 from .vtu import fields_of
 
@@ -37,13 +38,18 @@ def report_files(a, res: dict, date: str | None = None) -> dict[str, str | bytes
     if is_layout(res):
         from .figures_layout import layout_figures  # noqa: PLC0415  lazy import of a slow dependency (matplotlib)
         from .report_layout import STATION_FIGURES, render_layout  # noqa: PLC0415  lazy import of a slow dependency (matplotlib through .figures)
+        from .figures_segment import station_segment_figure  # noqa: PLC0415  lazy import of a slow dependency (matplotlib)
         figs = layout_figures(a, res, a.case.units)
         stations = []
+        shaft_stations = getattr(a.extra["shaft"].get("shaft"), "stations", None) or []
         for i, (sa, sres) in enumerate(station_results(a), 1):
             if is_composite(sres):  # a station on a composite segment: its regions and torsional stress
                 stations.append((sres, composite_station_figures(sa, sres, i)))
                 continue
             sfigs = all_figures(sa, sres, fields_of(sa) if sa.extra.get("combined") else {}, only=set(STATION_FIGURES))
+            kt = shaft_stations[i - 1].kt if i - 1 < len(shaft_stations) else {}
+            if "segment_stresses" in kt:  # a 3-D feature: the surface stress near it under the station's loads
+                sfigs.append(station_segment_figure(kt["segment_stresses"][0], sa.case.loads, Fmt(a.case.units)))
             for fg in sfigs:
                 fg.name = f"station{i}_{fg.name}"
             stations.append((sres, sfigs))

@@ -47,7 +47,8 @@ def headline_rows(res: dict, system) -> list[dict]:
         ck = _ERROR_OF.get(key)
         err = (conv.get(ck) or {}).get("gci") if ck else None
         if nv and group in ("combined", "static", "fatigue", "polymer") or nv and key.endswith("tau_max"):
-            quantity += " [not at the sharp corners: NO VERDICT]"
+            quantity += (" [NO VERDICT: 3-D accuracy not shown]" if (res.get("governing") or {}).get("reason_text")
+                         else " [not at the sharp corners: NO VERDICT]")
         unit = "" if dim == "dimensionless" else f.s.label(dim)
         hv = None if hand is None else from_si(hand, dim, f.s)
         ratio = None if hand in (None, 0) else v / hand

@@ -91,6 +91,12 @@ def warning_text(w: dict, f: Fmt) -> str:
         return feature_warning_text(w, f) or code
     if code in SECTION_WARNINGS:
         return section_warning_text(w, f)
+    if code == "segment_station_accuracy_not_met":  # a station's 3-D feature (compare/checks/segment_local.py)
+        ach = "unknown" if w.get("achieved") is None else f"{100 * w['achieved']:.3g} %"
+        why = f" ({w['limited_by']})" if w.get("limited_by") else ""
+        return (f"NO VERDICT: ACCURACY TARGET NOT SHOWN by the 3-D study of the station's {w['kind'].replace('_', ' ')} "
+                f"({w['field']}): target {100 * w['target']:.3g} %, estimated error {ach}{why}. Its Kt, Kts and local "
+                "stresses are estimates with that uncertainty, not a verdict; the factors shown are kept beside, marked.")
     if code == "sharp_corner_no_verdict":
         where = []
         for c in w["corners"]:

@@ -14,7 +14,7 @@ from .report import CAUTION, Fmt, num
 from .report_combined import LABELS
 from .report_checklist import checklist_html
 from .report_polymer import layout_lines, polymer_html
-from .results_shaft import station_place_lines
+from .results_shaft import segment_line, station_place_lines
 from .report_composite_layout import composite_segments_html, composite_station_html, is_composite
 from .report_html import CAUTION_MORE, CSS, _convergence, _factors, _img, _materials, _num, _table, e, hand_vs_fe
 
@@ -30,7 +30,7 @@ SECTIONS = (
     ("assumptions", "Assumptions and limits of validity"), ("cautions", "Cautions"),
 )
 #: the figures each station's part draws (names of compare/output/figures.py); its factors are tables
-STATION_FIGURES = ("section", "torsion_stress", "von_mises", "mohr")
+STATION_FIGURES = ("section", "torsion_stress", "von_mises", "segment_surface", "mohr")
 
 CSS_LAYOUT = CSS + """
 .ok { } .bad { font-weight: bold; }
@@ -76,7 +76,11 @@ def whole_shaft_verdict(res: dict, f: Fmt) -> tuple[str, list[str]]:
     g = sh["governing_station"]
     st = loads[g] if loads else None
     gov = (st or {}).get("results", {}).get("governing") or res.get("governing") or {}
-    if gov.get("no_verdict"):
+    if gov.get("no_verdict") and gov.get("reason_text"):  # a station's 3-D study short of its target
+        sentence = (f"NO VERDICT for the shaft: at {station_label(st, g, f)} "
+                    f"{gov['reason_text'].removeprefix('no verdict: ')}, so no factor of safety can be given there, and "
+                    "none for the whole shaft. The factors of the other stations below are theirs only.")
+    elif gov.get("no_verdict"):
         sentence = (f"NO VERDICT for the shaft: at {station_label(st, g, f)} the stress is unbounded (a sharp corner), so no "
                     "factor of safety can be given there, and none for the whole shaft. The factors of the other "
                     "stations below are theirs only.")
@@ -312,7 +316,11 @@ def _station_table(res: dict, f: Fmt, short: bool = False) -> str:
         hn, hc = lowest(hand, ft.get("criteria", [])) if "skipped" not in hand else (None, None)
         local = "fe_local" in (r.get("fatigue") or {}) or "fe_local" in (r.get("static") or {})
         fe_path = "meridian-section FE at the fillet" if local else "2-D section FE"
-        if gov.get("no_verdict"):
+        if st.get("fe_path") == "segment":
+            fe_path = "3-D segment FE at the feature"
+        if gov.get("no_verdict") and gov.get("reason_text"):
+            verdict = "NO VERDICT (3-D accuracy not shown)"
+        elif gov.get("no_verdict"):
             verdict = "NO VERDICT (unbounded stress)"
         elif gov.get("region") is not None:  # a composite station: per region, static only
             verdict = (f"n = {gov['factor']:.3g} ({LABELS.get(gov.get('criterion'), gov.get('criterion'))}, {gov['region']})" +
@@ -355,6 +363,15 @@ def _station_part(st: dict, sres: dict, sfigs: list, f: Fmt) -> str:
     out = [warn, f'<p class="verdict">{e(sentence)}</p>', "<h3>Loads</h3>",
            _table(("", *L), rows, numeric=(1, 2, 3, 4, 5, 6)),
            f"<p class=\"small\">Loads taken {e(_loads_where(st, f))}.</p>"]
+    seg = st.get("segment")
+    if seg:  # a 3-D feature: its factors with their estimates, before the figures
+        rows3 = [(k, f"{seg[k]:.4g}", "—" if seg[f"{k}_gci"] is None else f"{100 * seg[f'{k}_gci']:.3g} %",
+                  seg[f"{k}_status"]) for k in ("kt_bending_x", "kt_bending_y", "kts", "kt_axial")]
+        out += ["<h3>3-D feature</h3>", f"<p>{e(segment_line(seg))}.</p>",
+                _table(("factor", "3-D FE (finest mesh)", "three-mesh estimate", "study"), rows3, numeric=(1, 2)),
+                f"<p class=\"small\">Hand path: Kt = {e(seg['kt_bending_used']['from'])} ({e(seg['kt_bending_used']['why'])}), "
+                "Kts = kts. FE path: the 3-D unit-load results superposed with the station's loads at every candidate "
+                "point along the feature.</p>"]
     for name in STATION_FIGURES:
         if name in figs:
             out.append(_img(figs[name]))

@@ -105,7 +105,8 @@ def build_results(a: Analysis) -> dict:
             if away:
                 away = _with_text(away, governing_text(away, out.get("fatigue", {}), Fmt(case.units)))
             out["governing"] = {**gov, "away_from_corners": away,
-                                "text": "no verdict: a sharp re-entrant corner leaves the peak stress unbounded"}
+                                "text": gov.get("reason_text")
+                                or "no verdict: a sharp re-entrant corner leaves the peak stress unbounded"}
         else:
             out["governing"] = _with_text(gov, governing_text(gov, out.get("fatigue", {}), Fmt(case.units)))
     out["warnings"] = warnings_out(a)

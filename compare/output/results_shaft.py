@@ -62,9 +62,13 @@ def add_shaft_results(out: dict, a, build_results) -> None:
                  "at_load_point": rec_st.get("at_load_point"), "extent": rec_st.get("extent"),
                  # where along the station's feature its loads were taken, where the station record says
                  **{k: rec_st[k] for k in ("loads_where", "governing_at") if k in rec_st},
+                 # a 3-D feature: its study (also in results 'segments') and which FE path the station took
+                 **({"segment": rec_st["segment"], "fe_path": rec_st.get("fe_path")} if "segment" in rec_st else {}),
                  "results": {k: r[k] for k in _STATION_KEYS if k in r}}
         loads.append(entry)
     out["section_loads"] = loads
+    if rec.get("segments"):  # each station's 3-D study (a [segment] case's entry, with its station)
+        out["segments"] = rec["segments"]
     # the layout's warnings first, beside the governing station's own
     out["warnings"] = [{"code": w["code"], "text": w["text"], "data": {k: v for k, v in w.items() if k not in ("code", "text")}}
                        for w in out["shaft"]["warnings"]] + out.get("warnings", [])
@@ -73,6 +77,18 @@ def add_shaft_results(out: dict, a, build_results) -> None:
 def shaft_warnings(lay: dict, stations: list) -> list[dict]:
     """Records with a sentence each (SI numbers in the data; the terminal writes its own units)."""
     out = []
+    for st in stations:  # first: stations whose 3-D study did not show its target: no verdict there
+        seg = st.get("segment")
+        if seg is not None and not seg["met"]:
+            ach = seg["achieved"]
+            out.append({"code": "station_segment_accuracy_not_met", "at": st["at"], "name": st["name"],
+                        "field": seg["field"], "target": seg["target"], "achieved": ach, "limited_by": seg["limited_by"],
+                        "text": f"NO VERDICT at station {st['name'] or st['at']}: ACCURACY TARGET NOT SHOWN by the 3-D "
+                                f"study of its {seg['kind'].replace('_', ' ')} ({seg['field']}): target "
+                                f"{100 * seg['target']:.3g} %, estimated error "
+                                f"{'unknown' if ach is None else f'{100 * ach:.3g} %'}"
+                                + (f" ({seg['limited_by']})" if seg["limited_by"] else "") + ". Its Kt, Kts and "
+                                "local stresses are estimates, not a verdict."})
     for st in stations:  # first: stations at a sharp corner, which can have no verdict at all
         for c in st.get("sharp") or []:
             out.append({"code": "station_sharp_no_verdict", "at": st["at"], "name": st["name"], "corner": c,
@@ -164,7 +180,9 @@ def shaft_summary(res: dict, system) -> str:
             why = gov.get("not_a_verdict") or ", ".join(str(w).replace("_", " ") for w in gov.get("not_supported_because", []))
             verdict += f" in {gov['region']}" + (f"; NOT A VERDICT: {why or 'see its warnings'}"
                                                  if gov.get("verdict_supported") is False else "")
-        if "fe_local" in (st["results"].get("fatigue") or {}) or "fe_local" in (st["results"].get("static") or {}):
+        if st.get("fe_path") == "segment":
+            verdict += "; FE path from the 3-D segment's local stresses"
+        elif "fe_local" in (st["results"].get("fatigue") or {}) or "fe_local" in (st["results"].get("static") or {}):
             verdict += "; FE path from the meridian-section FE at the fillet"
         M = math.hypot(st["Mx"], st["My"])
         ext = st.get("extent")
@@ -174,6 +192,8 @@ def shaft_summary(res: dict, system) -> str:
         lines.append(f"    {f.q(st['at'], 'length', 4)} {st['name'] or ''}: M {f.q(M, 'moment', 4)}, T "
                      f"{f.q(st['T'], 'moment', 4)}, N {f.q(st['N'], 'force', 4)}{side} — {verdict}")
         lines.extend(f"      {x}" for x in station_place_lines(st, f))
+        if st.get("segment"):  # a 3-D feature: its factors, each with its three-mesh estimate
+            lines.append(f"      {segment_line(st['segment'])}")
     for c in sh.get("composite_segments") or []:
         hand = {p["quantity"].split(": ", 1)[1]: p["ratio"] for p in c["compare"]}
         ratios = ", ".join(f"{k.split(' (')[0]} FE/hand {v:.6f}" for k, v in hand.items() if v is not None)
@@ -185,6 +205,17 @@ def shaft_summary(res: dict, system) -> str:
     g = sh["governing_station"]
     lines.append(f"  the section summary below is the governing station's ({_station_name(res, g, f)})")
     return "\n".join(lines)
+
+
+def segment_line(seg: dict) -> str:
+    """The 3-D factors of a station's feature in one line, each with its estimate."""
+    def one(key, label):
+        g = seg[f"{key}_gci"]
+        return f"{label} {seg[key]:.3g} ({'no estimate' if g is None else f'±{100 * g:.2g} %'})"
+    kb = seg["kt_bending_used"]["from"]
+    return (f"3-D {seg['kind'].replace('_', ' ')} ({seg['dofs'][-1]} unknowns on the finest of three meshes): "
+            f"{one(kb, 'Kt bending')}, {one('kts', 'Kts')}, {one('kt_axial', 'Kt axial')}; "
+            + ("estimates within the target" if seg["met"] else "ACCURACY TARGET NOT SHOWN: no verdict at this station"))
 
 
 def _feature_word(field: str) -> str:

@@ -29,7 +29,10 @@ def headline(res: dict, system) -> list[str]:
     for w in res.get("warnings", []):
         out.append(f"WARNING: {w['text']}")
     gov = res.get("governing")
-    if gov and gov.get("no_verdict"):
+    if gov and gov.get("no_verdict") and gov.get("reason_text"):  # not a corner (a 3-D study short of its target)
+        out.append(f"VERDICT: none — {gov['reason_text'].removeprefix('no verdict: ')}; no factor of safety governs "
+                   "(the factors in the table are estimates, not a verdict)")
+    elif gov and gov.get("no_verdict"):
         out.append("VERDICT: none — a sharp re-entrant corner leaves the stress unbounded; no factor of safety governs "
                    "(factors in the table are for the rest of the section only)")
     elif gov:
@@ -47,9 +50,13 @@ def headline(res: dict, system) -> list[str]:
     else:
         out.append("VERDICT: no factor of safety (no strengths given)")
     acc = res.get("accuracy")
+    seg = ((res.get("static") or {}).get("fe_local") or (res.get("fatigue") or {}).get("fe_local") or {})
+    three_d = "accuracy_met" in seg  # a station with a 3-D feature (compare/checks/segment_local.py)
     if acc:
         if acc.get("met"):
-            out.append(f"  accuracy: within {100 * acc['achieved']:.2g} % (target {100 * acc['target']:.3g} %, three-mesh study)")
+            out.append(f"  accuracy: within {100 * acc['achieved']:.2g} % (target {100 * acc['target']:.3g} %, three-mesh study"
+                       + (" of the 2-D section; the 3-D feature's study: "
+                          + ("within the target" if seg["accuracy_met"] else "NOT SHOWN") if three_d else "") + ")")
         else:
             out.append(f"  accuracy: NOT SHOWN within the target {100 * acc['target']:.3g} % — see --verbose")
     return out

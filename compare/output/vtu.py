@@ -10,6 +10,7 @@ import numpy as np
 from fem.export import centroid_values, nodal_gradient, write_vtu
 
 from ..checks.fields import nodal_fields
+from ..solve.segment_superpose import LOADS, superpose, von_mises
 
 #: nodal fields of :func:`compare.checks.fields.nodal_fields` written to the VTU, with their VTU names
 MAPPED = {"sigma": "worst_sigma", "tau_zx": "worst_tau_zx", "tau_zy": "worst_tau_zy", "von_mises": "worst_von_mises",
@@ -88,4 +89,39 @@ def composite_vtu_bytes(a) -> bytes:
     with tempfile.TemporaryDirectory() as d:
         path = Path(d) / "section.vtu"
         write_vtu(path, cm, {"prandtl_phi": tr.phi, "warping_omega": tr.omega}, cells)
+        return path.read_bytes()
+
+
+def layout_segment_vtu_bytes(a) -> bytes | None:
+    """A layout's 3-D station features as one point cloud along the shaft (``segment.vtu``): every
+    station segment's surface sample points (away from its model's end faces) in the station's x, y and
+    z along the shaft, with ``station`` (its index), ``von_mises`` [Pa] (the largest over the load cycle
+    of the station's governing loads, the 3-D superposition) and ``von_mises_over_nominal_<load>`` per
+    unit load. None when no station has a 3-D feature."""
+    shaft = (a.extra.get("shaft") or {}).get("shaft")
+    analyses = a.extra.get("shaft_stations") or []
+    pts, data = [], {"station": [], "von_mises": [], **{f"von_mises_over_nominal_{k}": [] for k in LOADS}}
+    for i, st in enumerate(getattr(shaft, "stations", None) or []):
+        if "segment_stresses" not in st.kt or i >= len(analyses):
+            continue
+        local = st.kt["segment_stresses"][0]
+        fl = local["fields"]
+        ld = analyses[i].case.loads
+        sp = superpose(fl, float(ld.axial or 0.0), float(ld.bending[0]), float(ld.bending[1]), float(ld.torque or 0.0),
+                       bool(ld.rotating))
+        p = np.array(sp.points)
+        p[2] += local["centre"] - local["length"] / 2
+        pts.append(p.T)
+        data["station"].append(np.full(p.shape[1], float(i)))
+        data["von_mises"].append(sp.vm_peak)
+        for k in LOADS:
+            r = local["study"].finest[k]
+            data[f"von_mises_over_nominal_{k}"].append(von_mises(np.asarray(r.stress))[fl.keep] / abs(r.nominal))
+    if not pts:
+        return None
+    xyz = np.vstack(pts)
+    point_data = {k: np.concatenate(v) for k, v in data.items()}
+    with tempfile.TemporaryDirectory() as d:
+        path = Path(d) / "segment.vtu"
+        meshio.Mesh(xyz, [("vertex", np.arange(len(xyz)).reshape(-1, 1))], point_data=point_data).write(path)
         return path.read_bytes()

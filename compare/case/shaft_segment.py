@@ -1,0 +1,192 @@
+"""A layout station whose feature is 3-D: the ``segment`` table of a ``[[shaft.sections]]`` station.
+
+A cross-section sees a keyseat as a prism; the end of a keyseat and a transverse hole are 3-D. A
+station may ask for the 3-D segment study (compare/solve/segments.py) of its feature::
+
+    [[shaft.sections]]
+    at = 25
+    section = { shape = "keyed", diameter = 30, keyways = [{ width = 8, depth = 4, fillet = 0.6, length = 40 }] }
+    segment = { kind = "keyseat_end" }           # the keyway's end, in 3-D
+
+    [[shaft.sections]]
+    at = 120
+    segment = { kind = "cross_hole", hole_diameter = 6, chamfer = 0.5, angle = 0 }
+
+Keys: ``kind`` ("keyseat_end": an end-milled keyseat's rounded end; "sled_runner": a disk cutter's
+run-out, with ``cutter_diameter``; "cross_hole"); keyseats take width, depth and bottom fillet from
+the station's keyed section (``keyway``: which one, default 0) and the key length from that keyway's
+``length`` (where it lies: the station's feature extent); a cross hole ``hole_diameter``, ``chamfer``
+(45°, default 0), ``hole_depth`` (blind; default through) and ``angle`` (the hole's axis, degrees from
++x toward +y; default 0), on a station without its own section (the plain round). Both: ``length``
+(the modelled length; default the feature's span plus two diameters, at least three diameters) and
+``fineness`` (of the 3-D meshes; default analysis.fineness). The model is a solid round bar: a hollow
+segment is refused, as is a feature too close to the model's end faces.
+
+:func:`parse_station_segment` reads the table (in ``shaft.py``'s station parser);
+:func:`build_station_segments` makes the :class:`fem.solid.Segment` once the station's diameter is
+known (``case.py``, after [section]) and refuses what the model cannot hold.
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+from fem import solid
+from fem.errors import InputError
+
+from .fields import known
+from .units import to_si
+
+KINDS = ("keyseat_end", "sled_runner", "cross_hole")
+_KEYS = {"kind", "keyway", "cutter_diameter", "hole_diameter", "chamfer", "hole_depth", "angle", "length", "fineness"}
+_ALLOWED = {"keyseat_end": {"keyway"}, "sled_runner": {"keyway", "cutter_diameter"},
+            "cross_hole": {"hole_diameter", "chamfer", "hole_depth", "angle"}}
+#: The default modelled length: the feature's span plus this many diameters (plain bar at both ends:
+#: fem.solid.END_ZONE = 0.75 diameters each side, and a quarter diameter more), at least MIN_LENGTH.
+MARGIN = 2.0
+MIN_LENGTH = 3.0
+
+
+@dataclass
+class StationSegment:
+    """The 3-D feature of a station (SI): ``kind``, ``field`` (``shaft.sections[i].segment``), ``angle``
+    [deg] where the feature sits round the shaft in the station's frame (a keyseat's centre line, a
+    hole's axis), ``centre`` [m] along the shaft, the sizes, ``length`` (modelled, None: the default),
+    ``fineness`` (None: analysis.fineness), ``notch`` (radius [m], its field) and, once built, ``model``
+    (fem.solid.Segment, the feature centred at length/2) and ``d``."""
+
+    kind: str
+    field: str
+    angle: float
+    centre: float
+    sizes: dict
+    length: float | None = None
+    fineness: float | None = None
+    notch: tuple | None = None
+    model: object | None = None
+    d: float | None = None
+    raw: dict | None = None
+
+
+def parse_station_segment(s: dict, w: str, st, units, feature_lengths=None) -> StationSegment:
+    """The station's ``segment`` table, checked against its section (``st.section``, ``st.extent``)."""
+    t = s["segment"]
+    fw = f"{w}.segment"
+    if not isinstance(t, dict):
+        raise InputError(fw, t, "must be a table, e.g. { kind = \"keyseat_end\" }")
+    known(t, _KEYS, fw)
+    kind = t.get("kind")
+    if kind not in KINDS:
+        raise InputError(f"{fw}.kind", kind, "must be \"keyseat_end\", \"sled_runner\" or \"cross_hole\"")
+    for k in t:
+        if k not in _ALLOWED[kind] | {"kind", "length", "fineness"}:
+            raise InputError(f"{fw}.{k}", t[k], f"is not a field of a {kind} station segment")
+
+    def length(key, required=True, default=None):
+        if key not in t:
+            if required:
+                raise InputError(f"{fw}.{key}", None, "is missing")
+            return default
+        v = to_si(t[key], "length", f"{fw}.{key}", units)
+        if not (v > 0 and math.isfinite(v)):
+            raise InputError(f"{fw}.{key}", t[key], "must be a positive length")
+        return v
+
+    fineness = None
+    if "fineness" in t:
+        v = t["fineness"]
+        if isinstance(v, bool) or not isinstance(v, (int, float)) or not (math.isfinite(v) and 0.05 <= v <= 4):
+            raise InputError(f"{fw}.fineness", v, "must be a number from 0.05 to 4")
+        fineness = float(v)
+    model_len = length("length", required=False)
+    if kind == "cross_hole":
+        if st.section is not None and st.section.kind != "round":
+            raise InputError(f"{fw}.kind", kind, f"models a hole in a plain round shaft, but the station's section is "
+                             f"{st.section.kind}: leave {w}.section out (or give a round one)")
+        chamfer = 0.0
+        if "chamfer" in t:
+            chamfer = to_si(t["chamfer"], "length", f"{fw}.chamfer", units)
+            if not (chamfer >= 0 and math.isfinite(chamfer)):
+                raise InputError(f"{fw}.chamfer", t["chamfer"], "must not be negative")
+        angle = _angle(t.get("angle", 0.0), f"{fw}.angle")
+        sizes = {"hole_diameter": length("hole_diameter"), "chamfer": chamfer,
+                 "hole_depth": length("hole_depth", required=False)}
+        return StationSegment(kind, fw, angle, st.at, sizes, model_len, fineness, None, raw=dict(t))
+    sec = st.section
+    if sec is None or sec.kind != "keyed":
+        raise InputError(f"{fw}.kind", kind, f"needs a keyed section at the station ({w}.section with shape = "
+                         "\"keyed\" and its keyway): the keyseat's width, depth and fillet come from it")
+    i = t.get("keyway", 0)
+    if isinstance(i, bool) or not isinstance(i, int) or not 0 <= i < len(sec.keyways):
+        raise InputError(f"{fw}.keyway", i, f"must be the index of one of the section's {len(sec.keyways)} keyways "
+                         "(0 is the first)")
+    kw = sec.keyways[i]
+    kfield = f"{w}.section.keyways[{i}]"
+    if not kw.fillet > 0:
+        raise InputError(f"{kfield}.fillet", (s["section"].get("keyways") or [{}])[i].get("fillet"),
+                         "is needed for the 3-D keyseat end: a sharp keyseat corner has no bounded peak stress")
+    if st.extent is None or st.extent_field != f"{kfield}.length":
+        raise InputError(f"{kfield}.length", (s["section"].get("keyways") or [{}])[i].get("length"),
+                         "is needed for the 3-D keyseat end (the key length, end to end), and must be the "
+                         "station's longest feature (its place along the shaft)")
+    z0, z1 = st.extent
+    sizes = {"width": kw.width, "depth": kw.depth, "fillet": kw.fillet, "key_length": z1 - z0}
+    if kind == "sled_runner":
+        sizes["cutter_diameter"] = length("cutter_diameter")
+    return StationSegment(kind, fw, float(kw.angle), (z0 + z1) / 2, sizes, model_len, fineness,
+                          (kw.fillet, f"{kfield}.fillet"), raw=dict(t))
+
+
+def _angle(v, name) -> float:
+    if isinstance(v, bool) or not isinstance(v, (int, float)) or not math.isfinite(v):
+        raise InputError(name, v, "must be an angle in degrees")
+    return float(v)
+
+
+def build_station_segments(shaft, section, material) -> None:
+    """Make each station segment's 3-D model once its diameter is known: the shaft's segment at the
+    station (or [section]'s for a shaft without segments). Refused: a hollow shaft there, a missing
+    Poisson's ratio, a feature the model cannot hold (too close to an end face, too large)."""
+    if shaft is None:
+        return
+    for st in shaft.stations:
+        ss = getattr(st, "segment", None)
+        if ss is None:
+            continue
+        seg = shaft.segment_at(ss.centre)
+        d = seg.diameter if seg is not None else section.diameter
+        bore = seg.bore if seg is not None else section.bore
+        if bore:
+            raise InputError(f"{ss.field}.kind", ss.kind, "models a solid round shaft, but the shaft is hollow here "
+                             "(a bore): the 3-D segment has no bore")
+        if material.poisson is None:
+            raise InputError("material.poisson", None, "is needed: a station's 3-D segment study depends on "
+                             "Poisson's ratio")
+        sz = ss.sizes
+        if ss.kind == "cross_hole":
+            span = sz["hole_diameter"] + 2 * sz["chamfer"]
+        else:
+            span = sz["key_length"]
+        L = ss.length if ss.length is not None else max(MIN_LENGTH * d, span + MARGIN * d)
+        mid = L / 2
+        if ss.kind == "cross_hole":
+            feat = solid.CrossHole(sz["hole_diameter"], mid, sz["chamfer"], sz["hole_depth"])
+        elif ss.kind == "keyseat_end":
+            feat = solid.ProfileKeyseat(sz["width"], sz["depth"], mid - span / 2, mid + span / 2, sz["fillet"])
+        else:
+            feat = solid.SledKeyseat(sz["width"], sz["depth"], mid - span / 2, mid + span / 2, sz["cutter_diameter"],
+                                     sz["fillet"])
+        model = solid.Segment(d, L, (feat,))
+        try:
+            model.check(ss.field)
+        except InputError as exc:
+            f = exc.field.replace(f"{ss.field}.features[0].", f"{ss.field}.")
+            key = f.rsplit(".", 1)[1]
+            fields = {"z": "length", "z0": "length", "z1": "length", "d": "length", "diameter": "hole_diameter",
+                      "depth": "hole_depth" if ss.kind == "cross_hole" else "depth"}
+            key = fields.get(key, key)
+            if ss.kind != "cross_hole" and key in ("width", "depth", "fillet"):  # sizes of the station's keyway
+                raise InputError(f"{ss.notch[1].rsplit('.', 1)[0]}.{key}", exc.value, exc.reason) from None
+            raw = (ss.raw or {}).get(key)
+            raise InputError(f"{ss.field}.{key}", raw if raw is not None else exc.value, exc.reason) from None
+        ss.model, ss.d = model, d

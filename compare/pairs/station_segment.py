@@ -1,0 +1,114 @@
+"""The 3-D feature of a layout station (a keyseat's end, a cross hole; compare/case/shaft_segment.py):
+its segment studied on three meshes (compare/solve/segments.py) within the case's limits, and what
+the station check takes from it (numbers and records only):
+
+* the hand path's factors, in ``Station.kt``: Kt in bending the larger of the two planes (on a rotating
+  shaft the moment turns round the section, and on a standing one the larger is the safe side), Kts in
+  torsion, each with the source "3-D FE, this run" and its three-mesh estimate, and the notch radius
+  (the keyseat's bottom fillet, the hole's radius) for the notch sensitivity;
+* a station also on a shoulder or groove keeps, factor by factor, the larger of the two (neither model
+  holds both raisers), and its FE path takes the smaller factor of the 3-D and the fillet's local stresses;
+* the FE path's unit fields (``Station.kt['segment_stresses']``): the finest mesh's stress per unit
+  N, Mx, My, T at the surface points, turned into the station's frame (compare/solve/segment_superpose.py),
+  superposed with the station's loads by compare/checks/segment_local.py.
+
+Runs before the stations are checked (compare/pipeline.py), after the shoulder and groove step (a
+station's own 3-D feature overrides a shoulder's factors there).
+"""
+from __future__ import annotations
+
+import math
+import time
+
+from ..solve.segment_superpose import MODEL_ANGLE, unit_fields
+from ..solve.segments import KEYS, study_segment
+
+#: the source written beside each 3-D factor the station uses
+SOURCE = "3-D FE, this run"
+#: a stand-in modulus [Pa] where the case gives none (the factors and unit stresses do not depend on E)
+E_STANDIN = 2.0e11
+
+
+def station_segment_record(i: int, st, ss, study, target: float) -> dict:
+    """The results record of one station's 3-D study (the keys of a [segment] case's ``segments``
+    entry, with the station and what it used)."""
+    feat = ss.model.features[0]
+    a, b = feat.span()
+    L = ss.model.length
+    gcis = [study.estimates[k]["gci"] for k in KEYS.values()]
+    achieved = None if any(g is None for g in gcis) else max(gcis)
+    met = achieved is not None and achieved <= target and study.limited is None
+    rec = {"station": i, "name": st.name, "at": st.at, "kind": ss.kind, "field": ss.field,
+           "centre": ss.centre, "span": [ss.centre + a - L / 2, ss.centre + b - L / 2], "angle_deg": ss.angle,
+           "diameter": ss.d, "length": L, "sizes": dict(ss.sizes), "dofs": study.dofs, "seconds": study.seconds,
+           "limited_by": study.limited, "target": target, "achieved": achieved, "met": bool(met)}
+    peaks = {}
+    turn = math.radians(ss.angle - MODEL_ANGLE[ss.kind])
+    c, s = math.cos(turn), math.sin(turn)
+    for key in KEYS.values():
+        est = study.estimates[key]
+        rec[key] = study.values[key]
+        rec[f"{key}_gci"] = est["gci"]
+        rec[f"{key}_status"] = est["status"]
+        x, y, z = (float(v) for v in study.peaks[key]["at"])
+        peaks[key] = {"at": [x, y, z], "on_feature": study.peaks[key]["on_feature"],
+                      "at_on_shaft": [c * x - s * y, s * x + c * y, ss.centre + z - L / 2]}
+    rec["peak_location"] = peaks
+    rec["peak_location_frame"] = ("at: the 3-D model's (z from its left end face, the feature centred at length/2, a "
+                                  "keyseat on +y, a hole's axis along x); at_on_shaft: the station's x, y and z along "
+                                  "the shaft")
+    kb = max(("kt_bending_x", "kt_bending_y"), key=lambda k: study.values[k])
+    rec["kt_bending_used"] = {"value": study.values[kb], "from": kb, "gci": rec[f"{kb}_gci"],
+                              "why": "the larger of the two bending planes (the moment's direction relative to the "
+                                     "feature turns on a rotating shaft; on a standing one the larger is the safe side)"}
+    rec["kts_used"] = {"value": study.values["kts"], "from": "kts", "gci": rec["kts_gci"]}
+    return rec
+
+
+def _source(ss, key: str, rec: dict) -> str:
+    g = rec[f"{key}_gci"]
+    est = f"three-mesh estimate {100 * g:.2g} %" if g is not None else f"no estimate ({rec['limited_by']})"
+    return f"{SOURCE} ({ss.kind} at {ss.field}, {key}; {est})"
+
+
+def station_segments_step(case) -> list[dict] | None:
+    """Study every station's 3-D feature; fill the stations' ``kt``. Returns the records (None when no
+    station has one)."""
+    shaft = case.shaft
+    if shaft is None or not any(getattr(st, "segment", None) is not None for st in shaft.stations):
+        return None
+    an, m = case.analysis, case.material
+    E = m.elastic_modulus if m.elastic_modulus else E_STANDIN
+    out = []
+    for i, st in enumerate(shaft.stations):
+        ss = st.segment
+        if ss is None:
+            continue
+        t0 = time.perf_counter()
+        study = study_segment(ss.model, fineness=ss.fineness if ss.fineness is not None else an.fineness, E=E,
+                              nu=m.poisson, max_dofs=an.max_dofs, max_seconds=an.max_seconds)
+        rec = station_segment_record(i, st, ss, study, an.accuracy)
+        kb = rec["kt_bending_used"]["from"]
+        notch = ss.notch if ss.notch is not None else (ss.sizes["hole_diameter"] / 2, f"{ss.field}.hole_diameter")
+        # a station also on a shoulder or groove (the feature step ran first): each factor the larger of the
+        # two, with the notch radius of the one that gave the bending factor (neither model holds both raisers)
+        shoulder = {k: st.kt[k] for k in ("kt_bending", "kts_torsion", "notch_radius") if k in st.kt}
+        for key, value, src in (("kt_bending", rec["kt_bending_used"]["value"], _source(ss, kb, rec)),
+                                ("kts_torsion", rec["kts_used"]["value"], _source(ss, "kts", rec))):
+            if key in shoulder and shoulder[key][0] > value:
+                rec.setdefault("also_on_a_shoulder_or_groove", {})[key] = "the shoulder or groove's factor is larger: used"
+                continue
+            st.kt[key] = (value, src)
+            if key == "kt_bending":
+                st.kt["notch_radius"] = notch
+        if "notch_radius" not in st.kt:
+            st.kt["notch_radius"] = notch
+        turn = ss.angle - MODEL_ANGLE[ss.kind]
+        fields = unit_fields(study.finest, ss.d, ss.model.length, turn=turn)
+        local = {"fields": fields, "record": rec, "kind": ss.kind, "field": ss.field, "centre": ss.centre,
+                 "length": ss.model.length, "met": rec["met"], "keep_section_min": st.section is not None,
+                 "study": study}
+        st.kt["segment_stresses"] = (local, ss.field)
+        rec["seconds_total"] = time.perf_counter() - t0
+        out.append(rec)
+    return out
