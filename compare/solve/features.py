@@ -18,7 +18,8 @@ Where the last three values do not converge monotonically, one more mesh (finene
 the coarsest dropped, until they do or a limit stops it (:data:`MAX_DOFS`, the case's
 ``analysis.max_dofs`` and ``analysis.max_seconds``; ``limited`` says which); then the bound is
 :data:`SPREAD_FACTOR` times the largest spread of the last three values from the finest
-(``gci_kind = "spread"``). Identical features are solved once. Numbers and records only.
+(``gci_kind = "spread"``). Identical features are solved once, a step down and a step up of the same
+diameters and fillet included (one meridian model, positions mirrored). Numbers and records only.
 """
 from __future__ import annotations
 
