@@ -112,6 +112,8 @@ PHASES = [
     ("adaptive indicator (shear peaks included)", [("compare.solve.accuracy", "indicator")]),
     ("study: refinement and every mesh (all of the above)", [("compare.pairs.analysis", "refine_to_accuracy")]),
     ("checks (combined stress, fatigue)", [("compare.pipeline", "combined_step")]),
+    ("layout: shoulder and groove studies (meridian FE)", [("compare.pairs.feature_step", "study_feature")]),
+    ("layout: beam, stations and their section runs", [("compare.pipeline", "layout_step")]),
     ("whole analysis (study, pairs, checks)", [("compare.cli.cmd_run", "analyse")]),
     ("report figures", [("compare.output.figures", "all_figures")]),
     ("writing the files (VTU, report text)", [("compare.cli.cmd_run", "write_outputs")]),
