@@ -157,7 +157,8 @@ def _once_per_field(w, strains, u, r):
     bilinear form for every pair of local basis functions (18 × 18 for a P2 vector of three
     components) with the same field objects and the same ``w``, so each function's strains are kept
     in ``w`` (a dict made afresh for every assembly) under its field's id. The values are those
-    computed each time, bit for bit; the bending assembly took two thirds of a bending solve before."""
+    computed each time, bit for bit; the bending assembly at 79k unknowns took 0.48–0.49 CPU s
+    instead of 0.68–0.84 (docs/speed.md)."""
     memo = w.setdefault("_strains_once", {})
     key = (strains.__name__, id(u))
     if key not in memo:

@@ -61,8 +61,8 @@ class MeshOptions:
 #: tenth of that and the node count changes by less than 1e-3 (measured, docs/speed.md). Used only
 #: for sections with such curves (kind 'curve'): on lines, arcs and ellipses (gmsh reports some
 #: trimmed circles as ellipses) the 1-D meshing costs next to nothing, and their meshes stay exactly
-#: as they were. Set for the section mesh only and
-#: put back afterwards (gmsh keeps options between models).
+#: as they were. Set for the section mesh only and put back afterwards (gmsh keeps options between
+#: models).
 LC_INTEGRATION_PRECISION = 1e-6
 
 #: Grid on which every length of the section is rounded in the scale-free frame (relative to the
