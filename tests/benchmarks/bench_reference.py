@@ -17,6 +17,13 @@ Bytecode: the children run with Python's bytecode cache in a directory of their 
 temporary directory (PYTHONPYCACHEPREFIX; warmed by one untimed import first), as an installed
 program runs; with ``--compile`` they run as this process does (where PYTHONDONTWRITEBYTECODE is
 set, every run compiles the project's modules again: about 0.3 CPU s, measured).
+Measured (issue 24, second pass; medians of five alternating runs each, warm bytecode cache, CPU s
+before → after; details and the phase shares in docs/speed.md): gear seat --no-report 2.54 → 2.83
+(the same code path; an alternating check of five pairs gave 2.94 → 2.85), with the report 5.23 →
+6.03 (load), spline 19.30 → 12.84, countershaft layout 31.18 → 23.52, keyed sweep per variant
+0.62 → 0.63. Phase shares before → after, spline: meshing 62 → 39 %, torsion 8 → 13 %, shear
+functions 10 → 15 %, writing 7 → 12 %; countershaft: shoulder studies 77 → 72 %, stations 16 → 18 %;
+gear seat: imports 21 → 19 %, meshing 29 → 30 %, study 58 → 59 %.
 phases: one run under cProfile with a CPU-time clock; the share of imports, meshing, the linear
 solves and the rest of the FE work, the accuracy study's bookkeeping, the checks, the report's
 figures and the file writing (imports made later, such as matplotlib's, count in the phase that makes them). The profiler's own cost inflates Python-heavy phases (figures most).
