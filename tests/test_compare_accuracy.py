@@ -332,3 +332,32 @@ def test_the_pilot_mesh_is_not_made_twice_and_changes_nothing(tmp_path, run_cli,
     assert calls.count((0.5, True)) == 2
     keys = ("seconds", "file")  # timings, and the case file's own path
     assert json.dumps(_without(reused, keys), sort_keys=True) == json.dumps(_without(fresh, keys), sort_keys=True)
+
+
+def test_the_pilot_is_the_studys_coarsest_mesh_when_the_start_keeps_the_first(tmp_path, run_cli, monkeypatch):
+    """For 0.5 < fineness ≤ 1 the pilot is made at the study's coarsest fineness, fineness/RATIO²; when
+    the adaptive start keeps the first mesh (no adaptive step), the study uses the pilot as that mesh
+    instead of making it again, and the results equal those of a run that meshes it afresh."""
+    import compare.solve.accuracy as acc
+
+    calls = []
+    real_mesh = acc.mesh_section
+    monkeypatch.setattr(acc, "mesh_section", lambda s, o=None, f=None: calls.append((o.fineness, f is None)) or real_mesh(s, o, f))
+    text = KEYED + '[analysis]\nfineness = 1\naccuracy = "1 %"\n'
+    (tmp_path / "a").mkdir()
+    (tmp_path / "b").mkdir()
+    code, _, err, reused = run(tmp_path / "a", run_cli, text)
+    assert code == 0, err
+    assert reused["accuracy"]["adaptive_steps"] == 0  # the case this test is about
+    coarse = 1.0 / acc.RATIO**2
+    assert acc.pilot_fineness(1.0) == coarse
+    assert calls.count((coarse, True)) == 1  # the pilot, used again as the study's coarsest mesh
+
+    real_first = acc.first_mesh_dofs
+    monkeypatch.setattr(acc, "first_mesh_dofs", lambda c, f: (real_first(c, f)[0], None))  # mesh it again
+    calls.clear()
+    code, _, err, fresh = run(tmp_path / "b", run_cli, text)
+    assert code == 0, err
+    assert calls.count((coarse, True)) == 2
+    keys = ("seconds", "file")  # timings, and the case file's own path
+    assert json.dumps(_without(reused, keys), sort_keys=True) == json.dumps(_without(fresh, keys), sort_keys=True)

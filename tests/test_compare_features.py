@@ -327,3 +327,30 @@ def test_refinement_continues_until_monotone_and_stops_at_a_limit_saying_so(monk
     assert feature_findings(SimpleNamespace(extra={"shaft": {"features": [small]}})) == []
     text = feature_warning_text(w, Fmt(parse_case(BASE | {"section": {"shape": "round", "diameter": 30}}).units))
     assert text.startswith("FEATURE FACTOR BOUNDED BY ITS SPREAD") and "analysis.max_dofs = 20000" in text
+
+
+def test_a_step_down_reuses_the_step_up_study_with_its_positions_mirrored(monkeypatch):
+    """A step down has the meridian model of the step up of the same diameters and fillet: the cached
+    study is reused (one study for both) and equals, number for number, a fresh study of the step
+    down; its positions along the shaft run the other way from its own place."""
+    monkeypatch.setattr(features, "FINENESS", (0.5, 1.0, 2.0))
+    up = Feature("shoulder", 0.100, 0.030, 0.036, 0.003, "shaft.segments[1].fillet")
+    down = Feature("shoulder", 0.250, 0.030, 0.036, 0.003, "shaft.segments[2].fillet", step_down=True)
+    calls = []
+    real = features._study
+    monkeypatch.setattr(features, "_study", lambda *a, **k: calls.append(a[0].field) or real(*a, **k))
+    cache = {}
+    cache_up = features.study_feature(up, 0.3, cache=cache)
+    reused = features.study_feature(down, 0.3, cache=cache)
+    assert calls == ["shaft.segments[1].fillet"]  # the step down was not solved again
+    fresh = features.study_feature(down, 0.3)
+    assert calls[-1] == "shaft.segments[2].fillet"
+    for load, rec in fresh.items():
+        r = reused[load]
+        assert r["values_coarse_to_fine"] == rec["values_coarse_to_fine"] and r["gci"] == rec["gci"]
+        assert r["peak"]["at"] == pytest.approx(rec["peak"]["at"], abs=1e-12)
+        # the fillet lies on the smaller diameter: left of a step up, right of a step down
+        assert r["peak"]["at"] > down.at and cache_up[load]["peak"]["at"] < up.at
+        assert r["map"]["at"] == pytest.approx(rec["map"]["at"], abs=1e-12)
+        assert r["components"]["at"] == pytest.approx(rec["components"]["at"], abs=1e-12)
+        assert (r["components"]["cos"] == rec["components"]["cos"]).all()

@@ -167,14 +167,25 @@ def _predict_seconds(sol: Solution, dofs: float) -> float:
     return sol.seconds * (max(dofs, 1.0) / sol.dofs) ** COST_EXPONENT
 
 
+def pilot_fineness(fineness: float) -> float:
+    """Fineness of the pilot mesh: the first mesh itself at fineness ≤ 0.5; the fineness of the
+    study's coarsest mesh, ``fineness/RATIO²``, up to fineness 1 (at most 0.51: the pilot is then
+    that very mesh when the adaptive start leaves the first mesh as it is, and is not made again);
+    0.5 above that."""
+    if fineness <= 0.5:
+        return fineness
+    return fineness / RATIO**2 if fineness <= 1.0 else 0.5
+
+
 def first_mesh_dofs(case, fineness: float) -> tuple[int, object]:
-    """Estimate the unknowns of the first mesh before making it: a pilot mesh at fineness ≤ 0.5
-    (a few thousand unknowns), its bulk part (8/√3·A/h², P2 on equilateral triangles) scaled by
-    the fineness squared and the rest (feature refinement, which grows at most linearly with the
-    fineness) by the fineness. Measured 0.84–1.13× the real count (two demo and two verification
-    cases at fineness 1 and 3): not a strict bound, a first mesh may pass max_dofs by about a fifth.
-    Returns the estimate and, when the pilot is the first mesh itself (fineness ≤ 0.5), that mesh."""
-    fp = min(fineness, 0.5)
+    """Estimate the unknowns of the first mesh before making it: a pilot mesh at fineness ≤ 0.51
+    (:func:`pilot_fineness`: a few thousand unknowns), its bulk part (8/√3·A/h², P2 on equilateral
+    triangles) scaled by the fineness squared and the rest (feature refinement, which grows at most
+    linearly with the fineness) by the fineness. Measured 0.84–1.13× the real count (two demo and
+    two verification cases at fineness 1 and 3): not a strict bound, a first mesh may pass max_dofs
+    by about a fifth. Returns the estimate and the pilot mesh (the first mesh itself when its
+    fineness is the first mesh's; see :func:`_refine` for its other use)."""
+    fp = pilot_fineness(fineness)
     pilot = mesh_section(case.section, MeshOptions(fineness=fp))
     n = int(pilot.mesh.p.shape[1])
     if fp == fineness:
@@ -182,7 +193,7 @@ def first_mesh_dofs(case, fineness: float) -> tuple[int, object]:
     A = float(pilot.boundary.integrals["A"])
     bulk = min(n, 8.0 / math.sqrt(3.0) * A / pilot.h_global**2)
     k = fineness / fp
-    return int(bulk * k**2 + (n - bulk) * k), None
+    return int(bulk * k**2 + (n - bulk) * k), pilot
 
 
 def _next_dofs_from_field(sol: Solution, sizes: np.ndarray) -> float:
@@ -241,8 +252,12 @@ def refine_to_accuracy(case, target: float, max_dofs: int, fineness: float | Non
     return study
 
 
-def _refine(case, target, max_dofs, f0, fits, LimitError, max_seconds, first=None) -> Study:
-    sol = solve_on(case, f0, mesh=first)
+def _refine(case, target, max_dofs, f0, fits, LimitError, max_seconds, pilot=None) -> Study:
+    # the pilot is the first mesh (same fineness) or, when no adaptive step changes the first mesh,
+    # the study's coarsest one (fineness f0/RATIO², no size field): made once, used where it fits
+    same = pilot is not None and pilot.options.fineness == f0
+    sol = solve_on(case, f0, mesh=pilot if same else None)
+    spare = None if same else pilot
     h_max = sol.mesh.h_global
     study = Study([], target, max_dofs)
     # the final steps (warping check, stresses) cost about one more solve on the finest mesh
@@ -274,7 +289,9 @@ def _refine(case, target, max_dofs, f0, fits, LimitError, max_seconds, first=Non
 
     def scaled(s):
         if field_ is None:
-            return solve_on(case, fine / s)
+            f = fine / s
+            made = spare if spare is not None and spare.options.fineness == f else None
+            return solve_on(case, f, mesh=made)
         tri, sz = field_
         return solve_on(case, fine / s, (tri, sz * s))
 

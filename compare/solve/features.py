@@ -18,7 +18,8 @@ Where the last three values do not converge monotonically, one more mesh (finene
 the coarsest dropped, until they do or a limit stops it (:data:`MAX_DOFS`, the case's
 ``analysis.max_dofs`` and ``analysis.max_seconds``; ``limited`` says which); then the bound is
 :data:`SPREAD_FACTOR` times the largest spread of the last three values from the finest
-(``gci_kind = "spread"``). Identical features are solved once. Numbers and records only.
+(``gci_kind = "spread"``). Identical features are solved once, a step down and a step up of the same
+diameters and fillet included (one meridian model, positions mirrored). Numbers and records only.
 """
 from __future__ import annotations
 
@@ -154,13 +155,16 @@ def study_feature(f: Feature, poisson: float | None = None, fineness=None, cache
     """Solve ``f`` in the three loads on the meshes of ``fineness`` (coarse to fine, ratio 2; default
     :data:`FINENESS`), refined further where needed (module docstring) within ``max_dofs`` (at most
     :data:`MAX_DOFS`) and ``max_seconds`` (the case's analysis limits). Returns {load: record}; an empty
-    dict for a skipped feature. ``cache`` (a dict) reuses the solution of a feature of the same geometry."""
+    dict for a skipped feature. ``cache`` (a dict) reuses the solution of a feature of the same geometry,
+    whichever way it faces: a step down (larger diameter on the left) has the very meridian model of
+    the step up (:func:`profile_of` does not depend on the side), only its positions along the shaft
+    run the other way (:func:`model_to_shaft`)."""
     if f.skipped:
         return {}
     fineness = FINENESS if fineness is None else tuple(fineness)
     key = (f.kind, f.d, f.D, f.radius, f.depth, f.width, f.bore, f.step_down, f.at, poisson, fineness, max_dofs,
            max_seconds)
-    geo = key[:8] + key[9:]  # everything but the place
+    geo = key[:7] + key[9:]  # everything but the place and the side it faces
     if cache is not None and geo in cache:
         return _moved(cache[geo], f)
     out = _study(f, poisson, fineness, max_dofs, max_seconds)
@@ -170,16 +174,24 @@ def study_feature(f: Feature, poisson: float | None = None, fineness=None, cache
 
 
 def _moved(entry, f: Feature) -> dict:
-    """A cached study moved to the place of ``f`` (same geometry and orientation)."""
-    at0, _, out = entry
-    dz = f.at - at0
+    """A cached study moved to the place of ``f`` (same geometry; facing the same way or the other:
+    a position ``a`` of the cached feature at ``at0`` is ``f.at ± (a − at0)``)."""
+    at0, down0, out = entry
+    if down0 == f.step_down:
+        dz = f.at - at0
+
+        def move(a):
+            return a + dz
+    else:
+        def move(a):
+            return f.at - (a - at0)
     res = {}
     for load, rec in out.items():
         r = {**rec}
-        r["peak"] = {**rec["peak"], "at": rec["peak"]["at"] + dz}
-        r["peak_von_mises"] = {**rec["peak_von_mises"], "at": rec["peak_von_mises"]["at"] + dz}
-        r["map"] = {**rec["map"], "at": [z + dz for z in rec["map"]["at"]]}
-        r["components"] = {**rec["components"], "at": rec["components"]["at"] + dz}
+        r["peak"] = {**rec["peak"], "at": move(rec["peak"]["at"])}
+        r["peak_von_mises"] = {**rec["peak_von_mises"], "at": move(rec["peak_von_mises"]["at"])}
+        r["map"] = {**rec["map"], "at": [move(z) for z in rec["map"]["at"]]}
+        r["components"] = {**rec["components"], "at": move(rec["components"]["at"])}
         res[load] = r
     return res
 

@@ -3,8 +3,8 @@ Whole-process CPU seconds (user + system of the child process, imports included)
 REPEATS runs, printed beside the target. The machine is shared: compare CPU seconds, not wall
 seconds, and run before and after a change alternately.
 
-    python tests/benchmarks/bench_reference.py targets [REPEATS]   # the workload against the targets
-    python tests/benchmarks/bench_reference.py phases CASE [--no-report]   # CPU shares of one run's phases
+    python tests/benchmarks/bench_reference.py targets [REPEATS] [--compile]   # the workload against the targets
+    python tests/benchmarks/bench_reference.py phases CASE [--no-report] [--compile]   # CPU shares of one run's phases
 
 targets:
 - gear-seat demo (cases/conveyor_gear_seat.toml) with --no-report, and with the report;
@@ -13,6 +13,17 @@ targets:
 - keyed-shaft sweep at the 1 % target (tests/benchmarks/sweep_case.toml, the keyseat fillet varied):
   CPU per variant on one worker, from two sweeps of different length (the difference over the
   difference in variants, so the start-up of the process and of Dask is not counted).
+Bytecode: the children run with Python's bytecode cache in a directory of their own under the
+temporary directory (PYTHONPYCACHEPREFIX; warmed by one untimed import first), as an installed
+program runs; with ``--compile`` they run as this process does (where PYTHONDONTWRITEBYTECODE is
+set, every run compiles the project's modules again: about 0.3 CPU s, measured).
+Measured (issue 24, second pass; medians of five alternating runs each, warm bytecode cache, CPU s
+before → after; details and the phase shares in docs/speed.md): gear seat --no-report 2.54 → 2.83
+(the same code path; an alternating check of five pairs gave 2.94 → 2.85), with the report 5.23 →
+6.03 (load), spline 19.30 → 12.84, countershaft layout 31.18 → 23.52, keyed sweep per variant
+0.62 → 0.63. Phase shares before → after, spline: meshing 62 → 39 %, torsion 8 → 13 %, shear
+functions 10 → 15 %, writing 7 → 12 %; countershaft: shoulder studies 77 → 72 %, stations 16 → 18 %;
+gear seat: imports 21 → 19 %, meshing 29 → 30 %, study 58 → 59 %.
 phases: one run under cProfile with a CPU-time clock; the share of imports, meshing, the linear
 solves and the rest of the FE work, the accuracy study's bookkeeping, the checks, the report's
 figures and the file writing (imports made later, such as matplotlib's, count in the phase that makes them). The profiler's own cost inflates Python-heavy phases (figures most).
@@ -42,9 +53,22 @@ SWEEP_TARGET = 0.25  # CPU s of work per variant at the 1 % target
 SWEEP_SHORT, SWEEP_LONG = 4, 12  # variants of the two sweeps whose difference gives the cost per variant
 
 
+#: environment of the timed children (see the module docstring, 'Bytecode')
+CHILD_ENV: dict | None = None
+
+
+def _bytecode_cache() -> dict:
+    env = dict(os.environ)
+    env.pop("PYTHONDONTWRITEBYTECODE", None)
+    env["PYTHONPYCACHEPREFIX"] = str(Path(tempfile.gettempdir()) / "shaftcheck-bench-pycache")
+    subprocess.run([sys.executable, "-c", "import compare.cli, compare.sweep, compare.output.figures"],
+                   cwd=ROOT, env=env, capture_output=True)  # warm the cache, untimed
+    return env
+
+
 def _cpu(cmd: list[str]) -> tuple[float, int]:
     before = resource.getrusage(resource.RUSAGE_CHILDREN)
-    p = subprocess.run(cmd, capture_output=True, text=True, cwd=ROOT)
+    p = subprocess.run(cmd, capture_output=True, text=True, cwd=ROOT, env=CHILD_ENV)
     after = resource.getrusage(resource.RUSAGE_CHILDREN)
     return (after.ru_utime + after.ru_stime) - (before.ru_utime + before.ru_stime), p.returncode
 
@@ -95,6 +119,8 @@ PHASES = [
     ("adaptive indicator (shear peaks included)", [("compare.solve.accuracy", "indicator")]),
     ("study: refinement and every mesh (all of the above)", [("compare.pairs.analysis", "refine_to_accuracy")]),
     ("checks (combined stress, fatigue)", [("compare.pipeline", "combined_step")]),
+    ("layout: shoulder and groove studies (meridian FE)", [("compare.pairs.feature_step", "study_feature")]),
+    ("layout: beam, stations and their section runs", [("compare.pipeline", "layout_step")]),
     ("whole analysis (study, pairs, checks)", [("compare.cli.cmd_run", "analyse")]),
     ("report figures", [("compare.output.figures", "all_figures")]),
     ("writing the files (VTU, report text)", [("compare.cli.cmd_run", "write_outputs")]),
@@ -134,7 +160,8 @@ def phases(case: str, extra: list[str]) -> None:
     out = Path(tempfile.mkdtemp()) / "o"
     try:
         p = subprocess.run([sys.executable, "-c", _PHASE_CHILD, json.dumps(PHASES), "run", str(Path(case).resolve()),
-                            "--out", str(out), "--quiet", *extra], cwd=ROOT, capture_output=True, text=True)
+                            "--out", str(out), "--quiet", *extra], cwd=ROOT, capture_output=True, text=True,
+                           env=CHILD_ENV)
     finally:
         shutil.rmtree(out.parent, ignore_errors=True)
     r = json.loads(p.stdout.strip().splitlines()[-1])
@@ -148,10 +175,13 @@ def phases(case: str, extra: list[str]) -> None:
 
 if __name__ == "__main__":
     os.environ.setdefault("PYTHONHASHSEED", "0")
-    what = sys.argv[1] if len(sys.argv) > 1 else "targets"
+    argv = [a for a in sys.argv if a != "--compile"]
+    if "--compile" not in sys.argv:
+        CHILD_ENV = _bytecode_cache()
+    what = argv[1] if len(argv) > 1 else "targets"
     if what == "targets":
-        targets(int(sys.argv[2]) if len(sys.argv) > 2 else 3)
-    elif what == "phases" and len(sys.argv) > 2:
-        phases(sys.argv[2], sys.argv[3:])
+        targets(int(argv[2]) if len(argv) > 2 else 3)
+    elif what == "phases" and len(argv) > 2:
+        phases(argv[2], argv[3:])
     else:
         sys.exit(__doc__)
