@@ -104,8 +104,9 @@ def test_spherical_cavity_goodier():
     """Spherical cavity on the axis of a bar in tension against Goodier's exact factor
     (27 − 15ν)/(2(7 − 5ν)) (J. Appl. Mech. 1, 1933), at two cavity sizes: the finite-domain effect
     (the difference between the two) is small beside the discretisation error, which on these
-    affordable meshes puts the boundary peak 5–8 % high (measured here: 2.20 at 52k unknowns, 2.16
-    at 108k and 2.11 at 355k for a/d = 0.05, falling towards the exact value)."""
+    affordable meshes puts the boundary peak 3–9 % high (measured with the node-averaged reading for
+    a/d = 0.05: 2.17, 2.23, 2.12, 2.12 at 19k, 34k, 78k, 182k unknowns; the mean along the equator
+    is 2.06–2.07, the largest of the scattered nodal values sits high)."""
     exact = spherical_cavity_kt(NU)
     kts = []
     for a_d in (0.05, 0.035):
@@ -146,3 +147,24 @@ def test_features_are_cut_and_meshed(feature):
     assert 0 < plain - vol < D * D * (b - a), (plain, vol)
     mid = sm.mesh.p[:, sm.mesh.facets[:, sm.lateral]].mean(axis=1)
     assert np.any(np.abs(np.hypot(mid[0], mid[1]) - D / 2) > 1e-3 * D)
+
+
+def test_plain_bar_recovered_surface_stresses(plain):
+    """The surface stress averaged at the boundary nodes (the reading of every factor) equals the
+    exact plain-bar stress (Timoshenko & Goodier, 3rd ed.): to 1e-3 in tension (a linear field) and
+    within the raw element values' bound otherwise; averaging brings the largest error down (or
+    keeps it), never up beyond the raw one, and the factor read from it is 1 within that bound."""
+    sm, res = plain
+    bound = {"tension": 1e-3, "bending_x": 0.1, "bending_y": 0.1, "torsion": 0.1}
+    for load, r in res.items():
+        amount = 1e-3 if load == "tension" else 1e-3 / D
+        npts, nsig = solid.recovered_surface_stresses(sm, r.points, r.stress)
+        ex = _exact_stress(load, npts, amount)
+        err = float(np.max(np.abs(nsig - ex))) / r.nominal
+        raw = float(np.max(np.abs(r.stress - _exact_stress(load, r.points, amount)))) / r.nominal
+        got = {"fem": r.factor, "exact": 1.0}
+        print(f"{load}: averaged error {err:.2e}, raw {raw:.2e} of the nominal; factor {r.factor:.4f} (raw {r.factor_raw:.4f})")
+        assert err < bound[load] and err <= raw * (1 + 1e-9), (load, err, raw)
+        assert got["fem"] == pytest.approx(got["exact"], abs=bound[load]), (load, got)
+        # every averaged node sits on the lateral surface of the bar (r = d/2)
+        assert np.allclose(np.hypot(npts[0], npts[1]), D / 2, rtol=1e-6, atol=0)

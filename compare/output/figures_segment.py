@@ -15,7 +15,7 @@ import matplotlib.pyplot as plt  # noqa: E402
 import numpy as np  # noqa: E402
 
 from ..case.units import from_si  # noqa: E402
-from ..solve.segment_superpose import MODEL_ANGLE, superpose, von_mises  # noqa: E402
+from ..solve.segment_superpose import MODEL_ANGLE, superpose, surface_points, surface_stress, von_mises  # noqa: E402
 from .figures import CMAP, INK, STYLE, Figure  # noqa: E402
 from .report import Fmt  # noqa: E402
 
@@ -53,7 +53,7 @@ def _unrolled(ax, fig, pts, values, peak: int, d: float, k: float, z0: float, z1
 
 
 def _vm_over_nominal(r) -> np.ndarray:
-    return von_mises(np.asarray(r.stress)) / abs(r.nominal)
+    return von_mises(np.asarray(surface_stress(r))) / abs(r.nominal)
 
 
 def segment_case_figure(a, f: Fmt) -> Figure | None:
@@ -76,10 +76,10 @@ def segment_case_figure(a, f: Fmt) -> Figure | None:
         for ax, load in zip(axes[:, 0], loads):
             r = st.finest[load]
             v = _vm_over_nominal(r)
-            zs = np.asarray(r.points)[2]
+            zs = np.asarray(surface_points(r))[2]
             inside = (zs > 0.375 * seg.d) & (zs < seg.length - 0.375 * seg.d)
             peak = int(np.argmax(np.where(inside, v, -np.inf)))
-            _unrolled(ax, fig, np.asarray(r.points), v, peak, seg.d, k, a0, b0, MODEL_ANGLE.get(feat.kind, 0.0), 0.0,
+            _unrolled(ax, fig, np.asarray(surface_points(r)), v, peak, seg.d, k, a0, b0, MODEL_ANGLE.get(feat.kind, 0.0), 0.0,
                       "von Mises / nominal [1]", unit,
                       f"{names[load]}: largest von Mises / nominal {v[peak]:.3g} (finest mesh)")
         return Figure("segment_surface", "Stress on the segment's surface near the feature (finest 3-D mesh), unrolled "

@@ -10,7 +10,7 @@ import numpy as np
 from fem.export import centroid_values, nodal_gradient, write_vtu
 
 from ..checks.fields import nodal_fields
-from ..solve.segment_superpose import LOADS, superpose, von_mises
+from ..solve.segment_superpose import LOADS, superpose, surface_stress, von_mises
 
 #: nodal fields of :func:`compare.checks.fields.nodal_fields` written to the VTU, with their VTU names
 MAPPED = {"sigma": "worst_sigma", "tau_zx": "worst_tau_zx", "tau_zy": "worst_tau_zy", "von_mises": "worst_von_mises",
@@ -48,18 +48,19 @@ def write_fields_vtu(path: Path, a) -> None:
 
 
 def segment_vtu_bytes(a) -> bytes:
-    """The 3-D segment's finest-mesh surface sample points (every lateral facet's sample points, as
-    vertices) with the von Mises stress over the load's nominal stress for each load: the stress on
-    the surface near the feature, per unit nominal stress. Returned as the bytes of a VTU file."""
+    """The 3-D segment's finest-mesh lateral boundary nodes (as vertices) with the von Mises stress
+    over the load's nominal stress for each load, from the stress averaged at the nodes (the one the
+    factors are read from): the stress on the surface near the feature, per unit nominal stress.
+    Returned as the bytes of a VTU file."""
     finest = a.extra["segment"]["study"].finest
     first = next(iter(finest.values()))
     data = {}
     for load, r in finest.items():
-        s = r.stress
+        s = r.node_stress
         vm = np.sqrt(0.5 * ((s[0, 0] - s[1, 1]) ** 2 + (s[1, 1] - s[2, 2]) ** 2 + (s[2, 2] - s[0, 0]) ** 2)
                      + 3.0 * (s[0, 1] ** 2 + s[1, 2] ** 2 + s[2, 0] ** 2))
         data[f"von_mises_over_nominal_{load}"] = vm / abs(r.nominal)
-    pts = np.asarray(first.points).T
+    pts = np.asarray(first.node_points).T
     with tempfile.TemporaryDirectory() as d:
         path = Path(d) / "segment.vtu"
         meshio.Mesh(pts, [("vertex", np.arange(len(pts)).reshape(-1, 1))], point_data=data).write(path)
@@ -116,7 +117,7 @@ def layout_segment_vtu_bytes(a) -> bytes | None:
         data["von_mises"].append(sp.vm_peak)
         for k in LOADS:
             r = local["study"].finest[k]
-            data[f"von_mises_over_nominal_{k}"].append(von_mises(np.asarray(r.stress))[fl.keep] / abs(r.nominal))
+            data[f"von_mises_over_nominal_{k}"].append(von_mises(np.asarray(surface_stress(r)))[fl.keep] / abs(r.nominal))
     if not pts:
         return None
     xyz = np.vstack(pts)

@@ -75,6 +75,18 @@ def _rot(deg: float) -> np.ndarray:
     return np.array([[c, -s, 0.0], [s, c, 0.0], [0.0, 0.0, 1.0]])
 
 
+def surface_points(r):
+    """The surface points the factors are read at: the lateral boundary's nodes with the nodal-averaged
+    stress where the solver gives them (fem.solid.recovered_surface_stresses), else the sample points."""
+    node = getattr(r, "node_points", None)
+    return r.points if node is None else node
+
+
+def surface_stress(r):
+    node = getattr(r, "node_stress", None)
+    return r.stress if node is None else node
+
+
 def unit_fields(finest: dict, d: float, length: float, turn: float = 0.0, end_zone: float = 0.375) -> UnitFields:
     """From the finest mesh's results {load: SolidResult} (or any object with ``load``, ``points``,
     ``stress``), the stress per unit N, Mx, My, T, turned by ``turn`` degrees about the shaft axis
@@ -83,12 +95,12 @@ def unit_fields(finest: dict, d: float, length: float, turn: float = 0.0, end_zo
     missing = [k for k in LOADS if k not in finest]
     if missing:
         raise ValueError(f"the segment study has no {', '.join(missing)} result")
-    pts = np.asarray(finest["tension"].points, float)
+    pts = np.asarray(surface_points(finest["tension"]), float)
     for k in LOADS:
-        if np.asarray(finest[k].points).shape != pts.shape or not np.allclose(finest[k].points, pts, rtol=0,
-                                                                                atol=1e-12 * d):
+        if np.asarray(surface_points(finest[k])).shape != pts.shape or not np.allclose(surface_points(finest[k]), pts, rtol=0,
+                                                                                  atol=1e-12 * d):
             raise ValueError("the unit-load results are not on the same surface points")
-    per = {k: np.asarray(finest[k].stress, float) / float(finest[k].load) for k in LOADS}
+    per = {k: np.asarray(surface_stress(finest[k]), float) / float(finest[k].load) for k in LOADS}
     R = _rot(turn)
     c, s = math.cos(math.radians(turn)), math.sin(math.radians(turn))
     # a unit moment (Mx, My) of the station is R(−turn)·(Mx, My) in the model; the model's bending_y
