@@ -33,23 +33,12 @@ import math
 from dataclasses import dataclass, field
 
 import numpy as np
-from skfem import Basis, CellBasis, ElementTriP2, Functional, condense
+from skfem import Basis, CellBasis, ElementTriP2, condense
 
 from . import forms
 from .bases import interpolate
 from .composite import CompositeMesh, RegionPeak, WeightedProperties, _at_points, _facet_stresses, _per_element
 from .linalg import solve_spd
-
-
-@Functional
-def _moment_density(w):
-    """x·τzy − y·τzx for the stress (τzx, τzy) passed as ``tx``, ``ty`` (centroidal x, y)."""
-    return w.x[0] * w["ty"] - w.x[1] * w["tx"]
-
-
-@Functional
-def _component(w):
-    return w["t"]
 
 
 def _lattice(n: int) -> np.ndarray:
@@ -120,12 +109,12 @@ def composite_shear(cm: CompositeMesh, E, G, nu, props: WeightedProperties) -> C
     reg = np.repeat(cm.region_of[:, None], xq.shape[-1], axis=1)
     (ax, ay), (bx, by) = out.unit_stresses(xq + np.array([cx, cy])[:, None, None], interpolate(basis, psi).grad,
                                            interpolate(basis, phi).grad, reg)
-    Mx = float(_moment_density.assemble(basis, tx=ax, ty=ay))  # Vx = 1 acting at y = ys gives −ys
-    My = float(_moment_density.assemble(basis, tx=bx, ty=by))  # Vy = 1 acting at x = xs gives xs
+    Mx = float(forms.shear_moment.assemble(basis, tx=ax, ty=ay))  # Vx = 1 acting at y = ys gives −ys
+    My = float(forms.shear_moment.assemble(basis, tx=bx, ty=by))  # Vy = 1 acting at x = xs gives xs
     out.centre = (My + cx, -Mx + cy)
     out.resultant_residual = {
-        "Vx": [float(_component.assemble(basis, t=ax)) - 1.0, float(_component.assemble(basis, t=ay))],
-        "Vy": [float(_component.assemble(basis, t=bx)), float(_component.assemble(basis, t=by)) - 1.0],
+        "Vx": [float(forms.field_integral.assemble(basis, t=ax)) - 1.0, float(forms.field_integral.assemble(basis, t=ay))],
+        "Vy": [float(forms.field_integral.assemble(basis, t=bx)), float(forms.field_integral.assemble(basis, t=by)) - 1.0],
     }
     return out
 

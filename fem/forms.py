@@ -351,3 +351,16 @@ def derivative_product(a: int, b: int):
         return grad(u)[a] * grad(v)[b]
 
     return form
+
+
+@Functional
+def shear_moment(w):
+    """∫ (x·τzy − y·τzx) dA for a shear stress (τzx, τzy) passed as ``tx``, ``ty`` (centroidal x, y):
+    the moment of a shear-stress field about the origin (the shear centre's condition)."""
+    return w.x[0] * w["ty"] - w.x[1] * w["tx"]
+
+
+@Functional
+def field_integral(w):
+    """∫ t dA of a field passed as ``t`` (a shear-stress component: its resultant)."""
+    return w["t"]

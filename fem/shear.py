@@ -32,17 +32,6 @@ _NODES = np.array([[0.0, 1.0, 0.0, 0.5, 0.5, 0.0, 1 / 3], [0.0, 0.0, 1.0, 0.0, 0
 
 
 @Functional
-def _moment_density(w):
-    """x·τzy − y·τzx for the stress (τzx, τzy) passed as ``tx``, ``ty`` (centroidal x, y)."""
-    return w.x[0] * w["ty"] - w.x[1] * w["tx"]
-
-
-@Functional
-def _component(w):
-    return w["t"]
-
-
-@Functional
 def _dot(w):
     return w["ax"] * w["bx"] + w["ay"] * w["by"]
 
@@ -123,13 +112,13 @@ def solve_shear(sm: SectionMesh, props: AreaMoments, nu: float) -> ShearResult:
                       psi, phi, basis, delta=2 * (1 + nu) * (Ixx * Iyy - Ixy**2), I=(Ixx, Iyy, Ixy))
     (ax, ay), (bx, by) = res.unit_stresses_at(basis)
     # shear centre: moment of each unit field about the centroid
-    Mx = float(_moment_density.assemble(basis, tx=ax, ty=ay))  # Vx = 1 acting at y = ys gives −ys
-    My = float(_moment_density.assemble(basis, tx=bx, ty=by))  # Vy = 1 acting at x = xs gives xs
+    Mx = float(forms.shear_moment.assemble(basis, tx=ax, ty=ay))  # Vx = 1 acting at y = ys gives −ys
+    My = float(forms.shear_moment.assemble(basis, tx=bx, ty=by))  # Vy = 1 acting at x = xs gives xs
     res.centre = (My + xc, -Mx + yc)
     # equilibrium: the unit fields integrate to the unit forces
     res.resultant_residual = {
-        "Vx": [float(_component.assemble(basis, t=ax)) - 1.0, float(_component.assemble(basis, t=ay))],
-        "Vy": [float(_component.assemble(basis, t=bx)), float(_component.assemble(basis, t=by)) - 1.0],
+        "Vx": [float(forms.field_integral.assemble(basis, t=ax)) - 1.0, float(forms.field_integral.assemble(basis, t=ay))],
+        "Vy": [float(forms.field_integral.assemble(basis, t=bx)), float(forms.field_integral.assemble(basis, t=by)) - 1.0],
     }
     A = props.area
     axx = A * float(_dot.assemble(basis, ax=ax, ay=ay, bx=ax, by=ay))
@@ -204,7 +193,7 @@ def shear_peak(sm: SectionMesh, sr: ShearResult, Vx: float, Vy: float, moment: b
         return ShearPeak(val, at, on_b, normal, float("nan"))
     # moment of the combined field about the shear centre (vanishes by construction of the centre)
     tx, ty = sr.stress(Vx, Vy)
-    M = float(_moment_density.assemble(sr.basis, tx=tx, ty=ty))
+    M = float(forms.shear_moment.assemble(sr.basis, tx=tx, ty=ty))
     sx, sy = sr.centre[0] - xc, sr.centre[1] - yc
     M_sc = M - (sx * Vy - sy * Vx)
     V = float(np.hypot(Vx, Vy)) or 1.0
