@@ -147,8 +147,8 @@ for label, places in phases:
     for mod, name in places:
         m = importlib.import_module(mod)
         setattr(m, name, timed(label, getattr(m, name)))
-main(sys.argv[2:])
-print(json.dumps(dict(imports=imports, spent=spent, total=time.process_time())))
+code = main(sys.argv[2:])
+print(json.dumps(dict(imports=imports, spent=spent, total=time.process_time(), code=code)))
 """
 
 
@@ -157,6 +157,8 @@ def phases(case: str, extra: list[str]) -> None:
     profiler: its own cost would inflate the Python-heavy phases); a phase may contain another."""
     import json
 
+    if not Path(case).is_file():
+        sys.exit(f"phases: no case file {case!r} (give the case's path, e.g. cases/countershaft_layout.toml)")
     out = Path(tempfile.mkdtemp()) / "o"
     try:
         p = subprocess.run([sys.executable, "-c", _PHASE_CHILD, json.dumps(PHASES), "run", str(Path(case).resolve()),
@@ -164,9 +166,12 @@ def phases(case: str, extra: list[str]) -> None:
                            env=CHILD_ENV)
     finally:
         shutil.rmtree(out.parent, ignore_errors=True)
-    r = json.loads(p.stdout.strip().splitlines()[-1])
+    lines = p.stdout.strip().splitlines()
+    if p.returncode != 0 or not lines:
+        sys.exit(f"phases: the run failed (exit {p.returncode}): {(p.stderr.strip().splitlines() or [''])[-1]}")
+    r = json.loads(lines[-1])
     total = r["total"]
-    print(f"{case} {' '.join(extra)}: {total:.2f} CPU s in the process (exit {p.returncode})")
+    print(f"{case} {' '.join(extra)}: {total:.2f} CPU s in the process (main() returned {r['code']})")
     print(f"  {'imports at start (import compare.cli)':52s} {r['imports']:6.2f} s {100 * r['imports'] / total:5.1f} %")
     for label, _ in PHASES:
         c = r["spent"].get(label, 0.0)
