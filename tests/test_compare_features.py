@@ -329,6 +329,47 @@ def test_refinement_continues_until_monotone_and_stops_at_a_limit_saying_so(monk
     assert text.startswith("FEATURE FACTOR BOUNDED BY ITS SPREAD") and "analysis.max_dofs = 20000" in text
 
 
+def test_a_non_monotone_study_stops_once_its_spread_bound_is_within_the_target(monkeypatch):
+    # the bound is SPREAD_FACTOR (3, Roache, J. Fluids Eng. 116, 1994) × the spread of the last three values
+    # from the finest; the study stops as soon as that is within the case's accuracy target
+    kts = {1.0: 1.5000, 2.0: 1.4990, 4.0: 1.4995, 8.0: 1.4993, 16.0: 1.49925}  # spread 5e-4/1.4995 at 1, 2, 4
+    monkeypatch.setattr(features.axisym, "solve_profile",
+                        lambda mm, load, E, nu: SimpleNamespace(kt=kts[mm], dofs=int(1000 * mm**2)))
+    t0 = time.perf_counter()
+    bound3 = 3 * 5e-4 / 1.4995  # 1.0e-3
+    _, fns, est, limited = features._refined(lambda fn: fn, "torsion", (1.0, 2.0, 4.0), 0.3, 10**9, None, t0,
+                                             target=0.01)
+    assert fns == [1.0, 2.0, 4.0] and limited is None and est["ended_by"] == "spread_within_target"
+    assert est["kind"] == "spread" and est["bound"] == pytest.approx(bound3) and "accuracy target" in est["why"]
+    # a target below that: one more mesh (1.4990, 1.4995, 1.4993: still not monotone, spread 3e-4, bound 6.0e-4)
+    _, fns, est, _ = features._refined(lambda fn: fn, "torsion", (1.0, 2.0, 4.0), 0.3, 10**9, None, t0,
+                                       target=8e-4)
+    assert fns == [1.0, 2.0, 4.0, 8.0] and est["ended_by"] == "spread_within_target"
+    assert est["bound"] == pytest.approx(3 * 3e-4 / 1.4993)
+    # no target (the rule before): refined until monotone (1.4995, 1.4993, 1.49925)
+    _, fns, est, _ = features._refined(lambda fn: fn, "torsion", (1.0, 2.0, 4.0), 0.3, 10**9, None, t0)
+    assert fns == [1.0, 2.0, 4.0, 8.0, 16.0] and est["ended_by"] == "monotone" and est["converged"]
+    # a limit before the target is met says so
+    _, fns, est, limited = features._refined(lambda fn: fn, "torsion", (1.0, 2.0, 4.0), 0.3, 20000, None, t0,
+                                             target=1e-3)
+    assert fns == [1.0, 2.0, 4.0] and est["ended_by"] == "limit" and "analysis.max_dofs" in limited
+
+
+def test_the_target_rule_ends_a_real_study_at_its_first_three_meshes(monkeypatch):
+    """On real meshes: with a loose target each load ends on the first three meshes, with the factor and
+    bound those three give (the study without a target, cut there), and the record says which rule ended it."""
+    monkeypatch.setattr(features, "FINENESS", (0.5, 1.0, 2.0))
+    f = Feature("shoulder", 0.100, 0.030, 0.036, 0.003, "shaft.segments[1].fillet")
+    full = features.study_feature(f, 0.3)
+    loose = features.study_feature(f, 0.3, target=0.4)
+    for load, rec in loose.items():
+        vals = full[load]["values_coarse_to_fine"]
+        est = features.error_bound(vals[:3], 2.0)
+        assert rec["values_coarse_to_fine"] == vals[:3] and rec["kt"] == vals[2] and rec["gci"] == est["bound"]
+        assert rec["ended_by"] == ("monotone" if est["converged"] else "spread_within_target")
+        assert full[load]["ended_by"] in ("monotone", "limit")
+
+
 def test_a_step_down_reuses_the_step_up_study_with_its_positions_mirrored(monkeypatch):
     """A step down has the meridian model of the step up of the same diameters and fillet: the cached
     study is reused (one study for both) and equals, number for number, a fresh study of the step

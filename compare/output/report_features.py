@@ -33,6 +33,9 @@ def feature_lines(res: dict, f) -> list[str]:
                          f"peak at {f.q(pk.get('at'), 'length', 5)}{ang}")
             if r.get(f"{key}_limited"):
                 lines.append(f"      {'':<12} refinement stopped: {r[f'{key}_limited']}")
+            elif r.get(f"{key}_ended_by") == "spread_within_target":
+                lines.append(f"      {'':<12} not monotone on its last three meshes; refinement ended: 3 × their "
+                             "spread is within the accuracy target")
     return lines
 
 

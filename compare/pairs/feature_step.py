@@ -78,7 +78,7 @@ def feature_record(f: Feature, study: dict) -> dict:
         rec[f"{key}_gci"] = s["gci"] if s else None
         rec[f"{key}_gci_kind"] = s["gci_kind"] if s else None
         rec[f"{key}_order"] = s["order"] if s else None
-        for k in ("order_used", "safety_factor", "gci_why", "limited", "fineness"):
+        for k in ("order_used", "safety_factor", "gci_why", "limited", "ended_by", "fineness"):
             rec[f"{key}_{k}"] = s[k] if s else None
         rec[f"{key}_peak"] = s["peak"] if s else None
         rec[f"{key}_peak_von_mises"] = s["peak_von_mises"] if s else None
@@ -147,7 +147,8 @@ def shaft_features_step(case) -> dict | None:
     records, pairs, cache, studies = [], [], {}, []
     for f in shaft_features(shaft):
         lim = case.analysis
-        study = study_feature(f, nu, cache=cache, max_dofs=lim.max_dofs, max_seconds=lim.max_seconds)
+        study = study_feature(f, nu, cache=cache, max_dofs=lim.max_dofs, max_seconds=lim.max_seconds,
+                              target=lim.accuracy)
         rec = feature_record(f, study)
         records.append(rec)
         studies.append(study)

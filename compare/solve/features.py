@@ -15,10 +15,12 @@ formal] where the sequence is not shown to be asymptotic, and an observed order 
 (:data:`FORMAL_ORDER`) does not shrink the last difference. These meshes are never taken as asymptotic
 (Fs 1.25) and the order is limited further, to :data:`ORDER_LIMIT`: measured, see there.
 Where the last three values do not converge monotonically, one more mesh (fineness × 2) is solved and
-the coarsest dropped, until they do or a limit stops it (:data:`MAX_DOFS`, the case's
-``analysis.max_dofs`` and ``analysis.max_seconds``; ``limited`` says which); then the bound is
-:data:`SPREAD_FACTOR` times the largest spread of the last three values from the finest
-(``gci_kind = "spread"``). Identical features are solved once, a step down and a step up of the same
+the coarsest dropped, until they do, or :data:`SPREAD_FACTOR` times the largest spread of the last three
+values from the finest is already within the case's accuracy target (``target``; the bound the study
+would report anyway, see :data:`STOP_WITHIN_TARGET`), or a limit stops it (:data:`MAX_DOFS`, the case's
+``analysis.max_dofs`` and ``analysis.max_seconds``; ``limited`` says which); without convergence the
+bound is that spread bound (``gci_kind = "spread"``). ``ended_by`` says which rule ended each study
+(:data:`ENDED_BY`). Identical features are solved once, a step down and a step up of the same
 diameters and fillet included (one meridian model, positions mirrored). Numbers and records only.
 """
 from __future__ import annotations
@@ -67,6 +69,18 @@ NEIGHBOUR_REACH = 1.5
 #: Safety factor on the spread of the three values when they do not converge monotonically (the
 #: two-grid factor of Roache, J. Fluids Eng. 116, 1994: 3), as in the section study.
 SPREAD_FACTOR = FS_OSCILLATORY
+#: A study whose last three values do not converge monotonically stops adding meshes once its spread
+#: bound (SPREAD_FACTOR × the spread, the bound it reports) is within this fraction of the case's accuracy
+#: target. 1: the target is the error the case accepts on each studied quantity; the section study stops
+#: at it too (compare/solve/accuracy.py: every targeted GCI within the target), and a spread bound within
+#: it raises no warning (compare/checks/feature_findings.py). A further mesh would only prove a digit the
+#: case did not ask for (the countershaft demo's Kts: spread bounds 1.8e-3 and 1.0e-3 on fineness 1, 2, 4
+#: at a 1 % target, then a fourth mesh of about 100k unknowns). Covered: tests/test_compare_features_coverage.py.
+STOP_WITHIN_TARGET = 1.0
+#: What ended a load's study (results ``<factor>_ended_by``): the last three values converge
+#: monotonically (GCI); they do not, but the spread bound is within the target; a limit stopped the
+#: refinement (``limited`` says which); fewer than three meshes were asked for (no bound).
+ENDED_BY = ("monotone", "spread_within_target", "limit", "fewer_than_three_meshes")
 #: Any modulus: the factors are ratios of stresses and do not depend on it.
 _E = 2.0e11
 
@@ -151,10 +165,13 @@ def model_to_shaft(f: Feature, prof: axisym.Profile, z: float) -> float:
 
 
 def study_feature(f: Feature, poisson: float | None = None, fineness=None, cache: dict | None = None,
-                  max_dofs: int | None = None, max_seconds: float | None = None) -> dict:
+                  max_dofs: int | None = None, max_seconds: float | None = None,
+                  target: float | None = None) -> dict:
     """Solve ``f`` in the three loads on the meshes of ``fineness`` (coarse to fine, ratio 2; default
     :data:`FINENESS`), refined further where needed (module docstring) within ``max_dofs`` (at most
-    :data:`MAX_DOFS`) and ``max_seconds`` (the case's analysis limits). Returns {load: record}; an empty
+    :data:`MAX_DOFS`) and ``max_seconds`` (the case's analysis limits); with ``target`` (the case's
+    ``analysis.accuracy``) a non-monotone study stops once its spread bound is within it
+    (:data:`STOP_WITHIN_TARGET`), without it only convergence or a limit stop it. Returns {load: record}; an empty
     dict for a skipped feature. ``cache`` (a dict) reuses the solution of a feature of the same geometry,
     whichever way it faces: a step down (larger diameter on the left) has the very meridian model of
     the step up (:func:`profile_of` does not depend on the side), only its positions along the shaft
@@ -163,11 +180,11 @@ def study_feature(f: Feature, poisson: float | None = None, fineness=None, cache
         return {}
     fineness = FINENESS if fineness is None else tuple(fineness)
     key = (f.kind, f.d, f.D, f.radius, f.depth, f.width, f.bore, f.step_down, f.at, poisson, fineness, max_dofs,
-           max_seconds)
+           max_seconds, target)
     geo = key[:7] + key[9:]  # everything but the place and the side it faces
     if cache is not None and geo in cache:
         return _moved(cache[geo], f)
-    out = _study(f, poisson, fineness, max_dofs, max_seconds)
+    out = _study(f, poisson, fineness, max_dofs, max_seconds, target)
     if cache is not None:
         cache[geo] = (f.at, f.step_down, out)
     return out
@@ -249,9 +266,10 @@ class _Meshes:
 
 
 def _refined(meshes: _Meshes, load: str, fineness: tuple, nu: float, max_dofs: int, max_seconds: float | None,
-             t0: float):
+             t0: float, target: float | None = None):
     """Solve ``load`` on ``fineness`` and on finer meshes (ratio 2) until the last three values converge
-    monotonically or a limit stops it. Returns (results, fineness used, estimate, limited)."""
+    monotonically, their spread bound is within ``target`` × :data:`STOP_WITHIN_TARGET`, or a limit
+    stops it. Returns (results, fineness used, estimate with ``ended_by`` (:data:`ENDED_BY`), limited)."""
     ratio = fineness[1] / fineness[0]
     fns = list(fineness)
     seconds = []
@@ -266,7 +284,16 @@ def _refined(meshes: _Meshes, load: str, fineness: tuple, nu: float, max_dofs: i
     limited = None
     while True:
         est = error_bound([r.kt for r in results], ratio)
-        if est["converged"] or len(results) < 3:
+        if len(results) < 3:
+            est["ended_by"] = "fewer_than_three_meshes"
+            break
+        if est["converged"]:
+            est["ended_by"] = "monotone"
+            break
+        if target is not None and est["bound"] <= STOP_WITHIN_TARGET * target:
+            est["ended_by"] = "spread_within_target"
+            est["why"] += (f"; SPREAD_FACTOR × the spread is within the case's accuracy target ({target:g}): "
+                           "no further mesh")
             break
         nxt = fns[-1] * ratio
         predicted = results[-1].dofs * (results[-1].dofs / results[-2].dofs)
@@ -280,13 +307,14 @@ def _refined(meshes: _Meshes, load: str, fineness: tuple, nu: float, max_dofs: i
             if spent + 5 * seconds[-1] > max_seconds:  # 4 times the unknowns, a little more than 4 times the time
                 limited = f"the next mesh would end after analysis.max_seconds = {max_seconds:g} s"
         if limited:
+            est["ended_by"] = "limit"
             break
         fns.append(nxt)
         results.append(solve(nxt))
     return results, fns, est, limited
 
 
-def _study(f: Feature, poisson, fineness, max_dofs=None, max_seconds=None) -> dict:
+def _study(f: Feature, poisson, fineness, max_dofs=None, max_seconds=None, target=None) -> dict:
     nu = DEFAULT_POISSON if poisson is None else poisson
     prof = profile_of(f)
     meshes = _Meshes(prof)
@@ -294,7 +322,7 @@ def _study(f: Feature, poisson, fineness, max_dofs=None, max_seconds=None) -> di
     t0 = time.perf_counter()
     out = {}
     for load in axisym.LOADS:
-        results, fns, est, limited = _refined(meshes, load, fineness, nu, limit, max_seconds, t0)
+        results, fns, est, limited = _refined(meshes, load, fineness, nu, limit, max_seconds, t0, target)
         fine = results[-1]
         # the station's FE path superposes the loads point by point, so their components come from one
         # mesh: the study's last common one (the factor itself may come from a finer mesh)
@@ -315,6 +343,8 @@ def _study(f: Feature, poisson, fineness, max_dofs=None, max_seconds=None) -> di
             "safety_factor": est["safety_factor"],
             "status": est["status"],
             "limited": limited,
+            "ended_by": est["ended_by"],
+            "target": target,
             "peak": {"stress_per_nominal": fine.kt, "r": pk.r, "at": model_to_shaft(f, prof, pk.z),
                      "angle": pk.angle},
             "peak_von_mises": {"per_nominal": fine.peak_vm.value / fine.nominal, "r": fine.peak_vm.r,
