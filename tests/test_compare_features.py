@@ -327,6 +327,16 @@ def test_refinement_continues_until_monotone_and_stops_at_a_limit_saying_so(monk
     assert feature_findings(SimpleNamespace(extra={"shaft": {"features": [small]}})) == []
     text = feature_warning_text(w, Fmt(parse_case(BASE | {"section": {"shape": "round", "diameter": 30}}).units))
     assert text.startswith("FEATURE FACTOR BOUNDED BY ITS SPREAD") and "analysis.max_dofs = 20000" in text
+    # monotone meshes whose GCI exceeds the target, no limit: said, with the bound and the target
+    mono = {"field": "shaft.segments[1].fillet", "kt_axial": 2.5369, "kt_axial_gci": 0.011, "kt_axial_limited": None,
+            "kt_axial_gci_kind": "gci", "kt_axial_values_coarse_to_fine": [2.5596, 2.5409, 2.5369], "notes": []}
+    case = SimpleNamespace(analysis=SimpleNamespace(accuracy=0.01))
+    w, = feature_findings(SimpleNamespace(case=case, extra={"shaft": {"features": [mono]}}))
+    assert w["code"] == "feature_target_not_shown" and w["bound"] == 0.011 and w["target"] == 0.01
+    text = feature_warning_text(w, Fmt(parse_case(BASE | {"section": {"shape": "round", "diameter": 30}}).units))
+    assert text.startswith("FEATURE FACTOR ACCURACY TARGET NOT SHOWN") and "1.1 %" in text and "1 %" in text
+    within = {**mono, "kt_axial_gci": 0.009}
+    assert feature_findings(SimpleNamespace(case=case, extra={"shaft": {"features": [within]}})) == []
 
 
 def test_a_non_monotone_study_stops_once_its_spread_bound_is_within_the_target(monkeypatch):

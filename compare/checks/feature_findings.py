@@ -8,6 +8,9 @@
 - a factor whose meshes were not refined until its last three values converged monotonically (a
   limit stopped it: its bound is the spread of the last three values) and whose bound exceeds the
   case's accuracy target;
+- a factor whose bound exceeds the case's accuracy target without a limit (its last three values
+  converge monotonically, but their GCI is larger than the target: the study does not refine further
+  then; the factor's accuracy is not shown to the target);
 - features closer together than the plain length each model assumes (they interact; modelled alone);
 - a station on a feature whose FE path could not be taken from the feature's local stresses: its hand
   path carries the FE Kt, Kts, but its FE path is the plain round section's, which does not see the
@@ -43,6 +46,11 @@ def feature_findings(a) -> list[dict]:
             if rec.get(f"{key}_limited") and (rec.get(f"{key}_gci") is None or rec[f"{key}_gci"] > target):
                 out.append({"code": "feature_refinement_limited", "field": rec["field"], "factor": key,
                             "limited": rec[f"{key}_limited"], "bound": rec.get(f"{key}_gci"),
+                            "values": rec.get(f"{key}_values_coarse_to_fine")})
+            elif rec.get(f"{key}_gci") is not None and rec[f"{key}_gci"] > target:
+                # converged monotonically on its meshes, but its GCI is above what the case asks
+                out.append({"code": "feature_target_not_shown", "field": rec["field"], "factor": key,
+                            "bound": rec[f"{key}_gci"], "target": target,
                             "values": rec.get(f"{key}_values_coarse_to_fine")})
             if rec.get(key) is not None and rec.get(f"{key}_gci") is None:
                 out.append({"code": "feature_no_gci", "field": rec["field"], "factor": key,

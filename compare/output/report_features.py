@@ -83,6 +83,11 @@ def feature_warning_text(w: dict, f) -> str | None:
                 f"gave {', '.join(f'{v:.5f}' for v in w['values'])}, which do not converge monotonically, and refining "
                 f"further was stopped ({w['limited']}); its error bound ({_pct(w['bound'])}) is three times the spread of "
                 "the last three values, not a convergence estimate.")
+    if code == "feature_target_not_shown":
+        return (f"FEATURE FACTOR ACCURACY TARGET NOT SHOWN: {w['field']}, {_NAMES.get(w['factor'], w['factor'])}: the meshes "
+                f"gave {', '.join(f'{v:.5f}' for v in w['values'])}, which converge monotonically, but their error bound "
+                f"({_pct(w['bound'])}) exceeds the target ({_pct(w['target'])}); the study does not refine further, so "
+                "read the factor with that bound.")
     if code == "feature_neighbours":
         return (f"FEATURES INTERACT: {w['field']} has {', '.join(w['neighbours'])} within {f.q(w['length'], 'length', 3)}; "
                 "each is modelled alone on a plain shaft, so their factors ignore each other.")
