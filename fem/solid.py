@@ -778,25 +778,6 @@ def surface_stresses(sm: SolidMesh, basis, x: np.ndarray, E: float, nu: float):
     return pts.reshape(3, -1), sig.reshape(3, 3, -1)
 
 
-def surface_plane_stresses(sm: SolidMesh, basis, x: np.ndarray, E: float, nu: float):
-    """As :func:`surface_stresses`, but the stress read from the surface's own strains: at each
-    sample point the strain is projected on the tangent plane of the (curved) facet,
-    ε_t = P ε P with P = I − n nᵀ (only derivatives of the displacement along the surface enter),
-    and the traction-free surface's plane-stress law gives σ = E/(1 + ν)·(ε_t + ν/(1 − ν)·tr(ε_t) P),
-    so σ n = 0 holds exactly. The normal derivative, the part of the element's gradient the
-    boundary condition fixes only weakly, drops out."""
-    fb = _lateral_basis(sm, basis)
-    g = fb.interpolate(x).grad  # (3, 3, facets, points)
-    eps = 0.5 * (g + np.swapaxes(g, 0, 1))
-    n = fb.normals  # (3, facets, points)
-    P = np.eye(3)[:, :, None, None] - n[:, None] * n[None, :]
-    et = np.einsum("ik...,kl...,lj...->ij...", P, eps, P)
-    tr = np.einsum("ii...->...", et)
-    sig = E / (1 + nu) * (et + nu / (1 - nu) * tr[None, None] * P)
-    pts = fb.global_coordinates().value
-    return pts.reshape(3, -1), sig.reshape(3, 3, -1)
-
-
 def recovered_surface_stresses(sm: SolidMesh, pts: np.ndarray, sig: np.ndarray):
     """The surface stress averaged at the boundary nodes: the element values ``sig`` (3, 3, facets·7)
     at ``pts`` of :func:`surface_stresses` at each lateral facet's three corners and three edge midpoints (the
