@@ -594,7 +594,9 @@ def rigid_body_modes(xyz: np.ndarray) -> np.ndarray:
 class SolidResult:
     """One load on one mesh: the load carried (N [N], M [N·m] or T [N·m]), the nominal stress [Pa],
     the factor and where it sits, the surface sample points (3, n) [m] and their stress tensors
-    (3, 3, n) [Pa], the basis and solution, the number of unknowns."""
+    (3, 3, n) [Pa], the basis and solution, the number of unknowns. A half or quarter model's
+    points, stress, basis and solution are the model's own; its node_points and node_stress cover
+    the whole segment's lateral surface (:func:`mirrored_surface_stresses`)."""
 
     load_case: str
     load: float
