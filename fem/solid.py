@@ -723,7 +723,7 @@ def _mirror_groups(sm: SolidMesh, basis, loads, free: np.ndarray):
     out = []
     for parity, cols in groups.items():
         zero = []
-        for axis, (name, sign) in enumerate(zip(("x", "z"), parity)):
+        for name, sign in zip(("x", "z"), parity):
             normal = 0 if name == "x" else 2
             comps = [normal] if sign > 0 else [c for c in range(3) if c != normal]
             dofs = basis.get_dofs(sm.planes[name]).all()
