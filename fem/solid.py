@@ -56,7 +56,8 @@ Measured on the demo keyseat end (tests/benchmarks/bench_segment_accuracy.py, d 
 fillet 0.6 mm, fineness 0.3; estimates tension / bending x / bending y / torsion): whole segment
 40k/68k/123k unknowns, 149 CPU s, 2.3 GB, 35 / 19 / 1.7 / 2.1 %; quarter model 12k/18k/30k, 41 CPU s,
 1.1 GB, 10 / 9 / 0.8 / 2.1 %; quarter with ``local`` 1.7: 24k/44k/86k, 102 CPU s, 1.6 GB,
-1.3 / 1.8 / 0.6 / 1.6 %; ``local`` 2.5: 48k/95k/201k, 222 CPU s, 3.0 GB, 2.5 / 1.5 / 0.2 / 3.8 %
+1.3 / 1.8 / 0.6 / 1.6 %; ``local`` 2.0: 31k/60k/121k, 158 CPU s, 2.3 GB, 3.7 / 0.7 / 0.7 / 3.5 %;
+``local`` 2.5: 48k/95k/201k, 222 CPU s, 3.0 GB, 2.5 / 1.5 / 0.2 / 3.8 %
 (oscillating by 0.5–1 % between meshes: the nodal scatter on the 0.6 mm fillet). Two readings did
 not pay: the stress from the surface's tangential strains with the plane-stress law read 4–6 % low
 on the coarse meshes and converged slower; a least-squares fit over a patch of facet values around
