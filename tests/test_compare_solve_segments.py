@@ -98,3 +98,18 @@ def test_long_keyseat_mid_length_equals_section_fe():
     assert est["gci"] is not None
     assert abs(got["fem"] - got["exact"]) <= est["gci"] * got["fem"] + ref_err
     assert abs(vals[-1] - ref) < abs(vals[0] - ref)  # the finer mesh is the closer one
+
+
+def test_quarter_model_study_keeps_the_limits():
+    """The half/quarter model keeps analysis.max_dofs (a first mesh above it is refused, naming the
+    limit and the model's own unknowns) and max_seconds (the study stops after its first mesh, with
+    no estimate)."""
+    from fem.errors import LimitError
+    seg = solid.Segment(D, 2.5 * D, (solid.ProfileKeyseat(0.008, 0.004, 1.25 * D - 0.012, 1.25 * D + 0.012, 0.05 * D),))
+    with pytest.raises(LimitError) as e:
+        study_segment(seg, fineness=0.3, symmetry=2, max_dofs=1000)
+    assert "analysis.max_dofs = 1000" in str(e.value)
+    st = study_segment(seg, fineness=0.3, loads=("tension",), symmetry=2, max_seconds=1e-6)
+    assert st.limited and "analysis.max_seconds" in st.limited and len(st.dofs) == 1
+    assert st.estimates["kt_axial"]["gci"] is None
+    assert st.values["kt_axial"] > 1.0  # a keyseat end raises the stress

@@ -168,3 +168,66 @@ def test_plain_bar_recovered_surface_stresses(plain):
         assert got["fem"] == pytest.approx(got["exact"], abs=bound[load]), (load, got)
         # every averaged node sits on the lateral surface of the bar (r = d/2)
         assert np.allclose(np.hypot(npts[0], npts[1]), D / 2, rtol=1e-6, atol=0)
+
+
+def _mirrored(sm, axis, c):
+    """The segment mesh ``sm`` completed by its mirror image in the plane (axis) = c: the nodes on the
+    plane shared, the mirrored tetrahedra re-oriented (a mesh identical by mirror, for the test of
+    the half and quarter models)."""
+    from skfem import MeshTet2
+    b = Basis(sm.mesh, ElementTetP2(), mapping=boundary_mapping(sm.mesh))
+    P, T = np.asarray(b.doflocs), np.asarray(b.element_dofs)
+    on = np.abs(P[axis] - c) < 1e-9 * D
+    idx = np.arange(P.shape[1])
+    idx[~on] = P.shape[1] + np.arange(int((~on).sum()))
+    Q = P[:, ~on].copy()
+    Q[axis] = 2 * c - Q[axis]
+    T2 = idx[T][[0, 2, 1, 3, 6, 5, 4, 7, 9, 8]]  # a reflection turns the orientation: swap vertices 1 and 2
+    mesh = MeshTet2(np.hstack([P, Q]), np.hstack([T, T2]))
+    ends, end1, lateral = solid._boundary_parts(mesh, sm.segment.length)
+    return solid.SolidMesh(mesh, sm.segment, sm.h, sm.h_feature, ends, lateral, end1)
+
+
+@pytest.mark.parametrize("symmetry", [1, 2])
+def test_half_and_quarter_models_equal_the_mirrored_whole(symmetry):
+    """The half (x ≥ 0) and quarter (also z ≥ length/2) models of a centred profile keyseat, with
+    their mirror conditions, give what the whole segment gives on the mesh identical by mirror: the
+    same loads and factors to the solver's tolerance, for every load (symmetric and antisymmetric)."""
+    seg = solid.Segment(D, 2.5 * D, (solid.ProfileKeyseat(0.008, 0.004, 1.25 * D - 0.012, 1.25 * D + 0.012, 0.05 * D),))
+    assert solid.symmetry_of(seg) == 2
+    part = solid.mesh_segment(seg, fineness=0.4, symmetry=symmetry)
+    whole = _mirrored(part, 0, 0.0)
+    if symmetry == 2:
+        whole = _mirrored(whole, 2, seg.length / 2)
+    assert whole.mesh.nelements == 2 * symmetry * part.mesh.nelements
+    rp, rw = solid.solve_segment(part, solid.LOADS, E, NU), solid.solve_segment(whole, solid.LOADS, E, NU)
+    for load in solid.LOADS:
+        got = {"fem": rp[load].factor, "exact": rw[load].factor}  # the whole model on the mirrored mesh
+        print(load, got, rp[load].dofs, rw[load].dofs)
+        assert rp[load].load == pytest.approx(rw[load].load, rel=1e-7)
+        assert got["fem"] == pytest.approx(got["exact"], rel=1e-6)
+        # the completed nodal set is the whole model's
+        assert rp[load].node_points.shape == rw[load].node_points.shape
+
+
+def test_quarter_model_spherical_cavity_goodier():
+    """The quarter model of the spherical cavity (symmetric about x = 0 and its equator) against
+    Goodier's exact factor (27 − 15ν)/(2(7 − 5ν)) (J. Appl. Mech. 1, 1933), within the whole
+    model's bound of :func:`test_spherical_cavity_goodier`, on two perturbed meshes."""
+    exact = spherical_cavity_kt(NU)
+    seg = solid.Segment(D, 2 * D, (solid.Cavity(0.05 * D, D),))
+    assert solid.symmetry_of(seg) == 2
+    for f in (1.0, 1.25):
+        r = solid.solve_segment(solid.mesh_segment(seg, fineness=f, symmetry=2), ("tension",), E, NU)["tension"]
+        got = {"fem": r.factor, "exact": exact}
+        print(f"fineness {f}: quarter model Kt {got}, {r.dofs} unknowns")
+        assert r.peak_on_feature and abs(r.peak_at[2] - D) < 0.05 * D * 0.3
+        assert exact <= got["fem"] <= exact * 1.10
+
+
+def test_symmetry_refused_where_the_segment_has_none():
+    seg = solid.Segment(D, 2 * D, (solid.CrossHole(0.2 * D, D, depth=0.4 * D),))
+    assert solid.symmetry_of(seg) == 0
+    with pytest.raises(InputError) as e:
+        solid.mesh_segment(seg, symmetry=1)
+    assert "symmetry" in str(e.value.field)

@@ -49,12 +49,14 @@ def mesh_dofs(sm) -> int:
 
 def study_segment(seg, fineness: float = 1.0, loads=solid.LOADS, E: float = 2.0e11, nu: float = 0.3,
                   ratio: float = RATIO, local: float = 1.0, max_dofs: int | None = None,
-                  max_seconds: float | None = None) -> SegmentStudy:
+                  max_seconds: float | None = None, symmetry: int = 0) -> SegmentStudy:
     """Three meshes (sizes ×r², ×r, ×1 at ``fineness``), every load on each; the study per factor.
 
     With ``max_dofs``: a first mesh above it is a :class:`~fem.errors.LimitError`; a later one stops
     the study (``limited`` says why) before it is solved, as does ``max_seconds`` passed before a mesh
-    starts. A stopped study keeps the finest solved mesh's factors and no estimate (``gci`` None)."""
+    starts. A stopped study keeps the finest solved mesh's factors and no estimate (``gci`` None).
+    ``symmetry`` 1 or 2 solves the half or quarter model (:func:`fem.solid.symmetry_of` says which the
+    segment allows; ``dofs`` are then the model's, a half or quarter of the whole segment's)."""
     t0 = time.perf_counter()
     runs = []
     limited = None
@@ -62,7 +64,7 @@ def study_segment(seg, fineness: float = 1.0, loads=solid.LOADS, E: float = 2.0e
         if i and max_seconds is not None and time.perf_counter() - t0 > max_seconds:
             limited = f"analysis.max_seconds ({max_seconds:g} s) passed after {i} of 3 meshes"
             break
-        sm = solid.mesh_segment(seg, fineness=fineness, scale=scale, local=local)
+        sm = solid.mesh_segment(seg, fineness=fineness, scale=scale, local=local, symmetry=symmetry)
         n = mesh_dofs(sm)
         if max_dofs is not None and n > max_dofs:
             if not i:
