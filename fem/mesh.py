@@ -23,6 +23,7 @@ from typing import Callable
 
 import numpy as np
 from skfem import ElementTriP2, FacetBasis, MeshTri2
+from skfem.assembly import Dofs
 from skfem.assembly.basis.abstract_basis import AbstractBasis
 from skfem.element import DiscreteField
 
@@ -377,7 +378,7 @@ def _to_skfem(gmsh, info: BoundaryInfo, frame: Frame):
         names["outer" if li == 0 else f"hole{li}"] = np.sort(sel)
     if sum(len(v) for v in names.values()) != len(mesh.boundary_facets()):
         raise InputError("section", None, "could not match every boundary facet to a boundary curve")
-    mesh = mesh.with_boundaries(names)
+    mesh = same_topology(mesh.with_boundaries(names), mesh)
     return mesh, facet_curve
 
 
@@ -418,6 +419,28 @@ def boundary_mapping(mesh):
     return mesh._tolerant_mapping
 
 
+def p2_dofs(mesh) -> Dofs:
+    """The P2 DOF numbering of ``mesh`` (scikit-fem ``Dofs``), made once per mesh object and kept on
+    it: every P2 basis on one mesh numbers its DOFs alike (from the topology only), so the bases of a
+    mesh share one instead of each building its own. Read, never changed."""
+    d = mesh.__dict__.get("_p2_dofs")
+    if d is None:
+        d = Dofs(mesh, ElementTriP2())
+        object.__setattr__(mesh, "_p2_dofs", d)
+    return d
+
+
+def same_topology(new, old):
+    """Hand ``new``, a copy of ``old`` with the same elements (moved, or with named boundaries), the
+    facets and facet-element maps ``old`` has built already: they depend on the elements only, and
+    scikit-fem would build them again for every copy. Returns ``new``."""
+    if new is not old and np.array_equal(new.t, old.t):
+        for name in ("_facets", "_t2f", "_f2t"):
+            if name in old.__dict__ and name not in new.__dict__:
+                object.__setattr__(new, name, old.__dict__[name])
+    return new
+
+
 def _boundary_basis(mesh, facets, points):
     """The boundary FacetBasis of ``mesh`` on ``facets`` at ``points``, built once per mesh and kept on
     it (the bases are read, never changed; building one is a tenth of a solve)."""
@@ -455,7 +478,8 @@ class BoundaryFacetBasis(FacetBasis):
     ``FacetBasis.__init__`` of scikit-fem 12."""
 
     def __init__(self, mesh, elem, facets, quadrature):
-        AbstractBasis.__init__(self, mesh, elem, boundary_mapping(mesh), None, quadrature, mesh.brefdom, None, True)
+        dofs = p2_dofs(mesh) if isinstance(elem, ElementTriP2) else None
+        AbstractBasis.__init__(self, mesh, elem, boundary_mapping(mesh), None, quadrature, mesh.brefdom, dofs, True)
         self.find = np.asarray(facets)
         if np.any(mesh.f2t[1, self.find] != -1):
             raise ValueError("BoundaryFacetBasis: a facet is not on the boundary")
