@@ -142,3 +142,23 @@ def test_boundary_facet_basis_is_scikit_fems_facet_basis_without_the_search(sect
     inner = np.flatnonzero(sm.mesh.f2t[1] != -1)[:3]
     with pytest.raises(ValueError):
         BoundaryFacetBasis(sm.mesh, ElementTriP2(), inner, (BOUNDARY_POINTS[None, :], np.ones(9) / 9))
+
+
+def test_a_moved_copy_takes_over_the_facets_it_would_build_itself():
+    """same_topology hands a copy the facet arrays of its original; they are the ones scikit-fem
+    builds for the copy from its elements (checked against a fresh copy), and p2_dofs numbers the
+    DOFs as a basis's own numbering does."""
+    from skfem import Basis, ElementTriP2
+
+    from fem.mesh import p2_dofs, same_topology
+
+    sm = mesh_section(KEYED, MeshOptions(fineness=0.8))
+    sm.mesh.boundary_facets()  # the original builds its facets
+    shared = same_topology(sm.mesh.translated((0.01, -0.02)), sm.mesh)
+    fresh = sm.mesh.translated((0.01, -0.02))
+    assert shared.facets is sm.mesh.facets
+    for name in ("facets", "t2f", "f2t"):
+        assert np.array_equal(getattr(shared, name), getattr(fresh, name))
+    assert np.array_equal(p2_dofs(fresh).element_dofs, Basis(fresh, ElementTriP2()).element_dofs)
+    other = mesh_section(KEYED, MeshOptions(fineness=0.5)).mesh
+    assert same_topology(other, sm.mesh).facets is not sm.mesh.facets  # other elements: nothing handed over
