@@ -472,10 +472,11 @@ class BoundaryFacetBasis(FacetBasis):
     the facet is the element's edge between two of its vertices, and the element's P2 map restricted
     to that edge is the facet's own P2 map, so the point at 1-D reference coordinate s lies at
     v_a + s (v_b − v_a) of the reference triangle (v_a, v_b the reference vertices of the facet's
-    first and second node). The Newton iteration's points agree with these within 1e-12 (measured);
-    the global DOF locations, which no boundary read uses, are not computed. A facet with an element
-    on both sides (an interface) is refused: ``FacetBasis`` serves there. The body follows
-    ``FacetBasis.__init__`` of scikit-fem 12."""
+    first and second node). The Newton iteration's points agree with these within its stopping
+    tolerance (3e-13 of the reference element measured on a keyed section's mesh). The global DOF
+    locations, which no boundary read uses, are not computed. A facet with an element on both sides
+    (an interface) is refused: ``FacetBasis`` serves there. The body follows ``FacetBasis.__init__``
+    of scikit-fem 12."""
 
     def __init__(self, mesh, elem, facets, quadrature):
         dofs = p2_dofs(mesh) if isinstance(elem, ElementTriP2) else None
