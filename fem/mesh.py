@@ -315,7 +315,7 @@ def _set_sizes(gmsh, info: BoundaryInfo, o: MeshOptions, h: float, size_field) -
             sizes = np.repeat(sizes[:, None], 3, axis=1)
         view = gmsh.view.add("size")
         data = np.concatenate([tri[:, :, 0], tri[:, :, 1], np.zeros((len(tri), 3)), sizes], axis=1)
-        gmsh.view.addListData(view, "ST", len(tri), data.ravel().tolist())
+        gmsh.view.addListData(view, "ST", len(tri), np.ascontiguousarray(data.ravel(), dtype=np.float64))
         pv = f.add("PostView")
         f.setNumber(pv, "ViewTag", view)
         fields.append(pv)
@@ -525,15 +525,15 @@ def _closest_on_curve(gmsh, tag: int, pts: np.ndarray, samples: int = 2048) -> n
 
     lo, hi = (float(v[0]) for v in gmsh.model.getParametrizationBounds(1, tag))
     ts = np.linspace(lo, hi, samples)
-    cs = np.reshape(gmsh.model.getValue(1, tag, ts.tolist()), (-1, 3))[:, :2]
+    cs = np.reshape(gmsh.model.getValue(1, tag, ts), (-1, 3))[:, :2]
     _, idx = cKDTree(cs).query(pts.T)
     t = ts[idx]
     for _ in range(4):
-        c = np.reshape(gmsh.model.getValue(1, tag, t.tolist()), (-1, 3))[:, :2].T
-        d1 = np.reshape(gmsh.model.getDerivative(1, tag, t.tolist()), (-1, 3))[:, :2].T
-        d2 = np.reshape(gmsh.model.getSecondDerivative(1, tag, t.tolist()), (-1, 3))[:, :2].T
+        c = np.reshape(gmsh.model.getValue(1, tag, t), (-1, 3))[:, :2].T
+        d1 = np.reshape(gmsh.model.getDerivative(1, tag, t), (-1, 3))[:, :2].T
+        d2 = np.reshape(gmsh.model.getSecondDerivative(1, tag, t), (-1, 3))[:, :2].T
         r = c - pts
         f = np.sum(r * d1, axis=0)
         fp = np.sum(d1 * d1, axis=0) + np.sum(r * d2, axis=0)
         t = np.clip(t - f / np.where(fp > 0, fp, 1.0), lo, hi)
-    return np.reshape(gmsh.model.getValue(1, tag, t.tolist()), (-1, 3))[:, :2].T
+    return np.reshape(gmsh.model.getValue(1, tag, t), (-1, 3))[:, :2].T
