@@ -12,6 +12,7 @@ from skfem import Basis, ElementTriP2
 from skfem.element import ElementComposite, ElementVector
 
 from . import forms
+from .mesh import p2_dofs, same_topology
 
 
 def _whole() -> list:
@@ -34,6 +35,7 @@ def centroidal_laplacian(sm, centroid) -> tuple:
     memo = sm.__dict__.setdefault("_centroidal_laplacian", {})
     if key not in memo:
         memo.clear()  # one centroid per mesh in practice; never keep stale matrices
-        basis = Basis(sm.mesh.translated((-key[0], -key[1])), ElementTriP2(), intorder=4)
+        moved = same_topology(sm.mesh.translated((-key[0], -key[1])), sm.mesh)
+        basis = Basis(moved, ElementTriP2(), intorder=4, dofs=p2_dofs(moved))
         memo[key] = (basis, forms.laplace.assemble(basis))
     return memo[key]

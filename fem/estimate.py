@@ -39,7 +39,7 @@ def recovered_gradient(basis: Basis, u: np.ndarray) -> np.ndarray:
     if nb is None:
         e = ElementTriP2()
         ref = np.asarray(e.doflocs, float).T  # (2, 6) reference nodes in DOF order
-        nb = CellBasis(basis.mesh, e, mapping=basis.mapping,
+        nb = CellBasis(basis.mesh, e, mapping=basis.mapping, dofs=basis.dofs,
                        quadrature=(ref, np.full(ref.shape[1], 1.0 / ref.shape[1])))
         basis.__dict__["_nodal_p2_basis"] = nb
     g = np.asarray(interpolate(nb, u).grad)  # (2, nel, 6)

@@ -8,7 +8,7 @@ import numpy as np
 from skfem import Basis, ElementTriP2
 
 from . import forms
-from .mesh import SectionMesh
+from .mesh import SectionMesh, p2_dofs
 
 
 @dataclass
@@ -43,7 +43,7 @@ def principal(Ixx, Iyy, Ixy):
 
 
 def area_moments(sm: SectionMesh, basis: Basis | None = None) -> AreaMoments:
-    basis = basis or Basis(sm.mesh, ElementTriP2(), intorder=6)
+    basis = basis or Basis(sm.mesh, ElementTriP2(), intorder=6, dofs=p2_dofs(sm.mesh))
     A = forms.area.assemble(basis)
     sx = forms.first_moment_x.assemble(basis)
     sy = forms.first_moment_y.assemble(basis)

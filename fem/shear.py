@@ -168,7 +168,8 @@ def shear_peak(sm: SectionMesh, sr: ShearResult, Vx: float, Vy: float, moment: b
     k = int(np.argmax(tn))
     elems = np.flatnonzero((sr.basis.element_dofs == k).any(axis=0))
     lat = _lattice()
-    local = CellBasis(cm, ElementTriP2(), elements=elems, quadrature=(lat, np.full(lat.shape[1], 1.0 / lat.shape[1])))
+    local = CellBasis(cm, ElementTriP2(), elements=elems, quadrature=(lat, np.full(lat.shape[1], 1.0 / lat.shape[1])),
+                      dofs=sr.basis.dofs)
     gp = np.array([np.asarray(interpolate(local, Gp[i])) for i in range(2)])
     gf = np.array([np.asarray(interpolate(local, Gf[i])) for i in range(2)])
     xl = np.asarray(local.global_coordinates())

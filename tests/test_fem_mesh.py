@@ -12,7 +12,7 @@ import pytest
 
 from fem.errors import InputError
 from fem.geometry import Disk, Ellipse, Keyway, custom_section, keyed_section, polygon, rectangle, round_section
-from fem.mesh import FRAME_QUANTUM, mesh_section, normalised_section, section_frame
+from fem.mesh import FRAME_QUANTUM, MeshOptions, mesh_section, normalised_section, section_frame
 from tests.helpers import torsion_of
 
 KEYED = keyed_section(0.0381, [Keyway(0.009525, 0.0047625, 0.000508)], bore=0.012)
@@ -109,3 +109,56 @@ def test_frame_follows_the_section():
     assert np.allclose(g.from_frame(g.to_frame(pts)), pts, rtol=0, atol=1e-16)
     with pytest.raises(InputError):
         round_section(0.02).scaled(-1.0)
+
+
+@pytest.mark.parametrize("section", [KEYED, CUSTOM], ids=["keyed", "custom"])
+@pytest.mark.parametrize("fineness", [0.7, 1.1])
+def test_boundary_facet_basis_is_scikit_fems_facet_basis_without_the_search(section, fineness):
+    """BoundaryFacetBasis writes down where each boundary point lies in its element; scikit-fem's
+    FacetBasis searches for it (Newton). The two agree, on two meshes; and the boundary integral
+    ∮ x nₓ ds of the Gauss basis is the meshed area (divergence theorem, exact for the curved mesh)."""
+    from skfem import Basis, ElementTriP2, FacetBasis
+
+    from fem.mesh import BOUNDARY_GAUSS, BOUNDARY_POINTS, BoundaryFacetBasis, boundary_mapping
+
+    sm = mesh_section(section, MeshOptions(fineness=fineness))
+    facets = sm.boundary_facets
+    for X in (BOUNDARY_GAUSS[0], BOUNDARY_POINTS):
+        q = (X[None, :], np.full(len(X), 1.0 / len(X)))
+        new = BoundaryFacetBasis(sm.mesh, ElementTriP2(), facets, q)
+        old = FacetBasis(sm.mesh, ElementTriP2(), facets=facets, quadrature=q, mapping=boundary_mapping(sm.mesh))
+        for a, b in ((new.global_coordinates(), old.global_coordinates()), (new.normals, old.normals),
+                     (new.dx, old.dx)):
+            assert np.allclose(np.asarray(a), np.asarray(b), rtol=0, atol=1e-12 * np.max(np.abs(np.asarray(b))))
+        for j in range(new.Nbfun):
+            (fn,), (fo,) = new.basis[j], old.basis[j]
+            assert np.allclose(np.asarray(fn), np.asarray(fo), rtol=0, atol=1e-9)
+            assert np.allclose(fn.grad, fo.grad, rtol=0, atol=1e-9 * np.max(np.abs(fo.grad)))
+    g = BoundaryFacetBasis(sm.mesh, ElementTriP2(), facets, (BOUNDARY_GAUSS[0][None, :], BOUNDARY_GAUSS[1]))
+    x, n = np.asarray(g.global_coordinates()), np.asarray(g.normals)
+    area = {"fem": float(np.sum(x[0] * n[0] * g.dx)),
+            "exact": float(np.sum(Basis(sm.mesh, ElementTriP2(), intorder=4).dx))}  # the meshed area
+    assert area["fem"] == pytest.approx(area["exact"], rel=1e-10)
+    inner = np.flatnonzero(sm.mesh.f2t[1] != -1)[:3]
+    with pytest.raises(ValueError):
+        BoundaryFacetBasis(sm.mesh, ElementTriP2(), inner, (BOUNDARY_POINTS[None, :], np.ones(9) / 9))
+
+
+def test_a_moved_copy_takes_over_the_facets_it_would_build_itself():
+    """same_topology hands a copy the facet arrays of its original; they are the ones scikit-fem
+    builds for the copy from its elements (checked against a fresh copy), and p2_dofs numbers the
+    DOFs as a basis's own numbering does."""
+    from skfem import Basis, ElementTriP2
+
+    from fem.mesh import p2_dofs, same_topology
+
+    sm = mesh_section(KEYED, MeshOptions(fineness=0.8))
+    sm.mesh.boundary_facets()  # the original builds its facets
+    shared = same_topology(sm.mesh.translated((0.01, -0.02)), sm.mesh)
+    fresh = sm.mesh.translated((0.01, -0.02))
+    assert shared.facets is sm.mesh.facets
+    for name in ("facets", "t2f", "f2t"):
+        assert np.array_equal(getattr(shared, name), getattr(fresh, name))
+    assert np.array_equal(p2_dofs(fresh).element_dofs, Basis(fresh, ElementTriP2()).element_dofs)
+    other = mesh_section(KEYED, MeshOptions(fineness=0.5)).mesh
+    assert same_topology(other, sm.mesh).facets is not sm.mesh.facets  # other elements: nothing handed over

@@ -27,7 +27,6 @@ from ..output.figure_shaft import shaft_figure_svg
 from ..output.report_composite import composite_report_files
 from ..output.results_composite import composite_summary
 from ..output.results_segment import segment_summary
-from ..output.report_segment import segment_report_files
 from ..output.vtu import composite_vtu_bytes, layout_segment_vtu_bytes, segment_vtu_bytes
 from ..output.report_checklist import checklist_summary
 from ..output.results_shaft import shaft_summary
@@ -75,6 +74,8 @@ def run(args) -> int:
     segment = "segment" in a.extra  # a 3-D segment study: its own report
     report = not args.no_report and (a.mesh is not None or composite or segment)
     if report:  # a layout whose governing station is composite gets the layout report
+        if segment:
+            from ..output.report_segment import segment_report_files  # noqa: PLC0415  lazy import of a slow dependency (matplotlib through report_html's figures), only when a report is drawn
         files.update(composite_report_files(a, res) if composite and not layout else
                      segment_report_files(a, res) if segment else report_files(a, res))
     if (res.get("shaft") or {}).get("diagrams"):  # the layout's diagrams (the report's, when it drew them)
