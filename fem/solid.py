@@ -259,7 +259,7 @@ class Segment:
                                  "must be positive (a sharp shoulder has no bounded peak)")
             if sh.fillet > (sh.D - self.d) / 2 * (1 + 1e-12):
                 raise InputError(f"{name}.fillet", sh.fillet,
-                                 f"must not exceed the step (D - d)/2 = {(sh.D - self.d) / 2:g}")
+                                 "must not exceed the step (D - d)/2 (a tangent quarter round)")
             if sh.z - sh.fillet < END_ZONE * sh.D or sh.z > self.length - END_ZONE * sh.D:
                 raise InputError(f"{name}.z", sh.z, f"puts the shoulder closer than {END_ZONE:g} larger "
                                  "diameters to an end face")
@@ -273,7 +273,7 @@ class Segment:
             a, b = f.span()
             if sh is not None and b > sh.z - sh.fillet and a < sh.z:
                 raise InputError(f"{name}.z", getattr(f, "z", getattr(f, "z0", None)),
-                                 f"puts the feature on the shoulder's fillet (from {sh.z - sh.fillet:g} to {sh.z:g})")
+                                 "puts the feature on the shoulder's fillet (they must not overlap)")
             dl = self.diameter_at(a)
             R = dl / 2
             if a < END_ZONE * self.d or b > self.length - END_ZONE * self.far_diameter:

@@ -95,3 +95,24 @@ def test_segment_study_stopped_by_max_seconds_has_no_estimate(tmp_path, capsys):
     assert all(res["segments"][0][f"{k}_gci"] is None for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"))
     assert printed.splitlines()[1].startswith("WARNING: ACCURACY TARGET NOT SHOWN")
     assert "max_seconds" in printed.splitlines()[1]
+
+
+@pytest.mark.parametrize("shoulder, field, written", [
+    ("{ D = 25, fillet = 2, at = 50 }", "segment.shoulder.D", "25"),
+    ("{ D = 45, fillet = 9, at = 50 }", "segment.shoulder.fillet", "9"),
+    ("{ D = 45, fillet = 2, at = 70 }", "segment.shoulder.at", "70"),
+    ("{ D = 45, fillet = 2 }", "segment.shoulder.at", "is missing"),
+    ("{ D = 45, fillet = 2, at = 50, radius = 1 }", "segment.shoulder.radius", "1"),
+    ("{ D = 45, fillet = 2, at = 38.5 }", "segment.at", "shoulder's fillet"),
+])
+def test_segment_shoulder_bad_input_is_one_line(tmp_path, capsys, shoulder, field, written):
+    """A bad shoulder beside the segment's feature: one line naming the field and the value as written
+    (or what is wrong), exit 2, nothing written (the hole at mid-length, 37.5 mm, 6 mm wide: a shoulder
+    face at 38.5 mm puts the hole on the 2 mm fillet)."""
+    p = _hole_case(tmp_path, "")
+    p.write_text(p.read_text().replace("hole_diameter = 6\n", f"hole_diameter = 6\nshoulder = {shoulder}\n"))
+    code = main(["run", str(p), "--out", str(tmp_path / "out"), "--quiet"])
+    err = capsys.readouterr().err
+    assert code == 2
+    assert err.count("\n") == 1 and field in err and written in err, err
+    assert not (tmp_path / "out").exists()
