@@ -112,16 +112,16 @@ def test_shoulder_3d_equals_the_meridian_section_fe():
     (fem/axisym.py through compare/solve/features.study_feature, its own meshes and estimate).
 
     Pass mark: the two agree within the sum of their error estimates, and the finest 3-D value lies
-    within 6 % above or 3 % below the meridian one (measured 0.9-3.7 % above on five 3-D meshes of
+    within 6 % of the meridian one (measured 0.9-3.7 % above on five 3-D meshes of
     50k-260k unknowns, fineness 0.4 and 0.5, the fillet refined further once: the node-averaged 3-D
     peak reads high at these sizes, as the cavity test of tests/test_fem_solid.py shows against
     Goodier's exact factor).
 
-    Measured here (one run): 3-D 2.066, 2.065, 2.173 (tension), 1.613, 1.695, 1.832 (bending),
+    Measured here (one run): 3-D 2.066, 2.064, 2.173 (tension), 1.613, 1.695, 1.832 (bending),
     1.400, 1.350, 1.392 (torsion) on 13.9k, 25.1k, 53.6k unknowns, three-mesh estimates 15 %, 36 %,
     9 % (not asymptotic: oscillating or diverging at these sizes); meridian 2.116, 1.802, 1.380 with
-    estimates 1.2 %, 1.2 %, 0.04 % (67k-132k unknowns); about 40 CPU s for the 3-D study and 11 for
-    the meridian one. Roark's Table 17.1 fit (from memory) gives 1.86, 1.74, 1.41: printed only (the
+    estimates 1.2 %, 1.2 %, 0.04 % (67k-132k unknowns); 33-40 CPU s for the 3-D study and 9-11 for
+    the meridian one (two runs). Roark's Table 17.1 fit (from memory) gives 1.86, 1.74, 1.41: printed only (the
     fit is known to read low in tension for the stepped bar, see tests/test_compare_features.py)."""
     D, r = 1.5 * d, 0.1 * d
     c0 = time.process_time()
@@ -142,4 +142,4 @@ def test_shoulder_3d_equals_the_meridian_section_fe():
         assert three.peaks[k]["on_feature"] and three.finest[load3].peak_feature == "shoulder"
         assert est3["gci"] is not None and m["gci"] is not None
         assert abs(got["fem"] - got["exact"]) <= bound, (k, got, bound)
-        assert -0.03 <= got["fem"] / got["exact"] - 1 <= 0.06, (k, got)
+        assert abs(got["fem"] / got["exact"] - 1) <= 0.06, (k, got)
