@@ -271,10 +271,12 @@ class Segment:
                 continue
             name = f"{field_name}.features[{i}]"
             a, b = f.span()
-            if sh is not None and b > sh.z - sh.fillet and a < sh.z:
-                raise InputError(f"{name}.z", getattr(f, "z", getattr(f, "z0", None)),
-                                 "puts the feature on the shoulder's fillet (they must not overlap)")
             dl = self.diameter_at(a)
+            if sh is not None:
+                ra, rb = _tool_reach(f, dl / 2)
+                if rb > sh.z - sh.fillet and ra < sh.z:
+                    raise InputError(f"{name}.z", getattr(f, "z", getattr(f, "z0", None)),
+                                     "puts the feature's cut on the shoulder's fillet or face (they must not overlap)")
             R = dl / 2
             if a < END_ZONE * self.d or b > self.length - END_ZONE * self.far_diameter:
                 raise InputError(f"{name}.z", getattr(f, "z", getattr(f, "z0", None)),
@@ -301,6 +303,20 @@ class Segment:
             elif isinstance(f, Cavity):
                 if not 0 < f.radius < 0.4 * dl:
                     raise InputError(f"{name}.radius", f.radius, "must be between 0 and 0.4 of the diameter")
+
+
+def _tool_reach(f, R: float) -> tuple[float, float]:
+    """The z range of the whole volume :func:`_tool` removes for feature ``f`` on a bar of radius
+    ``R`` (wider than :meth:`span`, the cut on that bar's surface: a sled runner's cutter disc and a
+    chamfer's cone reach further above the surface, where a shoulder's material may be)."""
+    if isinstance(f, SledKeyseat):
+        return f.z0 - f.cutter_diameter / 2, f.z1 + f.cutter_diameter / 2
+    if isinstance(f, CrossHole) and f.chamfer > 0:
+        a = f.diameter / 2
+        x1 = math.sqrt(max(R**2 - a**2, 0.0)) - f.chamfer
+        half = a + (R + a - x1)
+        return f.z - half, f.z + half
+    return f.span()
 
 
 def _stadium(occ, y0, hw, c0, c1):

@@ -143,3 +143,20 @@ def test_shoulder_3d_equals_the_meridian_section_fe():
         assert est3["gci"] is not None and m["gci"] is not None
         assert abs(got["fem"] - got["exact"]) <= bound, (k, got, bound)
         assert abs(got["fem"] / got["exact"] - 1) <= 0.06, (k, got)
+
+
+def test_a_cutter_reaching_the_shoulder_is_refused():
+    """The check keeps the whole cut clear of the shoulder, not only its trace on the surface of d: a
+    sled runner's cutter disc reaches its radius beyond the centre travel (above the surface, where
+    the fillet's material is), a chamfer's cone beyond the hole's mouth; both are refused when that
+    reach meets the fillet (conservative: the disc's exact outline may pass just above it)."""
+    sled = solid.SledKeyseat(0.008, 0.004, 1.1 * d, 1.3 * d, 0.8 * d, 0.02 * d)
+    assert sled.span()[1] < 1.65 * d  # clear of the fillet (from 1.65 d) on the surface of d ...
+    with pytest.raises(InputError) as e:
+        _segment(at=1.75 * d, others=(sled,)).check()  # ... but the disc reaches z1 + 0.4 d = 1.7 d
+    assert e.value.field == "segment.features[1].z" and "fillet" in e.value.reason
+    _segment(at=1.75 * d, others=(solid.SledKeyseat(0.008, 0.004, 1.1 * d, 1.3 * d, 0.5 * d, 0.02 * d),)).check()
+    with pytest.raises(InputError) as e:
+        _segment(at=1.25 * d, others=(solid.CrossHole(0.2 * d, 0.95 * d, chamfer=0.05 * d),)).check()
+    assert e.value.field == "segment.features[1].z" and "fillet" in e.value.reason
+    _segment(at=1.25 * d, others=(solid.CrossHole(0.2 * d, 0.95 * d),)).check()
