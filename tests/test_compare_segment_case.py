@@ -139,4 +139,6 @@ def test_segment_beside_a_shoulder_through_the_cli(tmp_path, capsys):
                for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"))
     assert seg["kt_bending_y"] > 2.2
     assert "beside a shoulder" in printed
+    html = (tmp_path / "out" / "report.html").read_text()
+    assert "Beside a shoulder" in html and "cross hole" in html
     assert code == res["exit_code"] in (0, 3)
