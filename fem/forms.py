@@ -341,6 +341,17 @@ def elasticity(u, v, w):
     return w.lam * trace(eu) * trace(ev) + 2.0 * w.mu * ddot(eu, ev)
 
 
+@LinearForm
+def plain_bar_end_traction(v, w):
+    """∫ t·v dS on an end face with outward normal +z, t = (τ_xz, τ_yz, σ_zz) the plain round
+    bar's stress: σ_zz = ``s0`` + ``sx``·x + ``sy``·y (tension and bending), (τ_xz, τ_yz) =
+    ``tau``·(−y, x) (torsion); scalars in Pa and Pa/m (the consistent nodal forces of a traction
+    end, fem/solid.py)."""
+    x, y = w.x[0], w.x[1]
+    return (v.value[0] * (-w.tau * y) + v.value[1] * (w.tau * x)
+            + v.value[2] * (w.s0 + w.sx * x + w.sy * y))
+
+
 def derivative_product(a: int, b: int):
     """The form ∫ ∂_a u ∂_b v dV of a scalar basis (a, b = 0, 1, 2 for x, y, z). The elasticity
     matrix block of components (a, b) is λ·D_ba + μ·D_ab + μ·δ_ab·Σ_c D_cc with D_ab this form

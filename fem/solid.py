@@ -1,7 +1,9 @@
-"""3-D linear elasticity of a short length of shaft with a local feature (a keyseat's end, a cross hole).
+"""3-D linear elasticity of a short length of shaft with a local feature (a keyseat's end, a cross hole,
+a shoulder, or a shoulder with a keyseat or hole beside it).
 
 A cross-section sees a keyseat as a prism; the keyseat's end and a transverse hole are 3-D features.
-Here a short segment of round shaft (a few diameters long) is built as an OpenCASCADE solid in gmsh,
+Here a short segment of round shaft (a few diameters long) is built as an OpenCASCADE solid in gmsh
+(with a :class:`Shoulder`, its meridian outline turned about the axis, the fillet an exact torus),
 the feature cut from it by a boolean, meshed with second-order (10-node, curved) tetrahedra refined
 at the feature and solved with isoparametric P2 elements (:class:`skfem.MeshTet2`,
 ``ElementVector(ElementTetP2())``; the weak form is :func:`fem.forms.elasticity`).
@@ -20,6 +22,18 @@ diameters from each end face), so the prescribed ends add no disturbance of thei
 The force, moments and torque are the sums of the consistent nodal reactions (K·u) on one end face,
 so the nominal stresses use the load the model actually carries.
 
+With a shoulder the two ends are bars of different diameters (d at z = 0, D at z = length), and the
+plain-bar displacement of one diameter is no solution at the other. The d end takes the exact
+plain-bar displacement above (which also holds the rigid-body motion); the D end takes the exact
+plain-bar stress of diameter D as a traction, (τ_xz, τ_yz, σ_zz), scaled to carry the very force,
+moment or torque that the d end's displacement implies (N = EεA_d, M = EκI_d, T = GθJ_d;
+:func:`end_traction_load`). Each end thus holds its own bar's exact solution; the moment is constant
+along the segment (no shear force), and no rigid-body motion is left free. (Prescribing both ends'
+displacements would need the unknown relative rotation and shift of the D end as extra unknowns;
+the traction end has none.) The load is the sum of the reactions at the d end, and the nominal
+stresses are those of d. The far-field check compares each end zone with its own diameter's
+elementary stress.
+
 Nominal stresses are those of the plain (gross) round section of diameter d: N/A, 32M/(πd³),
 16T/(πd³), with A = πd²/4 — the keyseat or hole is not deducted (handbook charts that use a net
 section are converted where they are compared). Factors: Kt = (largest principal stress)/nominal in
@@ -34,9 +48,9 @@ edge midpoint) over the lateral facets that share it (:func:`recovered_surface_s
 removes most of the jumps between elements (the raw largest value is kept as ``factor_raw``).
 
 Sizes: the refinement sits where the peak can sit (:func:`peak_zones`: a keyseat's rounded ends and
-its bottom fillet, a hole, a cavity) at the feature's smallest radius/(PER_RADIUS·fineness); a
-keyseat's flat walls and bottom get :data:`WALL` times that; gmsh's curvature sizing is off when
-there is a feature.
+its bottom fillet, a hole, a cavity, a shoulder's fillet) at each feature's own smallest
+radius/(PER_RADIUS·fineness); a keyseat's flat walls and bottom get :data:`WALL` times that; gmsh's
+curvature sizing is off when there is a feature.
 
 Solver: the displacements of the end faces are eliminated; the remaining SPD system is solved
 by :func:`fem.linalg.solve_spd` — a direct factorisation up to :data:`DIRECT_LIMIT` unknowns,
@@ -205,35 +219,98 @@ class Cavity:
 
 
 @dataclass(frozen=True)
+class Shoulder:
+    """A shoulder at ``z`` [m]: the shaft steps from the segment's diameter d (z < ``z``) up to ``D``
+    [m] (z > ``z``) through a ``fillet`` [m] of full quarter round, tangent to the small cylinder
+    (at z − fillet) and to the shoulder face (the plane z = ``z``)."""
+
+    D: float
+    z: float
+    fillet: float
+    kind = "shoulder"
+
+    @property
+    def small(self) -> float:
+        return self.fillet
+
+    def span(self) -> tuple[float, float]:
+        return self.z - self.fillet, self.z
+
+
+@dataclass(frozen=True)
 class Segment:
-    """A round shaft of diameter ``d`` [m] from z = 0 to ``length`` [m] with its ``features``."""
+    """A round shaft of diameter ``d`` [m] from z = 0 to ``length`` [m] with its ``features``; with a
+    :class:`Shoulder` the diameter is ``D`` beyond it (z > shoulder.z)."""
 
     d: float
     length: float
     features: tuple = ()
 
+    @property
+    def shoulder(self) -> Shoulder | None:
+        return next((f for f in self.features if isinstance(f, Shoulder)), None)
+
+    @property
+    def far_diameter(self) -> float:
+        """The diameter at the end face z = length (D with a shoulder, else d)."""
+        sh = self.shoulder
+        return self.d if sh is None else sh.D
+
+    def diameter_at(self, z: float) -> float:
+        """The plain diameter [m] at ``z`` (d before a shoulder's face, D beyond it)."""
+        sh = self.shoulder
+        return self.d if sh is None or z < sh.z else sh.D
+
     def check(self, field_name: str = "segment") -> None:
-        R = self.d / 2
         if not (self.d > 0 and math.isfinite(self.d)):
             raise InputError(f"{field_name}.d", self.d, "must be a positive length")
         if not (self.length > 2 * END_ZONE * self.d):
             raise InputError(f"{field_name}.length", self.length,
                              f"must exceed {2 * END_ZONE:g} diameters (plain bar at both ends)")
+        shoulders = [i for i, f in enumerate(self.features) if isinstance(f, Shoulder)]
+        if len(shoulders) > 1:
+            raise InputError(f"{field_name}.features[{shoulders[1]}]", "shoulder", "is a second shoulder (at most one)")
+        sh = self.shoulder
+        if sh is not None:
+            name = f"{field_name}.features[{shoulders[0]}]"
+            if not (math.isfinite(sh.D) and sh.D > self.d):
+                raise InputError(f"{name}.D", sh.D, "must be larger than the segment's diameter d")
+            if not (math.isfinite(sh.fillet) and sh.fillet > 0):
+                raise InputError(f"{name}.fillet", sh.fillet,
+                                 "must be positive (a sharp shoulder has no bounded peak)")
+            if sh.fillet > (sh.D - self.d) / 2 * (1 + 1e-12):
+                raise InputError(f"{name}.fillet", sh.fillet,
+                                 "must not exceed the step (D - d)/2 (a tangent quarter round)")
+            if sh.z - sh.fillet < END_ZONE * sh.D or sh.z > self.length - END_ZONE * sh.D:
+                raise InputError(f"{name}.z", sh.z, f"puts the shoulder closer than {END_ZONE:g} larger "
+                                 "diameters to an end face")
+            if len(self.features) > 2:
+                raise InputError(f"{field_name}.features", len(self.features),
+                                 "features next to a shoulder: at most one besides it")
         for i, f in enumerate(self.features):
+            if isinstance(f, Shoulder):
+                continue
             name = f"{field_name}.features[{i}]"
             a, b = f.span()
-            if a < END_ZONE * self.d or b > self.length - END_ZONE * self.d:
+            dl = self.diameter_at(a)
+            if sh is not None:
+                ra, rb = _tool_reach(f, dl / 2)
+                if rb > sh.z - sh.fillet and ra < sh.z:
+                    raise InputError(f"{name}.z", getattr(f, "z", getattr(f, "z0", None)),
+                                     "puts the feature's cut on the shoulder's fillet or face (they must not overlap)")
+            R = dl / 2
+            if a < END_ZONE * self.d or b > self.length - END_ZONE * self.far_diameter:
                 raise InputError(f"{name}.z", getattr(f, "z", getattr(f, "z0", None)),
                                  f"puts the feature closer than {END_ZONE:g} diameters to an end face")
             if isinstance(f, CrossHole):
-                if not 0 < f.diameter < self.d * 0.6:
+                if not 0 < f.diameter < dl * 0.6:
                     raise InputError(f"{name}.diameter", f.diameter, "must be between 0 and 0.6 of the shaft diameter")
                 if f.chamfer < 0 or f.chamfer > f.diameter / 2:
                     raise InputError(f"{name}.chamfer", f.chamfer, "must be between 0 and the hole radius")
-                if f.depth is not None and not (f.diameter / 2 < f.depth < self.d - f.diameter / 2):
+                if f.depth is not None and not (f.diameter / 2 < f.depth < dl - f.diameter / 2):
                     raise InputError(f"{name}.depth", f.depth, "must leave the ball-ended bottom inside the shaft")
             elif isinstance(f, (ProfileKeyseat, SledKeyseat)):
-                if not 0 < f.width < self.d:
+                if not 0 < f.width < dl:
                     raise InputError(f"{name}.width", f.width, "must be between 0 and the shaft diameter")
                 if not 0 < f.depth < R:
                     raise InputError(f"{name}.depth", f.depth, "must be between 0 and the shaft radius")
@@ -245,8 +322,22 @@ class Segment:
                 if isinstance(f, SledKeyseat) and not f.cutter_diameter / 2 > f.depth:
                     raise InputError(f"{name}.cutter_diameter", f.cutter_diameter, "must exceed twice the depth")
             elif isinstance(f, Cavity):
-                if not 0 < f.radius < 0.4 * self.d:
+                if not 0 < f.radius < 0.4 * dl:
                     raise InputError(f"{name}.radius", f.radius, "must be between 0 and 0.4 of the diameter")
+
+
+def _tool_reach(f, R: float) -> tuple[float, float]:
+    """The z range of the whole volume :func:`_tool` removes for feature ``f`` on a bar of radius
+    ``R`` (wider than :meth:`span`, the cut on that bar's surface: a sled runner's cutter disc and a
+    chamfer's cone reach further above the surface, where a shoulder's material may be)."""
+    if isinstance(f, SledKeyseat):
+        return f.z0 - f.cutter_diameter / 2, f.z1 + f.cutter_diameter / 2
+    if isinstance(f, CrossHole) and f.chamfer > 0:
+        a = f.diameter / 2
+        x1 = math.sqrt(max(R**2 - a**2, 0.0)) - f.chamfer
+        half = a + (R + a - x1)
+        return f.z - half, f.z + half
+    return f.span()
 
 
 def _stadium(occ, y0, hw, c0, c1):
@@ -269,6 +360,31 @@ def _side_stadium(occ, x0, y0, rc, c0, c1):
     curves = [occ.addLine(p[0], p[1]), occ.addCircleArc(p[1], cc[1], m[1]), occ.addCircleArc(m[1], cc[1], p[2]),
               occ.addLine(p[2], p[3]), occ.addCircleArc(p[3], cc[0], m[0]), occ.addCircleArc(m[0], cc[0], p[0])]
     return occ.addPlaneSurface([occ.addCurveLoop(curves)])
+
+
+def _bar(gmsh, R: float, L: float, shoulder: Shoulder | None) -> list[tuple[int, int]]:
+    """The plain bar (frame): a cylinder of radius ``R`` from z = 0 to ``L``, or with a ``shoulder``
+    the meridian outline (the small cylinder, the fillet's quarter arc, the shoulder face, the large
+    cylinder) turned a full revolution about the z axis, so the fillet is an exact torus."""
+    occ = gmsh.model.occ
+    if shoulder is None:
+        return [(3, occ.addCylinder(0, 0, 0, 0, 0, L, R))]
+    Rb, z0, rho = shoulder.D / 2, shoulder.z, shoulder.fillet
+    full = rho >= (Rb - R) * (1 - 1e-12)  # the fillet reaches the large diameter: no flat face
+    pts = [(0, 0), (R, 0), (R, z0 - rho), (R + rho, z0)]
+    if not full:
+        pts.append((Rb, z0))
+    pts += [(Rb, L), (0, L)]
+    tags = [occ.addPoint(x, 0, z) for x, z in pts]
+    centre = occ.addPoint(R + rho, 0, z0 - rho)
+    curves = [occ.addLine(tags[0], tags[1]), occ.addLine(tags[1], tags[2]),
+              occ.addCircleArc(tags[2], centre, tags[3])]
+    curves += [occ.addLine(tags[k], tags[k + 1]) for k in range(3, len(tags) - 1)]
+    curves.append(occ.addLine(tags[-1], tags[0]))
+    face = occ.addPlaneSurface([occ.addCurveLoop(curves)])
+    out = occ.revolve([(2, face)], 0, 0, 0, 0, 0, 1, 2 * math.pi)
+    occ.remove([(0, centre)])
+    return [e for e in out if e[0] == 3]
 
 
 def _tool(gmsh, f, R: float) -> list[tuple[int, int]]:
@@ -362,10 +478,12 @@ def mesh_segment(seg: Segment, fineness: float = 1.0, scale: float = 1.0, local:
         occ = gmsh.model.occ
         gmsh.option.setNumber("General.Terminal", 0)
         gmsh.option.setNumber("General.NumThreads", 1)
-        bar = [(3, occ.addCylinder(0, 0, 0, 0, 0, L, R))]
+        shoulder = next((f for f in feats if isinstance(f, Shoulder)), None)
+        bar = _bar(gmsh, R, L, shoulder)
         tools = []
         for f in feats:
-            tools += _tool(gmsh, f, R)
+            if not isinstance(f, Shoulder):
+                tools += _tool(gmsh, f, R if shoulder is None or f.span()[0] < shoulder.z else shoulder.D / 2)
         if tools:
             bar, _ = occ.cut(bar, tools)
         if symmetry:
@@ -376,7 +494,8 @@ def mesh_segment(seg: Segment, fineness: float = 1.0, scale: float = 1.0, local:
         hf = h
         if feats:
             h = min(h, scale * math.pi / (PER_TURN * fineness))  # the plain cylinder's turn
-            hf = _size_fields(gmsh, feats, R, L, h, scale, fineness, local, skip=_mirror_surfaces(gmsh, symmetry, L))
+            radii = (R,) if shoulder is None else (R, shoulder.D / 2)
+            hf = _size_fields(gmsh, feats, radii, L, h, scale, fineness, local, skip=_mirror_surfaces(gmsh, symmetry, L))
         gmsh.option.setNumber("Mesh.MeshSizeMax", h)
         gmsh.option.setNumber("Mesh.MeshSizeMin", 0.0)
         # gmsh's curvature sizing would refine every small fillet along its whole length (and cost
@@ -451,37 +570,37 @@ def _mirror_facets(mesh, lateral: np.ndarray, symmetry: int, seg: Segment):
 def peak_zones(f, R: float = 0.5):
     """The z ranges (frame or metres, as ``f``) where the peak of feature ``f`` can sit: a profile
     keyseat's two rounded ends (its prismatic middle is the 2-D section's, with a lower peak), every
-    other feature whole."""
+    other feature whole (a shoulder: its fillet, with the shoulder face at its end)."""
     if isinstance(f, ProfileKeyseat):
         reach = f.width / 2 + 2 * f.fillet
         return [(f.z0, f.z0 + reach), (f.z1 - reach, f.z1)]
     return [f.span()]
 
 
-def _size_fields(gmsh, feats, R, L, h, scale, fineness, local, skip=()) -> float:
-    """Background sizes (frame): on the feature surfaces inside a :func:`peak_zones` range and on
-    those curved to a radius within twice the smallest (a keyseat's bottom fillet along its whole
-    length: in torsion the prismatic part may carry the peak) the
-    smallest radius/(PER_RADIUS·fineness·local), on the other feature surfaces :data:`WALL` times
-    that, growing away from them at :data:`GRADE`; every size times ``scale`` (similar meshes).
-    Returns the size at the peak zones. The surfaces in ``skip`` (mirror planes) get no size."""
-    small = min(f.small for f in feats)
-    hp = min(h, scale * small / (PER_RADIUS * fineness * local))
-    hw = min(h, WALL * hp)
-    zones = [z for f in feats for z in peak_zones(f, R)]
+def _size_fields(gmsh, feats, radii, L, h, scale, fineness, local, skip=()) -> float:
+    """Background sizes (frame), per feature (each with its own smallest radius ``small``): on its
+    surfaces inside a :func:`peak_zones` range and on those curved to a radius within twice its
+    smallest (a keyseat's bottom fillet along its whole length: in torsion the prismatic part may
+    carry the peak) small/(PER_RADIUS·fineness·local), on its other surfaces :data:`WALL` times that,
+    growing away from them at :data:`GRADE`; every size times ``scale`` (similar meshes). A surface
+    belongs to the feature whose z range holds it; the plain cylinders (``radii``) and end faces get
+    the global size, the surfaces in ``skip`` (mirror planes) none. Returns the smallest size at the
+    peak zones."""
     tol = 1e-6
-    peak, wall = [], []
+    groups = {}  # (size at the surface, distance kept at it) -> surfaces
     for _, s in gmsh.model.getEntities(2):
-        if s in skip or _plain_surface(gmsh, s, R, L):
+        if s in skip or _plain_surface(gmsh, s, radii, L):
             continue
         box = gmsh.model.getBoundingBox(2, s)
-        inside = any(box[2] >= a - tol and box[5] <= b + tol for a, b in zones)
-        (peak if inside or _curved(gmsh, s) > 0.5 / small else wall).append(s)
+        owners = [f for f in feats if box[2] >= f.span()[0] - tol and box[5] <= f.span()[1] + tol]
+        f = min(owners or feats, key=lambda g: g.small)
+        hp = min(h, scale * f.small / (PER_RADIUS * fineness * local))
+        inside = any(box[2] >= a - tol and box[5] <= b + tol for a, b in peak_zones(f))
+        size = hp if inside or _curved(gmsh, s) > 0.5 / f.small else min(h, WALL * hp)
+        groups.setdefault((size, GROW * f.small), []).append(s)
     fm = gmsh.model.mesh.field
     made = []
-    for surfs, size in ((peak, hp), (wall, hw)):
-        if not surfs:
-            continue
+    for (size, d0), surfs in sorted(groups.items()):
         dist = fm.add("Distance")
         fm.setNumbers(dist, "SurfacesList", surfs)
         fm.setNumber(dist, "Sampling", SAMPLING)
@@ -489,7 +608,6 @@ def _size_fields(gmsh, feats, R, L, h, scale, fineness, local, skip=()) -> float
         fm.setNumber(th, "InField", dist)
         fm.setNumber(th, "SizeMin", size)
         fm.setNumber(th, "SizeMax", h)
-        d0 = GROW * small
         fm.setNumber(th, "DistMin", d0)
         fm.setNumber(th, "DistMax", d0 + (h - size) / GRADE + 1e-9)
         made.append(th)
@@ -497,8 +615,9 @@ def _size_fields(gmsh, feats, R, L, h, scale, fineness, local, skip=()) -> float
         mn = fm.add("Min")
         fm.setNumbers(mn, "FieldsList", made)
         made = [mn]
-    fm.setAsBackgroundMesh(made[0])
-    return hp
+    if made:
+        fm.setAsBackgroundMesh(made[0])
+    return min(min(h, scale * f.small / (PER_RADIUS * fineness * local)) for f in feats)
 
 
 def _curved(gmsh, s: int) -> float:
@@ -512,8 +631,9 @@ def _curved(gmsh, s: int) -> float:
     return float(np.max(np.abs(np.concatenate([kmax, kmin]))))
 
 
-def _plain_surface(gmsh, s: int, R: float, L: float) -> bool:
-    """Whether surface ``s`` (frame) is the plain bar's cylinder or an end face (sampled points)."""
+def _plain_surface(gmsh, s: int, radii, L: float) -> bool:
+    """Whether surface ``s`` (frame) is a plain cylinder of one of ``radii`` or an end face (sampled
+    points)."""
     lo, hi = gmsh.model.getParametrizationBounds(2, s)
     uv = []
     for a in (0.2, 0.5, 0.8):
@@ -521,7 +641,7 @@ def _plain_surface(gmsh, s: int, R: float, L: float) -> bool:
             uv += [lo[0] + a * (hi[0] - lo[0]), lo[1] + b * (hi[1] - lo[1])]
     xyz = np.reshape(gmsh.model.getValue(2, s, uv), (-1, 3))
     r = np.hypot(xyz[:, 0], xyz[:, 1])
-    return bool(np.all(np.abs(r - R) < 1e-9) or np.all(np.abs(xyz[:, 2]) < 1e-9)
+    return bool(any(np.all(np.abs(r - R) < 1e-9) for R in radii) or np.all(np.abs(xyz[:, 2]) < 1e-9)
                 or np.all(np.abs(xyz[:, 2] - L) < 1e-9))
 
 
@@ -619,6 +739,8 @@ class SolidResult:
     #: which the factor is read (:func:`recovered_surface_stresses`)
     node_points: np.ndarray | None = None
     node_stress: np.ndarray | None = None
+    #: the kind of the feature the peak sits on (:func:`feature_at`), None on the plain bar
+    peak_feature: str | None = None
 
 
 def _lame(E, nu):
@@ -655,7 +777,11 @@ def solve_segment(sm: SolidMesh, loads=LOADS, E: float = 2.0e11, nu: float = 0.3
     basis = Basis(sm.mesh, ElementVector(ElementTetP2()), mapping=boundary_mapping(sm.mesh))
     K = stiffness(basis, E, nu)
     n = K.shape[0]
-    fixed = basis.get_dofs(sm.ends).all()
+    sh = seg.shoulder
+    # without a shoulder both end faces take the plain bar's displacement; with one, the d end alone
+    # (the D end carries the traction of the plain bar of diameter D, module docstring)
+    held = sm.ends if sh is None else np.setdiff1d(sm.ends, sm.end1)
+    fixed = basis.get_dofs(held).all()
     # every component of an end-face node is fixed, so the free unknowns stay in whole 3-blocks
     loc = basis.doflocs[:, fixed]
     comp = fixed % 3
@@ -663,14 +789,17 @@ def solve_segment(sm: SolidMesh, loads=LOADS, E: float = 2.0e11, nu: float = 0.3
     Kff = K[free][:, free].tocsr()
     Kfc = K[free][:, fixed]
     X = np.zeros((n, len(loads)))
+    F = np.zeros((n, len(loads)))
     for j, load_case in enumerate(loads):
         amount = 1e-3 / d if load_case != "tension" else 1e-3  # any amount: the factors are ratios
         u_ex = plain_bar_displacement(load_case, loc[0], loc[1], loc[2] - L / 2, nu, amount)
         X[fixed, j] = u_ex[comp, np.arange(len(fixed))]
+        if sh is not None:
+            F[:, j] = end_traction_load(sm, basis, load_case, amount, E, nu)
     B = rigid_body_modes(basis.doflocs[:, free[::3]])
     for cols, zero in _mirror_groups(sm, basis, loads, free):
         K_, B_ = Kff, B
-        rhs = -(Kfc @ X[fixed][:, cols])
+        rhs = F[free][:, cols] - Kfc @ X[fixed][:, cols]
         if len(zero):
             # the mirror conditions (a component zero on a mirror plane) as identity rows, so the free
             # unknowns stay in whole 3-blocks for the AMG
@@ -685,7 +814,10 @@ def solve_segment(sm: SolidMesh, loads=LOADS, E: float = 2.0e11, nu: float = 0.3
     out = {}
     for j, load_case in enumerate(loads):
         x = X[:, j]
-        load = _end_load(basis, K @ x, sm.end1, load_case) * (2 if sm.symmetry else 1)  # the end face's half
+        if sh is None:
+            load = _end_load(basis, K @ x, sm.end1, load_case) * (2 if sm.symmetry else 1)  # the end face's half
+        else:  # the load the d end carries: its reactions, with the sign of the end z = L's
+            load = -_end_load(basis, K @ x, np.setdiff1d(sm.ends, sm.end1), load_case)
         nominal = nominal_stress(load_case, d, load)
         pts, sig = surface_stresses(sm, basis, x, E, nu)
         mag = stress_measure(sig, load_case)
@@ -702,11 +834,12 @@ def solve_segment(sm: SolidMesh, loads=LOADS, E: float = 2.0e11, nu: float = 0.3
         else:
             at, peak = pts[:, i_raw], mag[i_raw]
         r = np.hypot(pts[0], pts[1])
-        on_feature = bool(abs(math.hypot(at[0], at[1]) - d / 2) > 1e-6 * d)
-        far = _far_field(pts, mag, r, d, L, nominal, load_case)
-        out[load_case] = SolidResult(load_case, load, nominal, float(peak / nominal), at, on_feature,
+        owner = feature_at(seg, at)
+        far = _far_field(pts, mag, r, seg, nominal, load_case)
+        out[load_case] = SolidResult(load_case, load, nominal, float(peak / nominal), at, owner is not None,
                                      pts, sig, basis, x, int(n), far, factor_raw=float(mag[i_raw] / nominal),
-                                     node_points=npts, node_stress=nsig)
+                                     node_points=npts, node_stress=nsig,
+                                     peak_feature=None if owner is None else owner.kind)
     return out
 
 
@@ -753,6 +886,43 @@ def mirrored_surface_stresses(sm: SolidMesh, npts: np.ndarray, nsig: np.ndarray,
         npts = np.concatenate([npts, q], axis=1)
         nsig = np.concatenate([nsig, img[:, :, ~on]], axis=2)
     return npts, nsig
+
+
+def end_traction_load(sm: SolidMesh, basis, load_case: str, amount: float, E: float, nu: float) -> np.ndarray:
+    """The consistent nodal forces (n,) of the plain-bar stress of diameter D on the end face z = L
+    (:func:`fem.forms.plain_bar_end_traction`), carrying the load the plain bar of diameter d takes
+    at ``amount`` (strain, curvature [1/m] or twist [rad/m]): N = EεA_d, M = EκI_d, T = GθJ_d, so the
+    stress there is that times A_d/A_D, I_d/I_D or J_d/J_D."""
+    d, D = sm.segment.d, sm.segment.far_diameter
+    G = E / (2 * (1 + nu))
+    s0 = sx = sy = tau = 0.0
+    if load_case == "tension":
+        s0 = E * amount * (d / D) ** 2
+    elif load_case == "bending_x":
+        sy = E * amount * (d / D) ** 4
+    elif load_case == "bending_y":
+        sx = E * amount * (d / D) ** 4
+    else:
+        tau = G * amount * (d / D) ** 4
+    fb = FacetBasis(sm.mesh, basis.elem, facets=sm.end1, mapping=basis.mapping, intorder=4)
+    return forms.plain_bar_end_traction.assemble(fb, s0=s0, sx=sx, sy=sy, tau=tau)
+
+
+def feature_at(seg: Segment, at) -> object | None:
+    """The feature of ``seg`` a surface point ``at`` (x, y, z) [m] lies on, None on the plain bar
+    (the cylinder of its own diameter, :meth:`Segment.diameter_at`). A point off the plain cylinders
+    belongs to the feature whose z range holds it (the nearest range when none does: a point on a
+    chamfer's rim, say)."""
+    x, y, z = (float(v) for v in at)
+    dl = seg.diameter_at(z)
+    if abs(math.hypot(x, y) - dl / 2) <= 1e-6 * seg.d or not seg.features:
+        return None
+
+    def gap(f):
+        a, b = f.span()
+        return max(a - z, z - b, 0.0)
+
+    return min(seg.features, key=gap)
 
 
 def nominal_stress(load_case: str, d: float, load: float) -> float:
@@ -870,18 +1040,24 @@ def _facet_mapping(sm: SolidMesh):
     return mapping
 
 
-def _far_field(pts, mag, r, d, L, nominal, load_case) -> float:
+def _far_field(pts, mag, r, seg: Segment, nominal, load_case) -> float:
     """Largest relative departure of the surface stress from the elementary one on the plain
-    cylinder within half a diameter of the ends (zero when the model is long enough)."""
-    near_end = (np.minimum(pts[2], L - pts[2]) < 0.5 * d) & (np.abs(r - d / 2) < 1e-6 * d)
-    if not np.any(near_end):
-        return float("nan")
-    if load_case == "bending_x":
-        ref = nominal * np.maximum(pts[1], 0) / (d / 2)
-        val = mag
-    elif load_case == "bending_y":
-        ref = nominal * np.maximum(pts[0], 0) / (d / 2)
-        val = mag
-    else:
-        ref, val = nominal, mag
-    return float(np.max(np.abs(val[near_end] - ref[near_end] if np.ndim(ref) else val[near_end] - ref)) / nominal)
+    cylinder within half a diameter of the ends (zero when the model is long enough), each end
+    against its own diameter's elementary stress for the same load (the D end of a shoulder: the
+    nominal times (d/D)² in tension, (d/D)³ in bending and torsion); relative to the d nominal."""
+    L = seg.length
+    worst = float("nan")
+    for end, dia in ((0.0, seg.d), (L, seg.far_diameter)):
+        near = (np.abs(pts[2] - end) < 0.5 * seg.d) & (np.abs(r - dia / 2) < 1e-6 * seg.d)
+        if not np.any(near):
+            continue
+        nom = nominal * (seg.d / dia) ** (2 if load_case == "tension" else 3)
+        if load_case == "bending_x":
+            ref = nom * np.maximum(pts[1][near], 0) / (dia / 2)
+        elif load_case == "bending_y":
+            ref = nom * np.maximum(pts[0][near], 0) / (dia / 2)
+        else:
+            ref = nom
+        dev = float(np.max(np.abs(mag[near] - ref))) / nominal
+        worst = dev if not worst >= dev else worst
+    return worst

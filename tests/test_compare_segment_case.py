@@ -95,3 +95,50 @@ def test_segment_study_stopped_by_max_seconds_has_no_estimate(tmp_path, capsys):
     assert all(res["segments"][0][f"{k}_gci"] is None for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"))
     assert printed.splitlines()[1].startswith("WARNING: ACCURACY TARGET NOT SHOWN")
     assert "max_seconds" in printed.splitlines()[1]
+
+
+@pytest.mark.parametrize("shoulder, field, written", [
+    ("{ D = 25, fillet = 2, at = 50 }", "segment.shoulder.D", "25"),
+    ("{ D = 45, fillet = 9, at = 50 }", "segment.shoulder.fillet", "9"),
+    ("{ D = 45, fillet = 2, at = 70 }", "segment.shoulder.at", "70"),
+    ("{ D = 45, fillet = 2 }", "segment.shoulder.at", "is missing"),
+    ("{ D = 45, fillet = 2, at = 50, radius = 1 }", "segment.shoulder.radius", "1"),
+    ("{ D = 45, fillet = 2, at = 38.5 }", "segment.at", "shoulder's fillet"),
+])
+def test_segment_shoulder_bad_input_is_one_line(tmp_path, capsys, shoulder, field, written):
+    """A bad shoulder beside the segment's feature: one line naming the field and the value as written
+    (or what is wrong), exit 2, nothing written (the hole at mid-length, 37.5 mm, 6 mm wide: a shoulder
+    face at 38.5 mm puts the hole on the 2 mm fillet)."""
+    p = _hole_case(tmp_path, "")
+    p.write_text(p.read_text().replace("hole_diameter = 6\n", f"hole_diameter = 6\nshoulder = {shoulder}\n"))
+    code = main(["run", str(p), "--out", str(tmp_path / "out"), "--quiet"])
+    err = capsys.readouterr().err
+    assert code == 2
+    assert err.count("\n") == 1 and field in err and written in err, err
+    assert not (tmp_path / "out").exists()
+
+
+@pytest.mark.slow
+def test_segment_beside_a_shoulder_through_the_cli(tmp_path, capsys):
+    """A cross hole of 0.2 d on the small diameter beside a shoulder (D/d = 1.5, r/d = 0.1): results carry
+    the shoulder and, per factor, the feature its peak sits on. Bending about y puts the hole's mouths on
+    the most stressed fibres, where the hole's factor (about 3 on the gross nominal: Pilkey, Peterson's
+    Stress Concentration Factors, 2nd ed., transverse hole in bending, about 2.0 on the net section;
+    from memory) is far above the shoulder's (about 1.8: Roark's Formulas for Stress and Strain, 7th
+    ed., Table 17.1, from memory): that peak sits on the hole (tests/test_fem_solid_shoulder.py)."""
+    p = _hole_case(tmp_path, "")
+    text = p.read_text().replace("length = 75\n", "length = 90\nat = 27\n").replace("fineness = 0.3", "fineness = 0.25")
+    p.write_text(text.replace("hole_diameter = 6\n", "hole_diameter = 6\nshoulder = { D = 45, fillet = 3, at = 37.5 }\n"))
+    code = main(["run", str(p), "--out", str(tmp_path / "out"), "--no-vtu"])
+    printed = capsys.readouterr().out
+    res = json.loads((tmp_path / "out" / "results.json").read_text())
+    (seg,) = res["segments"]
+    assert seg["shoulder"] == {"D": pytest.approx(0.045), "fillet": pytest.approx(0.003), "at": pytest.approx(0.0375)}
+    assert seg["peak_location"]["kt_bending_y"]["feature"] == "cross_hole"
+    assert all(seg["peak_location"][k]["feature"] in ("cross_hole", "shoulder", None)
+               for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"))
+    assert seg["kt_bending_y"] > 2.2
+    assert "beside a shoulder" in printed
+    html = (tmp_path / "out" / "report.html").read_text()
+    assert "Beside a shoulder" in html and "cross hole" in html
+    assert code == res["exit_code"] in (0, 3)

@@ -7,6 +7,9 @@ length, default 3 diameters), ``at`` (the feature's centre along the segment, de
 keyseats: ``width``, ``depth``, ``fillet`` (or ``standard = "metric"`` for the metric parallel key's
 keyway of the diameter, classic/keys.py), ``key_length`` (end to end), sled runner ``cutter_diameter``;
 cross hole: ``hole_diameter``, ``chamfer`` (default 0), ``hole_depth`` (blind; default through).
+Optional ``shoulder = { D = ..., fillet = ..., at = ... }``: the segment steps up from ``diameter`` to
+``D`` at ``at`` (the shoulder face; the larger diameter beyond it) through a quarter-round ``fillet``;
+the feature must lie clear of the fillet, on either diameter.
 """
 from __future__ import annotations
 
@@ -19,7 +22,8 @@ from .units import to_si
 
 KINDS = ("keyseat_end", "sled_runner", "cross_hole")
 _KEYS = {"kind", "diameter", "length", "at", "width", "depth", "fillet", "key_length", "cutter_diameter",
-         "hole_diameter", "chamfer", "hole_depth", "standard"}
+         "hole_diameter", "chamfer", "hole_depth", "standard", "shoulder"}
+_SHOULDER_KEYS = {"D", "fillet", "at"}
 _ALLOWED = {"keyseat_end": {"width", "depth", "fillet", "key_length", "standard"},
             "sled_runner": {"width", "depth", "fillet", "key_length", "cutter_diameter", "standard"},
             "cross_hole": {"hole_diameter", "chamfer", "hole_depth"}}
@@ -33,7 +37,7 @@ def parse_segment(s, units) -> solid.Segment:
     if kind not in KINDS:
         raise InputError("segment.kind", kind, "must be \"keyseat_end\", \"sled_runner\" or \"cross_hole\"")
     for k in s:
-        if k not in _ALLOWED[kind] | {"kind", "diameter", "length", "at"}:
+        if k not in _ALLOWED[kind] | {"kind", "diameter", "length", "at", "shoulder"}:
             raise InputError(f"segment.{k}", s[k], f"is not a field of a {kind} segment")
 
     def length(key, default=None, required=True):
@@ -77,10 +81,27 @@ def parse_segment(s, units) -> solid.Segment:
             feat = solid.ProfileKeyseat(width, depth, z0, z1, fillet)
         else:
             feat = solid.SledKeyseat(width, depth, z0, z1, length("cutter_diameter"), fillet)
-    seg = solid.Segment(d, L, (feat,))
+    feats = (feat,)
+    sh = s.get("shoulder")
+    if sh is not None:
+        if not isinstance(sh, dict):
+            raise InputError("segment.shoulder", sh, "must be a table: shoulder = { D = ..., fillet = ..., at = ... }")
+        known(sh, _SHOULDER_KEYS, "segment.shoulder")
+        vals = {}
+        for key in ("D", "fillet", "at"):
+            if key not in sh:
+                raise InputError(f"segment.shoulder.{key}", None, "is missing")
+            vals[key] = to_si(sh[key], "length", f"segment.shoulder.{key}", units)
+            if not vals[key] > 0:
+                raise InputError(f"segment.shoulder.{key}", sh[key], "must be a positive length")
+        feats = (feat, solid.Shoulder(vals["D"], vals["at"], vals["fillet"]))
+    seg = solid.Segment(d, L, feats)
     try:
         seg.check("segment")
     except InputError as exc:  # name the case-file field; echo the value as written where there is one
+        if exc.field.startswith("segment.features[1]."):
+            key = {"z": "at"}.get(exc.field.rsplit(".", 1)[1], exc.field.rsplit(".", 1)[1])
+            raise InputError(f"segment.shoulder.{key}", sh.get(key), exc.reason) from None
         f = exc.field.replace("segment.features[0].", "segment.")
         f = {"segment.d": "segment.diameter", "segment.z": "segment.at", "segment.z1": "segment.key_length",
              "segment.diameter": "segment.hole_diameter" if kind == "cross_hole" else "segment.diameter",

@@ -31,8 +31,9 @@ def segment_report_files(a, res: dict, date: str | None = None) -> dict[str, str
     for key, name in _NAMES.items():
         g, c = s[f"{key}_gci"], s[f"{key}_chart"]
         at = ", ".join(f.q0(v, "length", s["diameter"]) for v in s["peak_location"][key]["at"])
+        on = s["peak_location"][key].get("feature")
         rows.append((name, f"{s[key]:.4g}", "—" if g is None else f"{100 * g:.3g} %", s[f"{key}_status"],
-                     "—" if c is None else f"{c:.3g}", f"({at})"))
+                     "—" if c is None else f"{c:.3g}", f"({at})", "plain bar" if on is None else on.replace("_", " ")))
     verdict = ("The three-mesh estimates meet the target: the factors above carry the stated uncertainty."
                if acc["met"] else "ACCURACY TARGET NOT SHOWN: these factors are estimates, not a verdict.")
     body = (f"<h1>{e(res['case']['title'])}</h1><p class=\"small\">shaftcheck {e(res['tool']['version'])} 3-D segment "
@@ -40,7 +41,11 @@ def segment_report_files(a, res: dict, date: str | None = None) -> dict[str, str
             + f"<h2>Factors</h2><p>{e(s['kind'].replace('_', ' '))} on a {e(f.q(s['diameter'], 'length'))} shaft, "
             f"modelled over {e(f.q(s['length'], 'length'))}; meshes {e(str(acc['meshes']))} unknowns; target "
             f"{100 * acc['target']:.3g} %.</p>"
-            + _table(("factor", "FE (finest)", "estimate", "study", "chart", "peak (x, y, z)"), rows, numeric=(1, 2, 4))
+            + (f"<p>Beside a shoulder up to {e(f.q(s['shoulder']['D'], 'length'))} at "
+               f"{e(f.q(s['shoulder']['at'], 'length'))} (fillet {e(f.q(s['shoulder']['fillet'], 'length'))}); "
+               f"nominal stresses on the {e(f.q(s['diameter'], 'length'))} diameter.</p>" if s.get("shoulder") else "")
+            + _table(("factor", "FE (finest)", "estimate", "study", "chart", "peak (x, y, z)", "peak on"), rows,
+                     numeric=(1, 2, 4))
             + (f"<p class=\"small\">chart: {e(s['chart_source'])}</p>" if s.get("chart_source") else "")
             + "<h2>Stress on the surface near the feature</h2>" + "".join(_img(x) for x in figs)
             + "<p class=\"small\">The surface sample points of the finest mesh, unrolled onto the shaft's surface "

@@ -25,8 +25,9 @@ def segment_results(a, warnings_out, schema_version: int) -> dict:
         entry[f"{r['key']}_gci"] = r["gci"]
         entry[f"{r['key']}_status"] = r["status"]
         entry[f"{r['key']}_chart"] = r["chart"]
-        peaks[r["key"]] = {"at": r["peak_at"], "on_feature": r["peak_on_feature"]}
+        peaks[r["key"]] = {"at": r["peak_at"], "on_feature": r["peak_on_feature"], "feature": r.get("peak_feature")}
     entry["peak_location"] = peaks
+    entry["shoulder"] = seg.get("shoulder")
     entry["chart_source"] = next((r["chart_source"] for r in a.extra["segment_rows"] if r["chart_source"]), None)
     out = {
         "schema_version": schema_version, "tool": {"name": "shaftcheck", "version": __version__},
@@ -64,6 +65,10 @@ def segment_summary(res: dict, system) -> str:
     acc = res["accuracy"]
     lines.append(f"  3-D segment: {s['kind']} on a {f.q(s['diameter'], 'length')} shaft, feature at "
                  f"{f.q(s['at'], 'length')} along it; meshes {acc['meshes']} unknowns, {acc['seconds']:.0f} s")
+    if s.get("shoulder"):
+        sh = s["shoulder"]
+        lines.append(f"  beside a shoulder up to {f.q(sh['D'], 'length')} at {f.q(sh['at'], 'length')}, fillet "
+                     f"{f.q(sh['fillet'], 'length')}; nominal stresses on the {f.q(s['diameter'], 'length')} diameter")
     lines.append("")
     lines.append(f"  {'factor':<14} {'FE':>7} {'estimate':>9} {'chart':>7}  peak (x, y, z)")
     for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
@@ -71,7 +76,8 @@ def segment_summary(res: dict, system) -> str:
         at = ", ".join(f.q0(v, "length", s["diameter"]) for v in s["peak_location"][k]["at"])
         lines.append(f"  {k:<14} {s[k]:>7.3f} {'—' if g is None else f'{100 * g:.2g} %':>9} "
                      f"{'—' if c is None else f'{c:.2f}':>7}  ({at})"
-                     f"{'' if s['peak_location'][k]['on_feature'] else ' away from the feature'}")
+                     f"{'' if s['peak_location'][k]['on_feature'] else ' away from the feature'}"
+                     f"{' on the shoulder' if s['peak_location'][k].get('feature') == 'shoulder' else ''}")
     if s["chart_source"]:
         lines.append(f"  chart: {s['chart_source']}")
     lines.append("")

@@ -32,16 +32,20 @@ def segment_step(case, fineness: float | None = None) -> Analysis:
     st = study_segment(seg, fineness=fineness if fineness is not None else an.fineness, E=E, nu=m.poisson,
                        max_dofs=an.max_dofs, max_seconds=an.max_seconds)
     feat = seg.features[0]
+    sh = seg.shoulder
     a, b = feat.span()
     rows = []
     for load, key in KEYS.items():
         est = st.estimates[key]
-        chart = KEYSEAT_CHART.get(key) if feat.kind == "keyseat_end" else None
+        # the keyseat's chart is of a keyseat alone: none beside a shoulder, whose fillet may hold the peak
+        chart = KEYSEAT_CHART.get(key) if feat.kind == "keyseat_end" and sh is None else None
         rows.append({"key": key, "load": load, "value": st.values[key], "gci": est["gci"], "status": est["status"],
                      "peak_at": st.peaks[key]["at"], "peak_on_feature": st.peaks[key]["on_feature"],
+                     "peak_feature": st.peaks[key].get("feature"),
                      "chart": chart, "chart_source": KEYSEAT_CHART_SOURCE if chart is not None else None})
     out = Analysis(case, None, None, None, [], {"solve": time.perf_counter() - t0})
-    out.extra["segment"] = {"study": st, "kind": feat.kind, "at": (a + b) / 2, "span": [a, b]}
+    out.extra["segment"] = {"study": st, "kind": feat.kind, "at": (a + b) / 2, "span": [a, b],
+                            "shoulder": None if sh is None else {"D": sh.D, "fillet": sh.fillet, "at": sh.z}}
     out.extra["segment_rows"] = rows
     out.extra["warnings"] = []
     return out

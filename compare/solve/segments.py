@@ -1,4 +1,4 @@
-"""Short shaft segments with a 3-D feature (a keyseat's end, a cross hole), solved in 3-D
+"""Short shaft segments with a 3-D feature (a keyseat's end, a cross hole, a shoulder), solved in 3-D
 (fem/solid.py) on three geometrically similar meshes.
 
 :func:`study_segment` meshes the segment at element sizes scaled by r², r and 1 (r = :data:`RATIO`,
@@ -28,7 +28,8 @@ KEYS = {"tension": "kt_axial", "bending_x": "kt_bending_x", "bending_y": "kt_ben
 class SegmentStudy:
     """The factors of one segment: ``values[key]`` on the finest mesh, ``estimates[key]`` the study
     record (observed order, GCI as a fraction, extrapolated value, status), ``peaks[key]`` the peak's
-    place (x, y, z) [m] and whether it is on the feature, ``dofs`` per mesh (coarse to fine)."""
+    place (x, y, z) [m], whether it is on a feature and on which (its kind), ``dofs`` per mesh (coarse
+    to fine)."""
 
     segment: object
     values: dict = field(default_factory=dict)
@@ -82,7 +83,8 @@ def study_segment(seg, fineness: float = 1.0, loads=solid.LOADS, E: float = 2.0e
             out.estimates[key] = dict(dofs=[r[load].dofs for r in runs], values=[r[load].factor for r in runs],
                                       observed_order=None, extrapolated=None, gci=None, asymptotic=False,
                                       status=f"no estimate: {limited}", relative_to="value")
-            out.peaks[key] = {"at": [float(v) for v in fine.peak_at], "on_feature": fine.peak_on_feature}
+            out.peaks[key] = {"at": [float(v) for v in fine.peak_at], "on_feature": fine.peak_on_feature,
+                              "feature": fine.peak_feature}
             out.far_field[key] = fine.far_field
             out.finest[load] = fine
         out.seconds = time.perf_counter() - t0
@@ -94,7 +96,8 @@ def study_segment(seg, fineness: float = 1.0, loads=solid.LOADS, E: float = 2.0e
         fine = runs[2][load]
         out.values[key] = fine.factor
         out.estimates[key] = one_study(key, vals, dofs, (ratio, ratio), seg.d)
-        out.peaks[key] = {"at": [float(v) for v in fine.peak_at], "on_feature": fine.peak_on_feature}
+        out.peaks[key] = {"at": [float(v) for v in fine.peak_at], "on_feature": fine.peak_on_feature,
+                          "feature": fine.peak_feature}
         out.far_field[key] = fine.far_field
         out.finest[load] = fine
     out.seconds = time.perf_counter() - t0
