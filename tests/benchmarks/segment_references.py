@@ -1,4 +1,4 @@
-"""A converged 3-D reference for one cross-hole geometry, independent of the segment study's meshes.
+"""A 3-D reference for one cross-hole geometry on meshes far finer at the hole than the segment study's.
 
 The geometry (:data:`GEOMETRY`): a solid round shaft d = 30 mm, modelled over 2.5 d, with a plain
 through hole of 0.2 d (no chamfer) across its axis at mid-length. The factors of tension, bending in
@@ -7,8 +7,10 @@ past the study's: global fineness :data:`REF_FINENESS`, the hole's sizes divided
 ``local`` = :data:`REF_LOCAL` (ratio 1.4 from mesh to mesh; the plain bar, whose elementary field the
 quadratic elements hold exactly, keeps its size). The reference is the Richardson extrapolation of
 the three finest values (classic/gci.py), its uncertainty the GCI of that sequence with Fs 3 and the
-order limited to [0.5, 2] (at least the last change where the order is not shown), or, where the
-sequence is not monotone, three times the spread of the last three values. The engine's own solver
+order limited to [0.5, 2] (at least the last change). Where the three do not converge
+monotonically (:func:`converged` false) the record holds the finest value with three times the
+spread of the last three as its uncertainty (the project's rule for an oscillating sequence, Fs 3):
+an interval the value is taken to lie in, not a converged value. The engine's own solver
 (direct up to fem.solid.DIRECT_LIMIT unknowns, AMG + CG above, every solve checked against its
 residual). Prints the sequences, CPU seconds and unknowns, and
 writes tests/data/segment_references.json with its provenance (command, date, figures), which
@@ -65,6 +67,12 @@ def extrapolate(vals: list[float], r: float) -> dict:
         ref = last[-1]
         u = REF_FS * max(abs(v - last[-1]) for v in last)
     return {"reference": ref, "uncertainty": u, "observed_order": s.order, "status": s.status}
+
+
+def converged(rec: dict) -> bool:
+    """Whether a stored reference converged: its last three values converge monotonically at a
+    positive order. Otherwise it is the finest value with three times the spread as its uncertainty."""
+    return rec["status"] == "monotone convergence" and (rec["observed_order"] or 0) > 0
 
 
 def write(out: Path, argv: list[str], local, runs, dofs, cpus, c_all) -> dict:
