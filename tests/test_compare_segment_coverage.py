@@ -14,9 +14,9 @@ accuracy target (analysis.accuracy = 1e-3), and covered only if the estimate exc
 plus the reference's whole uncertainty. Each comparison stores {"fem", "exact"} with the reference as
 "exact".
 
-Measured (the stored run, 2026-12-04, 261 CPU s): the reference sequence (local refinement 1, 1.4,
-1.96, 2.744 at fineness 0.45; 35k, 64k, 141k, 315k unknowns) did NOT converge monotonically in any
-load: tension 3.583, 3.582, 3.667, 3.583; bending about y 3.196, 3.202, 3.228, 3.193; torsion
+Measured (the stored run, 2026-12-04, 263 CPU s; an earlier run gave the same values to the last
+digit): the reference sequence (local refinement 1, 1.4, 1.96, 2.744 at fineness 0.45; 35k, 64k,
+141k, 315k unknowns) did NOT converge monotonically in any load: tension 3.583, 3.582, 3.667, 3.583; bending about y 3.196, 3.202, 3.228, 3.193; torsion
 1.850, 1.926, 1.963, 1.961 (in tension and bending the third mesh reads high at the hole's mouth,
 where the bore meets the shaft's surface in an edge). So the references are intervals, not converged values: 3.583 ± 0.251
 (7.0 %), 3.193 ± 0.105 (3.3 %), 1.961 ± 0.104 (5.3 %), and coverage is asserted against their far
