@@ -19,7 +19,10 @@ import meshio
 import numpy as np
 import pytest
 
+from classic.cross_hole import cross_hole_kt_bending, cross_hole_kts_torsion
 from compare.cli.main import main
+from compare.pairs.segment_step import handbook_value
+from fem import solid
 
 CASE = Path(__file__).parent.parent / "cases" / "keyseat_end_3d.toml"
 
@@ -142,3 +145,54 @@ def test_segment_beside_a_shoulder_through_the_cli(tmp_path, capsys):
     html = (tmp_path / "out" / "report.html").read_text()
     assert "Beside a shoulder" in html and "cross hole" in html
     assert code == res["exit_code"] in (0, 3)
+
+
+@pytest.mark.parametrize("extra, chart", [("", True), ("chamfer = 0.5\n", False)])
+def test_cross_hole_handbook_values_beside(tmp_path, capsys, extra, chart):
+    """A plain through cross hole gets Peterson's fits beside its factors (Peterson's Stress
+    Concentration Factors, 3rd ed., sec. 4.5.9, solid bar, gross section; coefficients from memory):
+    bending in the plane of the hole's axis (kt_bending_y) and torsion (kts, half the fit's σmax/τ);
+    each as a pair whose ratio is computed from FE and fit. No value for tension or for bending about
+    the hole's own axis, and none for a chamfered hole (another geometry), each with its reason. One
+    mesh (max_seconds stops the study): the handbook values do not depend on the estimate."""
+    case = _hole_case(tmp_path, "max_seconds = 0.001")
+    case.write_text(case.read_text().replace("hole_diameter = 6\n", "hole_diameter = 6\n" + extra))
+    main(["run", str(case), "--out", str(tmp_path / "out")])
+    printed = capsys.readouterr().out
+    res = json.loads((tmp_path / "out" / "results.json").read_text())
+    (seg,) = res["segments"]
+    pairs = {p["quantity"]: p for p in res["compare"]}
+    assert seg["kt_axial_chart"] is None and "tension" in seg["kt_axial_chart_why"]
+    assert seg["kt_bending_x_chart"] is None and "neutral plane" in seg["kt_bending_x_chart_why"]
+    if chart:
+        want = {"kt_bending_y": cross_hole_kt_bending(0.006, 0.030), "kts": cross_hole_kts_torsion(0.006, 0.030)}
+        for k, v in want.items():
+            assert seg[f"{k}_chart"] == pytest.approx(v, rel=1e-12)
+            assert "Peterson" in seg[f"{k}_chart_source"] and "from memory" in seg[f"{k}_chart_source"]
+            assert pairs[k]["classic"] == pytest.approx(v, rel=1e-12) and pairs[k]["kind"] == "factor"
+            assert pairs[k]["ratio"] == pytest.approx(seg[k] / v, rel=1e-12)
+        assert "Peterson" in printed and "no chart value for kt_axial" in printed
+        html = (tmp_path / "out" / "report.html").read_text()
+        assert "Peterson" in html
+        assert "Peterson" in (tmp_path / "out" / "results.csv").read_text()
+    else:
+        for k in ("kt_bending_y", "kts"):
+            assert seg[f"{k}_chart"] is None and "chamfered" in seg[f"{k}_chart_why"]
+            assert pairs[k]["classic"] is None and pairs[k]["ratio"] is None
+        assert "Peterson" not in printed
+    for k in ("kt_axial", "kt_bending_x"):
+        assert pairs[k]["kind"] == "not applicable" and pairs[k]["ratio"] is None
+
+
+def test_cross_hole_handbook_value_outside_its_range_or_blind():
+    """Outside the fit's d/D range (0, 0.4] (Peterson, 3rd ed., from memory), or a blind hole: no value,
+    the reason said; never a clamped value."""
+    big = solid.CrossHole(0.015, 0.0375)  # d/D = 0.5
+    v, src, why = handbook_value(big, 0.030, "kts")
+    assert v is None and src is None and "outside the fit's range" in why and "0.5" in why
+    blind = solid.CrossHole(0.006, 0.0375, depth=0.02)
+    v, src, why = handbook_value(blind, 0.030, "kt_bending_y")
+    assert v is None and "blind" in why
+    ok = solid.CrossHole(0.012, 0.0375)  # d/D = 0.4, the range's closed end
+    v, src, why = handbook_value(ok, 0.030, "kt_bending_y")
+    assert v == pytest.approx(3 - 6.25 * 0.4 + 41 * 0.16 - 45 * 0.064) and why is None

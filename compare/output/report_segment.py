@@ -46,7 +46,10 @@ def segment_report_files(a, res: dict, date: str | None = None) -> dict[str, str
                f"nominal stresses on the {e(f.q(s['diameter'], 'length'))} diameter.</p>" if s.get("shoulder") else "")
             + _table(("factor", "FE (finest)", "estimate", "study", "chart", "peak (x, y, z)", "peak on"), rows,
                      numeric=(1, 2, 4))
-            + (f"<p class=\"small\">chart: {e(s['chart_source'])}</p>" if s.get("chart_source") else "")
+            + "".join(f"<p class=\"small\">chart: {e(src)}</p>" for src in dict.fromkeys(
+                s[f"{k}_chart_source"] for k in _NAMES if s.get(f"{k}_chart_source")))
+            + ("".join(f"<p class=\"small\">no chart value for {e(_NAMES[k])}: {e(s[f'{k}_chart_why'])}</p>"
+                       for k in _NAMES if s.get(f"{k}_chart_why")) if s.get("chart_source") else "")
             + "<h2>Stress on the surface near the feature</h2>" + "".join(_img(x) for x in figs)
             + "<p class=\"small\">The surface sample points of the finest mesh, unrolled onto the shaft's surface "
               "(points on the feature's own faces drawn where they project radially onto it).</p>"
@@ -57,10 +60,11 @@ def segment_report_files(a, res: dict, date: str | None = None) -> dict[str, str
             f"<body>{body}</body></html>\n")
     buf = io.StringIO()
     w = csv.writer(buf, lineterminator="\n")
-    w.writerow(["factor", "results_json_key", "value", "estimated_error", "status"])
+    w.writerow(["factor", "results_json_key", "value", "estimated_error", "status", "chart", "chart_source"])
     for key, name in _NAMES.items():
+        c = s[f"{key}_chart"]
         w.writerow([name, f"segments[0].{key}", repr(s[key]), "" if s[f"{key}_gci"] is None else repr(s[f"{key}_gci"]),
-                    s[f"{key}_status"]])
+                    s[f"{key}_status"], "" if c is None else repr(c), s.get(f"{key}_chart_source") or ""])
     out: dict[str, str | bytes] = {"report.html": html, "results.csv": buf.getvalue()}
     for fg in figs:
         out[f"figures/{fg.name}.svg"] = fg.svg

@@ -8,6 +8,8 @@ from .report import CAUTION, Fmt
 SEGMENT_CAUTION = ("a chart read by eye and this 3-D FE both need checking: the factors are per unit load on a short "
                    "segment with plain-bar ends, the peaks on small radii read high on coarse meshes")
 
+_KEYS = ("kt_axial", "kt_bending_x", "kt_bending_y", "kts")
+
 
 def segment_results(a, warnings_out, schema_version: int) -> dict:
     case = a.case
@@ -25,6 +27,8 @@ def segment_results(a, warnings_out, schema_version: int) -> dict:
         entry[f"{r['key']}_gci"] = r["gci"]
         entry[f"{r['key']}_status"] = r["status"]
         entry[f"{r['key']}_chart"] = r["chart"]
+        entry[f"{r['key']}_chart_source"] = r["chart_source"]
+        entry[f"{r['key']}_chart_why"] = r.get("chart_why")
         peaks[r["key"]] = {"at": r["peak_at"], "on_feature": r["peak_on_feature"], "feature": r.get("peak_feature")}
     entry["peak_location"] = peaks
     entry["shoulder"] = seg.get("shoulder")
@@ -35,6 +39,7 @@ def segment_results(a, warnings_out, schema_version: int) -> dict:
                  "file": str(case.path) if case.path else None},
         "caution": CAUTION,
         "segments": [entry],
+        "compare": [p.to_dict() for p in a.pairs],
         "convergence": st.estimates,
         "accuracy": {"target": target, "achieved": achieved, "met": bool(met), "limited_by": st.limited,
                      "meshes": st.dofs, "seconds": st.seconds,
@@ -71,15 +76,19 @@ def segment_summary(res: dict, system) -> str:
                      f"{f.q(sh['fillet'], 'length')}; nominal stresses on the {f.q(s['diameter'], 'length')} diameter")
     lines.append("")
     lines.append(f"  {'factor':<14} {'FE':>7} {'estimate':>9} {'chart':>7}  peak (x, y, z)")
-    for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
+    for k in _KEYS:
         g, c = s[f"{k}_gci"], s[f"{k}_chart"]
         at = ", ".join(f.q0(v, "length", s["diameter"]) for v in s["peak_location"][k]["at"])
         lines.append(f"  {k:<14} {s[k]:>7.3f} {'—' if g is None else f'{100 * g:.2g} %':>9} "
                      f"{'—' if c is None else f'{c:.2f}':>7}  ({at})"
                      f"{'' if s['peak_location'][k]['on_feature'] else ' away from the feature'}"
                      f"{' on the shoulder' if s['peak_location'][k].get('feature') == 'shoulder' else ''}")
+    for src in dict.fromkeys(s[f"{k}_chart_source"] for k in _KEYS if s.get(f"{k}_chart_source")):
+        lines.append(f"  chart: {src}")
     if s["chart_source"]:
-        lines.append(f"  chart: {s['chart_source']}")
+        for k in _KEYS:
+            if s.get(f"{k}_chart_why"):
+                lines.append(f"  no chart value for {k}: {s[f'{k}_chart_why']}")
     lines.append("")
     lines.append("Not checked: no loads, no stresses, no factor of safety; the factors alone (per unit load).")
     return "\n".join(lines)
