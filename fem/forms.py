@@ -348,8 +348,8 @@ def plain_bar_end_traction(v, w):
     ``tau``·(−y, x) (torsion); scalars in Pa and Pa/m (the consistent nodal forces of a traction
     end, fem/solid.py)."""
     x, y = w.x[0], w.x[1]
-    return (v.value[0] * (-w.tau * y) + v.value[1] * (w.tau * x)
-            + v.value[2] * (w.s0 + w.sx * x + w.sy * y))
+    return (v[0] * (-w.tau * y) + v[1] * (w.tau * x)
+            + v[2] * (w.s0 + w.sx * x + w.sy * y))
 
 
 def derivative_product(a: int, b: int):
