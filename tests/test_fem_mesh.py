@@ -162,3 +162,23 @@ def test_a_moved_copy_takes_over_the_facets_it_would_build_itself():
     assert np.array_equal(p2_dofs(fresh).element_dofs, Basis(fresh, ElementTriP2()).element_dofs)
     other = mesh_section(KEYED, MeshOptions(fineness=0.5)).mesh
     assert same_topology(other, sm.mesh).facets is not sm.mesh.facets  # other elements: nothing handed over
+
+
+def test_the_spline_grading_reaches_spline_sections_only():
+    """``MeshOptions.spline_grading`` is the growth away from a spline's root fillets: a keyed
+    section's mesh is the same whatever it is; a spline's mesh keeps its fillet size (set by
+    ``per_circle``) and has fewer elements with the steeper growth."""
+    from fem.estimate import element_sizes
+    from fem.mesh import MeshOptions
+    from fem.splines import involute_spline_section
+
+    keyed = keyed_section(0.03, [Keyway(0.008, 0.004, 0.0006)])
+    a = mesh_section(keyed, MeshOptions(fineness=0.5))
+    b = mesh_section(keyed, MeshOptions(fineness=0.5, spline_grading=0.9))
+    assert a.mesh.p.shape == b.mesh.p.shape and np.array_equal(a.mesh.p, b.mesh.p)
+    spline = involute_spline_section(12, 1.0e-3, 30.0, root="fillet")
+    gentle = mesh_section(spline, MeshOptions(fineness=0.5, spline_grading=0.25))
+    steep = mesh_section(spline, MeshOptions(fineness=0.5, spline_grading=0.5))
+    assert steep.mesh.t.shape[1] < 0.85 * gentle.mesh.t.shape[1]
+    h_gentle, h_steep = element_sizes(gentle.mesh).min(), element_sizes(steep.mesh).min()
+    assert h_steep == pytest.approx(h_gentle, rel=0.2)
