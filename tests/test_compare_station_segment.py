@@ -261,3 +261,36 @@ def test_standing_shaft_turned_hole_reproduces_its_factor(tmp_path):
     assert check["fem"] == pytest.approx(check["exact"], rel=1e-9)
     assert not s["rotating"] and s["sigma_a_vm"] == 0.0
     assert res["segments"][0]["kt_bending_y"] > res["segments"][0]["kt_bending_x"]  # the hole in the bending plane
+
+
+@pytest.mark.slow
+def test_station_quarter_model_within_the_estimates_of_the_whole(tmp_path):
+    """The station's cross hole (through, centred in its model) is solved on the quarter model by
+    default and on the whole segment with ``model = "whole"``: every factor of the two studies within
+    the sum of their three-mesh estimates (each bounds its own error; the meshes differ), the model
+    recorded, and the superposed unit fields read the whole surface in both (points on both sides of
+    both mirror planes, in the model's frame)."""
+    import numpy as np
+
+    from compare.pairs.station_segment import station_segments_step
+
+    recs, fields = {}, {}
+    for model in ("", ', model = "whole"'):
+        case_path = tmp_path / "case.toml"
+        case_path.write_text(LAYOUT.replace("fineness = 0.3 }", f"fineness = 0.25{model} }}"))
+        case = load_case(case_path)
+        (rec,) = station_segments_step(case)
+        recs[rec["model"]] = rec
+        fields[rec["model"]] = case.shaft.stations[0].kt["segment_stresses"][0]["fields"]
+    q, w = recs["quarter"], recs["whole"]
+    for key in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
+        gq, gw = q[f"{key}_gci"], w[f"{key}_gci"]
+        assert gq is not None and gw is not None, key
+        got = {"fem": q[key], "exact": w[key]}  # "exact": the whole segment's study
+        assert abs(got["fem"] - got["exact"]) <= gq * got["fem"] + gw * got["exact"], (key, got, gq, gw)
+    for fl in fields.values():
+        turn = np.radians(-fl.turn)  # back to the model's frame: the hole's axis along x
+        x = np.cos(turn) * fl.points[0] - np.sin(turn) * fl.points[1]
+        z = fl.points[2] - q["length"] / 2
+        assert (x > 0.1 * q["diameter"]).any() and (x < -0.1 * q["diameter"]).any()
+        assert (z > 0.3 * q["diameter"]).any() and (z < -0.3 * q["diameter"]).any()
