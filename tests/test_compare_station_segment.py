@@ -78,6 +78,7 @@ def test_results_keys_and_exit_code(layout_run):
     (seg,) = res["segments"]
     assert seg["station"] == 0 and seg["kind"] == "cross_hole" and seg["field"] == "shaft.sections[0].segment"
     assert seg["centre"] == pytest.approx(0.15) and seg["angle_deg"] == 30.0 and seg["diameter"] == pytest.approx(0.024)
+    assert seg["model"] == "quarter"  # a through hole centred in its model: mirror symmetric about two planes
     for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
         assert seg[k] > 1.0, k  # a hole raises the stress under every load (Peterson's charts: Kt > 1)
         assert f"{k}_gci" in seg and len(seg["peak_location"][k]["at"]) == 3
@@ -163,7 +164,7 @@ def test_layout_report_has_the_surface_figure(layout_run):
     html = (out / "report.html").read_text()
     assert (out / "figures" / "station1_segment_surface.png").stat().st_size > 1000
     assert "station1_segment_surface" in html and "3-D segment FE at the feature" in html
-    assert "<h3>3-D feature</h3>" in html and "Kt bending" in html
+    assert "<h3>3-D feature</h3>" in html and "Kt bending" in html and "quarter model by symmetry" in html
 
 
 SEGMENT = """[case]
