@@ -15,7 +15,8 @@ The keyseat is mirror symmetric and centred, so the demo solves the quarter mode
 ``model``, said in the summary). Measured: quarter model at the demo's fineness 0.4, 17k/29k/53k
 unknowns, 65 CPU s, estimates 8.7 / 5.7 / 0.3 / 0.4 % (tension / bending x / bending y / torsion), within
 the 25 % target: exit 0 (at fineness 0.3: 12k/18k/30k, 40 CPU s, 10 / 9.2 / 0.8 / 2.1 %); before, on the
-whole segment at fineness 0.3, 40k/68k/123k unknowns, about 150 CPU s, 35 / 19 / 1.7 / 2.1 %: exit 3. The test follows whichever the run shows.
+whole segment at fineness 0.3, 40k/68k/123k unknowns, about 150 CPU s, 35 / 19 / 1.7 / 2.1 %: exit 3.
+The test follows whichever the run shows.
 """
 import json
 import math

@@ -49,7 +49,8 @@ def parse_model(value, seg: solid.Segment, field: str) -> int | None:
     sym = MODELS.index(value)
     allowed = solid.symmetry_of(seg)
     if sym > allowed:
-        raise InputError(field, value, f"needs {_NEEDS[value]}; these features allow the {MODELS[allowed]} model at most")
+        raise InputError(field, value,
+                         f"needs {_NEEDS[value]}; these features allow the {MODELS[allowed]} model at most")
     return sym
 
 

@@ -40,7 +40,8 @@ from .segment import parse_model
 from .units import to_si
 
 KINDS = ("keyseat_end", "sled_runner", "cross_hole")
-_KEYS = {"kind", "keyway", "cutter_diameter", "hole_diameter", "chamfer", "hole_depth", "angle", "length", "fineness", "model"}
+_KEYS = {"kind", "keyway", "cutter_diameter", "hole_diameter", "chamfer", "hole_depth", "angle", "length", "fineness",
+         "model"}
 _ALLOWED = {"keyseat_end": {"keyway"}, "sled_runner": {"keyway", "cutter_diameter"},
             "cross_hole": {"hole_diameter", "chamfer", "hole_depth", "angle"}}
 #: The default modelled length: the feature's span plus this many diameters (plain bar at both ends:

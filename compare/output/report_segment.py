@@ -39,7 +39,8 @@ def segment_report_files(a, res: dict, date: str | None = None) -> dict[str, str
     body = (f"<h1>{e(res['case']['title'])}</h1><p class=\"small\">shaftcheck {e(res['tool']['version'])} 3-D segment "
             f"study, {e(date)}</p>" + warn + f'<p class="verdict">{e(verdict)}</p>'
             + f"<h2>Factors</h2><p>{e(s['kind'].replace('_', ' '))} on a {e(f.q(s['diameter'], 'length'))} shaft, "
-            f"modelled over {e(f.q(s['length'], 'length'))} ({e(model_phrase(s.get('model')))}); meshes {e(str(acc['meshes']))} unknowns; target "
+            f"modelled over {e(f.q(s['length'], 'length'))} ({e(model_phrase(s.get('model')))}); "
+            f"meshes {e(str(acc['meshes']))} unknowns; target "
             f"{100 * acc['target']:.3g} %.</p>"
             + (f"<p>Beside a shoulder up to {e(f.q(s['shoulder']['D'], 'length'))} at "
                f"{e(f.q(s['shoulder']['at'], 'length'))} (fillet {e(f.q(s['shoulder']['fillet'], 'length'))}); "
