@@ -49,6 +49,7 @@ def test_sled_runner_and_cross_hole():
     assert isinstance(f, solid.CrossHole) and f.diameter == pytest.approx(0.005) and f.chamfer == pytest.approx(5e-4)
     assert ss.angle == 30.0 and ss.centre == pytest.approx(0.11)
     assert ss.model.length == pytest.approx(0.09)  # at least three diameters
+    assert ss.symmetry is None and solid.symmetry_of(ss.model) == 2  # the study takes the quarter by default
 
 
 @pytest.mark.parametrize("station,field", [
@@ -60,6 +61,9 @@ def test_sled_runner_and_cross_hole():
     ({"segment": {"kind": "cross_hole", "hole_diameter": 5, "angle": "north"}}, "shaft.sections[0].segment.angle"),
     ({"segment": "cross_hole"}, "shaft.sections[0].segment"),
     ({"segment": {"kind": "cross_hole", "hole_diameter": 5, "chamfer": -1}}, "shaft.sections[0].segment.chamfer"),
+    ({"segment": {"kind": "cross_hole", "hole_diameter": 5, "model": "eighth"}}, "shaft.sections[0].segment.model"),
+    ({"segment": {"kind": "cross_hole", "hole_diameter": 5, "hole_depth": 12, "model": "half"}},
+     "shaft.sections[0].segment.model"),  # a blind hole: no mirror plane, the whole model only
 ])
 def test_refusals_name_the_field(station, field):
     with pytest.raises(InputError) as e:

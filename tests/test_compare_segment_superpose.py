@@ -187,3 +187,42 @@ def test_pruned_scans_equal_the_full_scan(rotating):
                      (lambda p: p[..., 2], 1.0, "sigma1")):
         v, _, _ = sp.worst(g, c, of=of)
         assert v == pytest.approx(float(np.max(g(full))), rel=1e-12)
+
+
+@pytest.mark.slow
+def test_quarter_model_superposes_as_the_mirrored_whole():
+    """The quarter model's unit fields (its surface stress completed by reflection, fem/solid.py) give
+    the station's superposed stresses of the whole segment on the mesh identical by mirror: the same
+    peak von Mises stress over the turn, alternating and mean stresses and largest principal stress,
+    to the solver's tolerance (exact: the same equations on the same nodes), with the model turned
+    about the axis and every load present (symmetric and antisymmetric ones)."""
+    from skfem import Basis, ElementTetP2, MeshTet2
+
+    from fem.mesh import boundary_mapping
+
+    def mirrored(sm, axis, c):  # the mesh completed by its mirror image in the plane (axis) = c
+        b = Basis(sm.mesh, ElementTetP2(), mapping=boundary_mapping(sm.mesh))
+        P, T = np.asarray(b.doflocs), np.asarray(b.element_dofs)
+        on = np.abs(P[axis] - c) < 1e-9 * D
+        idx = np.arange(P.shape[1])
+        idx[~on] = P.shape[1] + np.arange(int((~on).sum()))
+        Q = P[:, ~on].copy()
+        Q[axis] = 2 * c - Q[axis]
+        T2 = idx[T][[0, 2, 1, 3, 6, 5, 4, 7, 9, 8]]  # a reflection turns the orientation
+        mesh = MeshTet2(np.hstack([P, Q]), np.hstack([T, T2]))
+        ends, end1, lateral = solid._boundary_parts(mesh, sm.segment.length)
+        return solid.SolidMesh(mesh, sm.segment, sm.h, sm.h_feature, ends, lateral, end1)
+
+    L = 2.5 * D
+    seg = solid.Segment(D, L, (solid.ProfileKeyseat(0.008, 0.004, L / 2 - 0.012, L / 2 + 0.012, 0.05 * D),))
+    part = solid.mesh_segment(seg, fineness=0.4, symmetry=2)
+    whole = mirrored(mirrored(part, 0, 0.0), 2, L / 2)
+    rp, rw = solid.solve_segment(part, solid.LOADS, 2.0e11, 0.3), solid.solve_segment(whole, solid.LOADS, 2.0e11, 0.3)
+    for rotating in (True, False):
+        fp = sup.superpose(sup.unit_fields(rp, D, L, turn=37.0), 900.0, 14.0, -9.0, 11.0, rotating)
+        fw = sup.superpose(sup.unit_fields(rw, D, L, turn=37.0), 900.0, 14.0, -9.0, 11.0, rotating)
+        assert len(fp.idx) == len(fw.idx)  # the completed node set is the whole model's
+        sp, sw = sup.summary(fp), sup.summary(fw)
+        for k in ("von_mises_peak", "sigma_a_vm", "sigma_m_vm", "alternating_peak", "sigma1_peak"):
+            check = {"fem": sp[k], "exact": sw[k]}  # exact: the whole model on the mirrored mesh
+            assert check["fem"] == pytest.approx(check["exact"], rel=1e-6, abs=1e-9 * sw["von_mises_peak"]), (k, check)

@@ -78,6 +78,7 @@ def test_results_keys_and_exit_code(layout_run):
     (seg,) = res["segments"]
     assert seg["station"] == 0 and seg["kind"] == "cross_hole" and seg["field"] == "shaft.sections[0].segment"
     assert seg["centre"] == pytest.approx(0.15) and seg["angle_deg"] == 30.0 and seg["diameter"] == pytest.approx(0.024)
+    assert seg["model"] == "quarter"  # a through hole centred in its model: mirror symmetric about two planes
     for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
         assert seg[k] > 1.0, k  # a hole raises the stress under every load (Peterson's charts: Kt > 1)
         assert f"{k}_gci" in seg and len(seg["peak_location"][k]["at"]) == 3
@@ -163,7 +164,7 @@ def test_layout_report_has_the_surface_figure(layout_run):
     html = (out / "report.html").read_text()
     assert (out / "figures" / "station1_segment_surface.png").stat().st_size > 1000
     assert "station1_segment_surface" in html and "3-D segment FE at the feature" in html
-    assert "<h3>3-D feature</h3>" in html and "Kt bending" in html
+    assert "<h3>3-D feature</h3>" in html and "Kt bending" in html and "quarter model by symmetry" in html
 
 
 SEGMENT = """[case]
@@ -261,3 +262,36 @@ def test_standing_shaft_turned_hole_reproduces_its_factor(tmp_path):
     assert check["fem"] == pytest.approx(check["exact"], rel=1e-9)
     assert not s["rotating"] and s["sigma_a_vm"] == 0.0
     assert res["segments"][0]["kt_bending_y"] > res["segments"][0]["kt_bending_x"]  # the hole in the bending plane
+
+
+@pytest.mark.slow
+def test_station_quarter_model_within_the_estimates_of_the_whole(tmp_path):
+    """The station's cross hole (through, centred in its model) is solved on the quarter model by
+    default and on the whole segment with ``model = "whole"``: every factor of the two studies within
+    the sum of their three-mesh estimates (each bounds its own error; the meshes differ), the model
+    recorded, and the superposed unit fields read the whole surface in both (points on both sides of
+    both mirror planes, in the model's frame)."""
+    import numpy as np
+
+    from compare.pairs.station_segment import station_segments_step
+
+    recs, fields = {}, {}
+    for model in ("", ', model = "whole"'):
+        case_path = tmp_path / "case.toml"
+        case_path.write_text(LAYOUT.replace("fineness = 0.3 }", f"fineness = 0.25{model} }}"))
+        case = load_case(case_path)
+        (rec,) = station_segments_step(case)
+        recs[rec["model"]] = rec
+        fields[rec["model"]] = case.shaft.stations[0].kt["segment_stresses"][0]["fields"]
+    q, w = recs["quarter"], recs["whole"]
+    for key in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
+        gq, gw = q[f"{key}_gci"], w[f"{key}_gci"]
+        assert gq is not None and gw is not None, key
+        got = {"fem": q[key], "exact": w[key]}  # "exact": the whole segment's study
+        assert abs(got["fem"] - got["exact"]) <= gq * got["fem"] + gw * got["exact"], (key, got, gq, gw)
+    for fl in fields.values():
+        turn = np.radians(-fl.turn)  # back to the model's frame: the hole's axis along x
+        x = np.cos(turn) * fl.points[0] - np.sin(turn) * fl.points[1]
+        z = fl.points[2] - q["length"] / 2
+        assert (x > 0.1 * q["diameter"]).any() and (x < -0.1 * q["diameter"]).any()
+        assert (z > 0.3 * q["diameter"]).any() and (z < -0.3 * q["diameter"]).any()

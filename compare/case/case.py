@@ -36,7 +36,7 @@ from .shaft_checklist import check_fits_with_section
 from .shapes import SHAPE_KEYS, parse_keyed, parse_shape
 from .units import UnitSystem, from_si, to_si, unit_system
 from .composite import apply_region_polymers, parse_composite
-from .segment import parse_segment
+from .segment import parse_model, parse_segment
 from .shaft_segment import build_station_segments
 from .fields import angle as _angle, chart_factor, known as _known
 
@@ -124,6 +124,9 @@ class Case:
     region_materials: list = field(default_factory=list)
     #: the [segment] of a 3-D segment study (compare/case/segment.py, fem/solid.Segment), if the case gives one
     segment: object = None
+    #: the mirror symmetry the segment study must use (segment.model: 0 whole, 1 half, 2 quarter); None: the
+    #: smallest model the features allow
+    segment_symmetry: int | None = None
 
 
 _TOP = {"case", "section", "loads", "material", "analysis", "expected", "fatigue", "shaft", "service",
@@ -213,12 +216,13 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
             _text(c[key], f"case.{key}")
     geometry: dict = {}
     region_materials: list = []
-    segment = None
+    segment = segment_symmetry = None
     if "segment" in data:  # a 3-D segment study instead of a section
         for other in ("section", "shaft", "fatigue", "expected"):
             if other in data:
                 raise InputError(other, None, "a [segment] case is studied on its own: leave [" + other + "] out")
         segment = parse_segment(data["segment"], units)
+        segment_symmetry = parse_model(data["segment"].get("model"), segment, "segment.model")
         data = dict(data, section={"shape": "round", "diameter": f"{segment.d!r} m"})
     section = parse_section(data["section"], units, geometry, base_dir, region_materials) if "section" in data else None
     loads = parse_loads(data.get("loads", {}), units)
@@ -248,7 +252,8 @@ def parse_case(data: dict, base_dir: Path | None = None) -> Case:
         _segment_limits(data, material)
     return Case(title, units, section, loads, material, analysis, fatigue=fatigue, expected=expected,
                 feature_lengths=parse_feature_lengths(data.get("section", {}), units), shaft=shaft,
-                geometry=geometry, region_materials=region_materials, segment=segment)
+                geometry=geometry, region_materials=region_materials, segment=segment,
+                segment_symmetry=segment_symmetry)
 
 
 def _composite_limits(data: dict, loads: Loads, shaft) -> None:

@@ -10,6 +10,9 @@ cross hole: ``hole_diameter``, ``chamfer`` (default 0), ``hole_depth`` (blind; d
 Optional ``shoulder = { D = ..., fillet = ..., at = ... }``: the segment steps up from ``diameter`` to
 ``D`` at ``at`` (the shoulder face; the larger diameter beyond it) through a quarter-round ``fillet``;
 the feature must lie clear of the fillet, on either diameter.
+Optional ``model`` ("whole", "half" or "quarter"; default the smallest the features allow,
+:func:`fem.solid.symmetry_of`): the part of the segment meshed; "whole" forces the whole segment, a
+model the features do not allow is refused (:func:`parse_model`, Case.segment_symmetry).
 """
 from __future__ import annotations
 
@@ -22,11 +25,33 @@ from .units import to_si
 
 KINDS = ("keyseat_end", "sled_runner", "cross_hole")
 _KEYS = {"kind", "diameter", "length", "at", "width", "depth", "fillet", "key_length", "cutter_diameter",
-         "hole_diameter", "chamfer", "hole_depth", "standard", "shoulder"}
+         "hole_diameter", "chamfer", "hole_depth", "standard", "shoulder", "model"}
 _SHOULDER_KEYS = {"D", "fillet", "at"}
 _ALLOWED = {"keyseat_end": {"width", "depth", "fillet", "key_length", "standard"},
             "sled_runner": {"width", "depth", "fillet", "key_length", "cutter_diameter", "standard"},
             "cross_hole": {"hole_diameter", "chamfer", "hole_depth"}}
+
+
+#: the models of a segment, by the mirror symmetry they use (fem.solid's ``symmetry`` 0, 1, 2)
+MODELS = ("whole", "half", "quarter")
+#: what each model needs of the features
+_NEEDS = {"half": "features symmetric about the plane through the axis and the feature's centre line",
+          "quarter": "features symmetric about that plane and centred along the segment (the mid-length plane)"}
+
+
+def parse_model(value, seg: solid.Segment, field: str) -> int | None:
+    """The symmetry of the ``model`` the case asks for (None: not given, the study takes the smallest
+    model the features allow); an unknown name, or a model the features do not allow, is refused."""
+    if value is None:
+        return None
+    if value not in MODELS:
+        raise InputError(field, value, 'must be "whole", "half" or "quarter"')
+    sym = MODELS.index(value)
+    allowed = solid.symmetry_of(seg)
+    if sym > allowed:
+        raise InputError(field, value,
+                         f"needs {_NEEDS[value]}; these features allow the {MODELS[allowed]} model at most")
+    return sym
 
 
 def parse_segment(s, units) -> solid.Segment:
@@ -37,7 +62,7 @@ def parse_segment(s, units) -> solid.Segment:
     if kind not in KINDS:
         raise InputError("segment.kind", kind, "must be \"keyseat_end\", \"sled_runner\" or \"cross_hole\"")
     for k in s:
-        if k not in _ALLOWED[kind] | {"kind", "diameter", "length", "at", "shoulder"}:
+        if k not in _ALLOWED[kind] | {"kind", "diameter", "length", "at", "shoulder", "model"}:
             raise InputError(f"segment.{k}", s[k], f"is not a field of a {kind} segment")
 
     def length(key, default=None, required=True):

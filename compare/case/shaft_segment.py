@@ -19,7 +19,8 @@ the station's keyed section (``keyway``: which one, default 0) and the key lengt
 (45°, default 0), ``hole_depth`` (blind; default through) and ``angle`` (the hole's axis, degrees from
 +x toward +y; default 0), on a station without its own section (the plain round). Both: ``length``
 (the modelled length; default the feature's span plus two diameters, at least three diameters) and
-``fineness`` (of the 3-D meshes; default analysis.fineness). The model is a solid round bar: a hollow
+``fineness`` (of the 3-D meshes; default analysis.fineness) and ``model`` ("whole", "half" or
+"quarter"; default the smallest the features allow: compare/case/segment.py). The model is a solid round bar: a hollow
 segment is refused, as is a feature too close to the model's end faces.
 
 :func:`parse_station_segment` reads the table (in ``shaft.py``'s station parser);
@@ -35,10 +36,12 @@ from fem import solid
 from fem.errors import InputError
 
 from .fields import known
+from .segment import parse_model
 from .units import to_si
 
 KINDS = ("keyseat_end", "sled_runner", "cross_hole")
-_KEYS = {"kind", "keyway", "cutter_diameter", "hole_diameter", "chamfer", "hole_depth", "angle", "length", "fineness"}
+_KEYS = {"kind", "keyway", "cutter_diameter", "hole_diameter", "chamfer", "hole_depth", "angle", "length", "fineness",
+         "model"}
 _ALLOWED = {"keyseat_end": {"keyway"}, "sled_runner": {"keyway", "cutter_diameter"},
             "cross_hole": {"hole_diameter", "chamfer", "hole_depth", "angle"}}
 #: The default modelled length: the feature's span plus this many diameters (plain bar at both ends:
@@ -66,6 +69,9 @@ class StationSegment:
     model: object | None = None
     d: float | None = None
     raw: dict | None = None
+    #: the mirror symmetry of the model asked for (``model``: 0 whole, 1 half, 2 quarter), None: the
+    #: smallest the features allow; checked once the model is built
+    symmetry: int | None = None
 
 
 def parse_station_segment(s: dict, w: str, st, units, feature_lengths=None) -> StationSegment:
@@ -79,7 +85,7 @@ def parse_station_segment(s: dict, w: str, st, units, feature_lengths=None) -> S
     if kind not in KINDS:
         raise InputError(f"{fw}.kind", kind, "must be \"keyseat_end\", \"sled_runner\" or \"cross_hole\"")
     for k in t:
-        if k not in _ALLOWED[kind] | {"kind", "length", "fineness"}:
+        if k not in _ALLOWED[kind] | {"kind", "length", "fineness", "model"}:
             raise InputError(f"{fw}.{k}", t[k], f"is not a field of a {kind} station segment")
 
     def length(key, required=True, default=None):
@@ -190,3 +196,4 @@ def build_station_segments(shaft, section, material) -> None:
             raw = (ss.raw or {}).get(key)
             raise InputError(f"{ss.field}.{key}", raw if raw is not None else exc.value, exc.reason) from None
         ss.model, ss.d = model, d
+        ss.symmetry = parse_model((ss.raw or {}).get("model"), model, f"{ss.field}.model")

@@ -10,7 +10,7 @@ import io
 from ..case.case import read_input_file
 from .report import CAUTION, Fmt
 from .report_html import CSS, _img, _table, e
-from .results_segment import SEGMENT_CAUTION
+from .results_segment import SEGMENT_CAUTION, model_phrase
 
 _NAMES = {"kt_axial": "Kt, tension", "kt_bending_x": "Kt, bending about x", "kt_bending_y": "Kt, bending about y",
           "kts": "Kts, torsion"}
@@ -39,7 +39,8 @@ def segment_report_files(a, res: dict, date: str | None = None) -> dict[str, str
     body = (f"<h1>{e(res['case']['title'])}</h1><p class=\"small\">shaftcheck {e(res['tool']['version'])} 3-D segment "
             f"study, {e(date)}</p>" + warn + f'<p class="verdict">{e(verdict)}</p>'
             + f"<h2>Factors</h2><p>{e(s['kind'].replace('_', ' '))} on a {e(f.q(s['diameter'], 'length'))} shaft, "
-            f"modelled over {e(f.q(s['length'], 'length'))}; meshes {e(str(acc['meshes']))} unknowns; target "
+            f"modelled over {e(f.q(s['length'], 'length'))} ({e(model_phrase(s.get('model')))}); "
+            f"meshes {e(str(acc['meshes']))} unknowns; target "
             f"{100 * acc['target']:.3g} %.</p>"
             + (f"<p>Beside a shoulder up to {e(f.q(s['shoulder']['D'], 'length'))} at "
                f"{e(f.q(s['shoulder']['at'], 'length'))} (fillet {e(f.q(s['shoulder']['fillet'], 'length'))}); "

@@ -20,7 +20,7 @@ def segment_results(a, warnings_out, schema_version: int) -> dict:
     achieved = None if any(g is None for g in gcis) else max(gcis)
     met = achieved is not None and achieved <= target and st.limited is None
     entry = {"kind": seg["kind"], "at": seg["at"], "span": seg["span"], "diameter": st.segment.d,
-             "length": st.segment.length}
+             "length": st.segment.length, "model": seg.get("model", "whole")}
     peaks = {}
     for r in a.extra["segment_rows"]:
         entry[r["key"]] = r["value"]
@@ -60,6 +60,11 @@ def segment_results(a, warnings_out, schema_version: int) -> dict:
     return out
 
 
+def model_phrase(model: str | None) -> str:
+    """The model solved, in one short phrase ("quarter model by symmetry")."""
+    return "whole model" if model in (None, "whole") else f"{model} model by symmetry"
+
+
 def segment_summary(res: dict, system) -> str:
     """The terminal block of a 3-D segment study."""
     f = Fmt(system)
@@ -69,7 +74,8 @@ def segment_summary(res: dict, system) -> str:
     s = res["segments"][0]
     acc = res["accuracy"]
     lines.append(f"  3-D segment: {s['kind']} on a {f.q(s['diameter'], 'length')} shaft, feature at "
-                 f"{f.q(s['at'], 'length')} along it; meshes {acc['meshes']} unknowns, {acc['seconds']:.0f} s")
+                 f"{f.q(s['at'], 'length')} along it; {model_phrase(s.get('model'))}, meshes {acc['meshes']} unknowns, "
+                 f"{acc['seconds']:.0f} s")
     if s.get("shoulder"):
         sh = s["shoulder"]
         lines.append(f"  beside a shoulder up to {f.q(sh['D'], 'length')} at {f.q(sh['at'], 'length')}, fillet "

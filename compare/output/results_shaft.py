@@ -10,6 +10,7 @@ from dataclasses import replace
 
 from ..checks.shaft_modes import mode_shapes
 from .report import Fmt
+from .results_segment import model_phrase
 
 _STATION_KEYS = ("governing", "warnings", "static", "fatigue", "torsion", "section", "exit_code", "regions",
                  "not_checked")  # regions, not_checked: a station on a composite segment
@@ -213,7 +214,8 @@ def segment_line(seg: dict) -> str:
         g = seg[f"{key}_gci"]
         return f"{label} {seg[key]:.3g} ({'no estimate' if g is None else f'±{100 * g:.2g} %'})"
     kb = seg["kt_bending_used"]["from"]
-    return (f"3-D {seg['kind'].replace('_', ' ')} ({seg['dofs'][-1]} unknowns on the finest of three meshes): "
+    return (f"3-D {seg['kind'].replace('_', ' ')} ({seg['dofs'][-1]} unknowns on the finest of three meshes, "
+            f"{model_phrase(seg.get('model'))}): "
             f"{one(kb, 'Kt bending')}, {one('kts', 'Kts')}, {one('kt_axial', 'Kt axial')}; "
             + ("estimates within the target" if seg["met"] else "ACCURACY TARGET NOT SHOWN: no verdict at this station"))
 

@@ -50,8 +50,9 @@ def write_fields_vtu(path: Path, a) -> None:
 def segment_vtu_bytes(a) -> bytes:
     """The 3-D segment's finest-mesh lateral boundary nodes (as vertices) with the von Mises stress
     over the load's nominal stress for each load, from the stress averaged at the nodes (the one the
-    factors are read from): the stress on the surface near the feature, per unit nominal stress.
-    Returned as the bytes of a VTU file."""
+    factors are read from): the stress on the surface near the feature, per unit nominal stress. A half
+    or quarter model's nodes come completed by reflection (fem.solid.mirrored_surface_stresses): the
+    whole segment's surface. Returned as the bytes of a VTU file."""
     finest = a.extra["segment"]["study"].finest
     first = next(iter(finest.values()))
     data = {}
@@ -95,7 +96,8 @@ def composite_vtu_bytes(a) -> bytes:
 
 def layout_segment_vtu_bytes(a) -> bytes | None:
     """A layout's 3-D station features as one point cloud along the shaft (``segment.vtu``): every
-    station segment's surface sample points (away from its model's end faces) in the station's x, y and
+    station segment's surface nodes (away from its model's end faces; a half or quarter model's completed
+    by reflection to the whole surface) in the station's x, y and
     z along the shaft, with ``station`` (its index), ``von_mises`` [Pa] (the largest over the load cycle
     of the station's governing loads, the 3-D superposition) and ``von_mises_over_nominal_<load>`` per
     unit load. None when no station has a 3-D feature."""

@@ -12,7 +12,13 @@ A plain through cross hole gets Peterson's fits for a round bar with a transvers
 hole's axis (``kt_bending_y``: the hole runs along x) and torsion (half the fit's σmax/τ, the bore's
 surface being in uniaxial stress at the peak); no fit for tension or for bending about the hole's own
 axis (the hole on the neutral plane); a chamfered or blind hole, or d/D outside the fit's range, has
-no value and the row says why."""
+no value and the row says why.
+
+The segment is solved on the smallest model its features allow (:func:`fem.solid.symmetry_of`: the
+quarter of a keyseat or through hole centred along the segment, the half of one off centre, the whole
+beside a shoulder or with a blind hole); the surface stress is completed to the whole lateral surface
+by reflection, so factors, peaks and figures read the whole segment. ``extra['segment']['model']``
+says which ("whole", "half" or "quarter", :data:`MODELS`)."""
 from __future__ import annotations
 
 import time
@@ -20,7 +26,9 @@ import time
 from classic import cross_hole as ch
 from classic import fatigue as cf
 from classic._validity import OutOfRangeError
+from fem import solid
 
+from ..case.segment import MODELS
 from ..solve.segments import KEYS, study_segment
 from .analysis import Analysis
 from .pairs import Pair
@@ -48,8 +56,9 @@ def segment_step(case, fineness: float | None = None) -> Analysis:
     m = case.material
     seg = case.segment
     E = m.elastic_modulus if m.elastic_modulus else E_STANDIN  # the factors do not depend on E
+    sym = model_symmetry(seg, getattr(case, "segment_symmetry", None))
     st = study_segment(seg, fineness=fineness if fineness is not None else an.fineness, E=E, nu=m.poisson,
-                       max_dofs=an.max_dofs, max_seconds=an.max_seconds)
+                       max_dofs=an.max_dofs, max_seconds=an.max_seconds, symmetry=sym)
     feat = seg.features[0]
     sh = seg.shoulder
     a, b = feat.span()
@@ -70,11 +79,17 @@ def segment_step(case, fineness: float | None = None) -> Analysis:
         else:
             pairs.append(Pair(key, st.values[key], None, "", kind="not applicable", note=why or ""))
     out = Analysis(case, None, None, None, pairs, {"solve": time.perf_counter() - t0})
-    out.extra["segment"] = {"study": st, "kind": feat.kind, "at": (a + b) / 2, "span": [a, b],
+    out.extra["segment"] = {"study": st, "kind": feat.kind, "model": MODELS[sym], "at": (a + b) / 2, "span": [a, b],
                             "shoulder": None if sh is None else {"D": sh.D, "fillet": sh.fillet, "at": sh.z}}
     out.extra["segment_rows"] = rows
     out.extra["warnings"] = []
     return out
+
+
+def model_symmetry(seg, chosen: int | None = None) -> int:
+    """The mirror symmetry the study uses: ``chosen`` (the case's, already checked against the
+    features) or the most the features allow (:func:`fem.solid.symmetry_of`)."""
+    return solid.symmetry_of(seg) if chosen is None else int(chosen)
 
 
 def handbook_value(feat, d: float, key: str) -> tuple[float | None, str | None, str | None]:

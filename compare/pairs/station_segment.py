@@ -8,6 +8,9 @@ the station check takes from it (numbers and records only):
   (the keyseat's bottom fillet, the hole's radius) for the notch sensitivity;
 * a station also on a shoulder or groove keeps, factor by factor, the larger of the two (neither model
   holds both raisers), and its FE path takes the smaller factor of the 3-D and the fillet's local stresses;
+* the segment is solved on the smallest model its features allow (compare/pairs/segment_step.py;
+  ``model`` in the record: "whole", "half" or "quarter"), its surface stress completed to the whole
+  surface by reflection;
 * the FE path's unit fields (``Station.kt['segment_stresses']``): the finest mesh's stress per unit
   N, Mx, My, T at the surface points, turned into the station's frame (compare/solve/segment_superpose.py),
   superposed with the station's loads by compare/checks/segment_local.py.
@@ -22,6 +25,7 @@ import time
 
 from ..solve.segment_superpose import MODEL_ANGLE, unit_fields
 from ..solve.segments import KEYS, study_segment
+from .segment_step import MODELS, model_symmetry
 
 #: the source written beside each 3-D factor the station uses
 SOURCE = "3-D FE, this run"
@@ -85,9 +89,11 @@ def station_segments_step(case) -> list[dict] | None:
         if ss is None:
             continue
         t0 = time.perf_counter()
+        sym = model_symmetry(ss.model, getattr(ss, "symmetry", None))
         study = study_segment(ss.model, fineness=ss.fineness if ss.fineness is not None else an.fineness, E=E,
-                              nu=m.poisson, max_dofs=an.max_dofs, max_seconds=an.max_seconds)
+                              nu=m.poisson, max_dofs=an.max_dofs, max_seconds=an.max_seconds, symmetry=sym)
         rec = station_segment_record(i, st, ss, study, an.accuracy)
+        rec["model"] = MODELS[sym]
         kb = rec["kt_bending_used"]["from"]
         notch = ss.notch if ss.notch is not None else (ss.sizes["hole_diameter"] / 2, f"{ss.field}.hole_diameter")
         # a station also on a shoulder or groove (the feature step ran first): each factor the larger of the
