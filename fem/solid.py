@@ -567,6 +567,27 @@ def _mirror_facets(mesh, lateral: np.ndarray, symmetry: int, seg: Segment):
     return lateral[~(on_x | on_z)], planes
 
 
+def feature_edge_length(sm: SolidMesh) -> float | None:
+    """Median edge length [m] of the boundary facets on the features' own surfaces (off the plain
+    cylinders) inside their :func:`peak_zones`: the element size where the peak sits, as meshed. A
+    study's meshes are meant to scale it by their ratio; :func:`compare.solve.segments.study_segment`
+    measures it instead of assuming it. None when no such facet exists."""
+    seg, m = sm.segment, sm.mesh
+    corners = m.p[:, m.facets[:, sm.lateral]]  # (3, 3 corners, facets)
+    c = corners.mean(axis=1)
+    plain = np.array([seg.diameter_at(z) / 2 for z in c[2]])
+    off = np.abs(np.hypot(c[0], c[1]) - plain) > 1e-3 * seg.d
+    inside = np.zeros(c.shape[1], dtype=bool)
+    for f in seg.features:
+        for a, b in peak_zones(f):
+            inside |= (c[2] >= a) & (c[2] <= b)
+    sel = off & inside
+    if not sel.any():
+        return None
+    e = corners[:, [0, 1, 2], :][:, :, sel] - corners[:, [1, 2, 0], :][:, :, sel]
+    return float(np.median(np.linalg.norm(e, axis=0)))
+
+
 def peak_zones(f, R: float = 0.5):
     """The z ranges (frame or metres, as ``f``) where the peak of feature ``f`` can sit: a profile
     keyseat's two rounded ends (its prismatic middle is the 2-D section's, with a lower peak), every

@@ -78,7 +78,9 @@ def test_results_keys_and_exit_code(layout_run):
     (seg,) = res["segments"]
     assert seg["station"] == 0 and seg["kind"] == "cross_hole" and seg["field"] == "shaft.sections[0].segment"
     assert seg["centre"] == pytest.approx(0.15) and seg["angle_deg"] == 30.0 and seg["diameter"] == pytest.approx(0.024)
-    assert seg["model"] == "quarter"  # a through hole centred in its model: mirror symmetric about two planes
+    # a through hole centred in its model is mirror symmetric about two planes, but a cross hole keeps
+    # the whole model by default (its quarter model's meshes were hardly refined at the hole)
+    assert seg["model"] == "whole"
     for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
         assert seg[k] > 1.0, k  # a hole raises the stress under every load (Peterson's charts: Kt > 1)
         assert f"{k}_gci" in seg and len(seg["peak_location"][k]["at"]) == 3
@@ -164,7 +166,7 @@ def test_layout_report_has_the_surface_figure(layout_run):
     html = (out / "report.html").read_text()
     assert (out / "figures" / "station1_segment_surface.png").stat().st_size > 1000
     assert "station1_segment_surface" in html and "3-D segment FE at the feature" in html
-    assert "<h3>3-D feature</h3>" in html and "Kt bending" in html and "quarter model by symmetry" in html
+    assert "<h3>3-D feature</h3>" in html and "Kt bending" in html and "whole model" in html
 
 
 SEGMENT = """[case]
@@ -266,17 +268,19 @@ def test_standing_shaft_turned_hole_reproduces_its_factor(tmp_path):
 
 @pytest.mark.slow
 def test_station_quarter_model_within_the_estimates_of_the_whole(tmp_path):
-    """The station's cross hole (through, centred in its model) is solved on the quarter model by
-    default and on the whole segment with ``model = "whole"``: every factor of the two studies within
-    the sum of their three-mesh estimates (each bounds its own error; the meshes differ), the model
-    recorded, and the superposed unit fields read the whole surface in both (points on both sides of
-    both mirror planes, in the model's frame)."""
+    """The station's cross hole (through, centred in its model) is solved on the whole segment by
+    default and on the quarter with ``model = "quarter"``. Every factor the quarter's study gives an
+    estimate for lies within the sum of the two three-mesh estimates of the whole's (each bounds its own
+    error; the meshes differ); where the quarter's meshes were hardly refined at the hole (a measured
+    ratio below MIN_MEASURED_RATIO, compare.solve.segments) it gives no estimate and says why, never a
+    small one. The superposed unit fields read the whole surface in both (points on both sides of both
+    mirror planes, in the model's frame)."""
     import numpy as np
 
     from compare.pairs.station_segment import station_segments_step
 
     recs, fields = {}, {}
-    for model in ("", ', model = "whole"'):
+    for model in ("", ', model = "quarter"'):
         case_path = tmp_path / "case.toml"
         case_path.write_text(LAYOUT.replace("fineness = 0.3 }", f"fineness = 0.25{model} }}"))
         case = load_case(case_path)
@@ -286,7 +290,10 @@ def test_station_quarter_model_within_the_estimates_of_the_whole(tmp_path):
     q, w = recs["quarter"], recs["whole"]
     for key in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"):
         gq, gw = q[f"{key}_gci"], w[f"{key}_gci"]
-        assert gq is not None and gw is not None, key
+        assert gw is not None, key
+        if gq is None:
+            assert "hardly refined at the feature" in q[f"{key}_status"], (key, q[f"{key}_status"])
+            continue
         got = {"fem": q[key], "exact": w[key]}  # "exact": the whole segment's study
         assert abs(got["fem"] - got["exact"]) <= gq * got["fem"] + gw * got["exact"], (key, got, gq, gw)
     for fl in fields.values():
