@@ -31,7 +31,14 @@ STYLE = {
     "axes.grid": False, "grid.color": GRID, "grid.linewidth": 0.4, "lines.linewidth": 1.0,
     "figure.dpi": 110, "savefig.dpi": 160, "svg.fonttype": "none", "svg.hashsalt": "shaftcheck",
     "legend.frameon": False, "legend.fontsize": 7.5,
+    # titles at the top of their axes, set once: matplotlib's automatic placement measures every y axis's
+    # tick labels on each drawing to move a title clear of top ticks, and no figure here has any on top
+    "axes.titley": 1.0,
 }
+
+#: room [in] added around a figure before it is drawn (every axes kept where it was, in inches), so that
+#: a label or legend reaching past the figure's edge is still on the one raster drawing
+MARGIN = 0.5
 
 
 class Figure:
@@ -44,6 +51,7 @@ class Figure:
         # pixels inside the box (a second raster draw only when the box reaches past the figure)
         dpi = matplotlib.rcParams["savefig.dpi"]
         fig.dpi = dpi
+        _add_margin(fig, MARGIN)
         fig.canvas.draw()
         box = fig.get_tightbbox(fig.canvas.get_renderer()).padded(matplotlib.rcParams["savefig.pad_inches"])
         self.png = _png_inside(fig, box, dpi)
@@ -51,6 +59,17 @@ class Figure:
         fig.savefig(buf, format="svg", bbox_inches=box, metadata={"Date": None})
         self.svg = buf.getvalue().decode("utf-8")
         plt.close(fig)
+
+
+def _add_margin(fig, m: float) -> None:
+    """Enlarge ``fig`` by ``m`` inches on every side, every axes keeping its place and size in inches
+    (the tight box then cuts the same picture, moved by ``m``)."""
+    w, h = fig.get_size_inches()
+    W, H = w + 2 * m, h + 2 * m
+    for ax in fig.axes:
+        p = ax.get_position(original=True)
+        ax.set_position([(m + p.x0 * w) / W, (m + p.y0 * h) / H, p.width * w / W, p.height * h / H])
+    fig.set_size_inches(W, H)
 
 
 def _png_inside(fig, box, dpi: float) -> bytes:
