@@ -1,6 +1,7 @@
 """``shaftcheck run CASE.toml [--out DIR]``: analyse one case, print the summary, write results."""
 from __future__ import annotations
 
+import gc
 import json
 import math
 import os
@@ -74,6 +75,9 @@ def run(args) -> int:
     segment = "segment" in a.extra  # a 3-D segment study: its own report
     report = not args.no_report and (a.mesh is not None or composite or segment)
     if report:  # a layout whose governing station is composite gets the layout report
+        # the analysis's objects live to the end of the process: frozen, the cyclic garbage collector
+        # no longer walks them on each full collection while the figures make their many small objects
+        gc.freeze()
         if segment:
             from ..output.report_segment import segment_report_files  # noqa: PLC0415  lazy import of a slow dependency (matplotlib through report_html's figures), only when a report is drawn
         files.update(composite_report_files(a, res) if composite and not layout else
