@@ -1,6 +1,7 @@
 """``shaftcheck run CASE.toml [--out DIR]``: analyse one case, print the summary, write results."""
 from __future__ import annotations
 
+import gc
 import json
 import math
 import os
@@ -74,10 +75,17 @@ def run(args) -> int:
     segment = "segment" in a.extra  # a 3-D segment study: its own report
     report = not args.no_report and (a.mesh is not None or composite or segment)
     if report:  # a layout whose governing station is composite gets the layout report
-        if segment:
-            from ..output.report_segment import segment_report_files  # noqa: PLC0415  lazy import of a slow dependency (matplotlib through report_html's figures), only when a report is drawn
-        files.update(composite_report_files(a, res) if composite and not layout else
-                     segment_report_files(a, res) if segment else report_files(a, res))
+        # the analysis's objects outlive the report: frozen while it is drawn, the cyclic garbage
+        # collector does not walk them on each full collection among the figures' many small objects
+        # (thawed after, so that a caller running several cases in one process loses nothing)
+        gc.freeze()
+        try:
+            if segment:
+                from ..output.report_segment import segment_report_files  # noqa: PLC0415  lazy import of a slow dependency (matplotlib through report_html's figures), only when a report is drawn
+            files.update(composite_report_files(a, res) if composite and not layout else
+                         segment_report_files(a, res) if segment else report_files(a, res))
+        finally:
+            gc.unfreeze()
     if (res.get("shaft") or {}).get("diagrams"):  # the layout's diagrams (the report's, when it drew them)
         files["shaft.svg"] = files.get("figures/shaft_diagrams.svg") or shaft_figure_svg(res, case.units)
     write_outputs(out, files, a if vtu else None)

@@ -9,6 +9,7 @@ limit stopped the run (the last two: one line on stderr, nothing written), 1 a v
 from __future__ import annotations
 
 import argparse
+import gc
 import sys
 
 from classic._validity import OutOfRangeError
@@ -61,6 +62,8 @@ def main(argv: list[str] | None = None) -> int:
         return 130
     finally:
         restore_handlers()
+        if argv is None:  # the program's own command line (the script, python -m): the process ends now,
+            gc.freeze()  # and its exit need not walk every object for cycles (nothing is left to free)
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -11,7 +11,9 @@ import matplotlib
 matplotlib.use("Agg")
 import matplotlib.pyplot as plt  # noqa: E402
 import numpy as np  # noqa: E402
+from matplotlib.colors import to_rgba  # noqa: E402
 from matplotlib.ticker import FixedLocator, FuncFormatter, LogLocator, NullLocator  # noqa: E402
+from matplotlib.transforms import Bbox  # noqa: E402
 from matplotlib.tri import LinearTriInterpolator, Triangulation  # noqa: E402
 from skfem import Basis, ElementTriP2  # noqa: E402
 
@@ -31,7 +33,14 @@ STYLE = {
     "axes.grid": False, "grid.color": GRID, "grid.linewidth": 0.4, "lines.linewidth": 1.0,
     "figure.dpi": 110, "savefig.dpi": 160, "svg.fonttype": "none", "svg.hashsalt": "shaftcheck",
     "legend.frameon": False, "legend.fontsize": 7.5,
+    # titles at the top of their axes, set once: matplotlib's automatic placement measures every y axis's
+    # tick labels on each drawing to move a title clear of top ticks, and no figure here has any on top
+    "axes.titley": 1.0,
 }
+
+#: room [in] added around a figure before it is drawn (every axes kept where it was, in inches), so that
+#: a label or legend reaching past the figure's edge is still on the one raster drawing
+MARGIN = 0.5
 
 
 class Figure:
@@ -39,18 +48,66 @@ class Figure:
 
     def __init__(self, name: str, title: str, fig):
         self.name, self.title = name, title
-        # one raster draw for the PNG and the layout: the figure is drawn once at the PNG's resolution,
-        # the tight box found on that drawing and handed to the SVG's save, and the PNG is the drawn
-        # pixels inside the box (a second raster draw only when the box reaches past the figure)
+        # one raster draw for the PNG and the layout: the figure, with a margin, is drawn once at the
+        # PNG's resolution; the box of what it drew (its ink, padded) is handed to the SVG's save, and
+        # the PNG is the drawn pixels inside the box (when the drawing reaches the canvas's edge, the
+        # artists' tight box decides, and a box past the canvas has the PNG drawn afresh)
         dpi = matplotlib.rcParams["savefig.dpi"]
         fig.dpi = dpi
-        fig.canvas.draw()
-        box = fig.get_tightbbox(fig.canvas.get_renderer()).padded(matplotlib.rcParams["savefig.pad_inches"])
+        _add_margin(fig, MARGIN)
+        outside = _draw_watching_texts(fig)
+        pad = matplotlib.rcParams["savefig.pad_inches"]
+        box = (None if outside else _drawn_box(fig, dpi, pad)) or fig.get_tightbbox(fig.canvas.get_renderer()).padded(pad)
+        self.box = box  # [in], on the figure with its margin
         self.png = _png_inside(fig, box, dpi)
         buf = io.BytesIO()
         fig.savefig(buf, format="svg", bbox_inches=box, metadata={"Date": None})
         self.svg = buf.getvalue().decode("utf-8")
         plt.close(fig)
+
+
+def _add_margin(fig, m: float) -> None:
+    """Enlarge ``fig`` by ``m`` inches on every side, every axes keeping its place and size in inches
+    (the tight box then cuts the same picture, moved by ``m``)."""
+    w, h = fig.get_size_inches()
+    W, H = w + 2 * m, h + 2 * m
+    for ax in fig.axes:
+        p = ax.get_position(original=True)
+        ax.set_position([(m + p.x0 * w) / W, (m + p.y0 * h) / H, p.width * w / W, p.height * h / H])
+    fig.set_size_inches(W, H)
+
+
+def _draw_watching_texts(fig) -> int:
+    """Draw ``fig`` on its raster canvas; the number of texts placed off the canvas (their anchor
+    outside it: a text wholly outside leaves no pixel to find)."""
+    renderer = fig.canvas.get_renderer()  # the one the drawing uses (same size and resolution)
+    draw_text, off = renderer.draw_text, []
+
+    def watched(gc, x, y, s, *args, **kwargs):
+        if not (0 <= x <= renderer.width and 0 <= y <= renderer.height):
+            off.append(s)
+        return draw_text(gc, x, y, s, *args, **kwargs)
+
+    renderer.draw_text = watched
+    try:
+        fig.canvas.draw()
+    finally:
+        del renderer.draw_text
+    return len(off)
+
+
+def _drawn_box(fig, dpi: float, pad: float):
+    """The box [in] of what the last raster drawing of ``fig`` put on its face (every pixel not of the
+    face's colour), padded by ``pad``; None when nothing is drawn or the drawing reaches the edge (a part
+    may lie outside: then the tight box of the artists decides)."""
+    rgba = np.asarray(fig.canvas.buffer_rgba())
+    face = np.round(np.asarray(to_rgba(fig.get_facecolor())) * 255).astype(np.uint8)
+    ink = rgba.view(np.uint32)[..., 0] != face.view(np.uint32)[0]
+    rows, cols = np.flatnonzero(ink.any(axis=1)), np.flatnonzero(ink.any(axis=0))
+    if not rows.size or rows[0] == 0 or cols[0] == 0 or rows[-1] == ink.shape[0] - 1 or cols[-1] == ink.shape[1] - 1:
+        return None
+    n = ink.shape[0]
+    return Bbox([[cols[0] / dpi, (n - rows[-1] - 1) / dpi], [(cols[-1] + 1) / dpi, (n - rows[0]) / dpi]]).padded(pad)
 
 
 def _png_inside(fig, box, dpi: float) -> bytes:
@@ -68,7 +125,12 @@ def _png_inside(fig, box, dpi: float) -> bytes:
     if x0 < 0 or y0 < 0 or x1 > cols or y1 > rows:
         fig.savefig(buf, format="png", bbox_inches=box, metadata={"Software": None})
         return buf.getvalue()
-    Image.fromarray(rgba[rows - y1:rows - y0, x0:x1]).save(buf, format="png", dpi=(dpi, dpi))
+    cut = rgba[rows - y1:rows - y0, x0:x1]
+    if cut[..., 3].min() == 255:  # opaque (the figure's face is): RGB, a quarter less to compress
+        cut = cut[..., :3]
+    # zlib's fastest level: measured on the gear-seat demo's eight figures, 0.21 → 0.11 CPU s and
+    # 1071 → 950 kB together with RGB (the drawn pictures compress about as well at either level)
+    Image.fromarray(np.ascontiguousarray(cut)).save(buf, format="png", dpi=(dpi, dpi), compress_level=1)
     return buf.getvalue()
 
 
