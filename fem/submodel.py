@@ -133,6 +133,7 @@ def mesh_submodel(seg: solid.Segment, box: tuple, size: float, symmetry: int = 0
         gmsh.option.setNumber("Mesh.MeshSizeMax", hmax)
         gmsh.option.setNumber("Mesh.MeshSizeMin", 0.0)
         gmsh.option.setNumber("Mesh.MeshSizeFromCurvature", 0)
+        gmsh.option.setNumber("Mesh.MeshSizeFromPoints", 0)
         gmsh.option.setNumber("Mesh.MeshSizeExtendFromBoundary", 1)
         gmsh.option.setNumber("Mesh.ElementOrder", 2)
         gmsh.option.setNumber("Mesh.HighOrderOptimize", 2)
