@@ -144,3 +144,79 @@ def study_segment(seg, fineness: float = 1.0, loads=solid.LOADS, E: float = 2.0e
         out.finest[load] = fine
     out.seconds = time.perf_counter() - t0
     return out
+
+
+@dataclass
+class SubmodelStudy:
+    """The factors at one feature's peak place by a submodel (fem/submodel.py): ``values[key]`` on the
+    finest submodel driven by the finer segment mesh; ``estimates[key]`` the submodel's three-mesh
+    study (segment mesh fixed) plus ``global_effect`` (the relative change of the finest submodel's
+    value when driven by the coarser segment mesh instead) and ``total`` (their sum: the submodel's
+    GCI plus the whole change from the segment mesh, a bound rather than a root-sum-square, since the
+    two need not be independent); ``outside[key]`` the segment model's own factor outside the box
+    (where that is larger, the box does not hold the load's peak and the submodel does not govern)."""
+
+    segment: object
+    box: tuple
+    values: dict = field(default_factory=dict)
+    estimates: dict = field(default_factory=dict)
+    peaks: dict = field(default_factory=dict)
+    outside: dict = field(default_factory=dict)
+    dofs: list = field(default_factory=list)
+    global_dofs: list = field(default_factory=list)
+    seconds: float = 0.0
+
+
+def study_submodel(seg, box, size: float, fineness: float = 0.3, loads=solid.LOADS, E: float = 2.0e11,
+                   nu: float = 0.3, ratio: float = RATIO, local: float = 1.0, symmetry: int = 0) -> SubmodelStudy:
+    """A submodel study of the region ``box`` (x0, x1, y0, y1, z0, z1) [m] of ``seg``: the segment model
+    (``symmetry`` as :func:`study_segment`) at ``fineness`` and ``local`` and again with every size ×r
+    (coarser); the submodel at feature sizes ``size``·r², ``size``·r, ``size`` [m] driven by the finer
+    segment mesh (its three-mesh study by :func:`compare.solve.accuracy.one_study`), and the finest
+    submodel driven by the coarser segment mesh as well (the segment mesh's effect). Factors use the
+    segment model's nominal stress (the load it carries)."""
+    from fem import submodel
+
+    t0 = time.perf_counter()
+    drivers = []
+    for scale in (1.0, ratio):
+        sm = solid.mesh_segment(seg, fineness=fineness, scale=scale, local=local, symmetry=symmetry)
+        drivers.append(solid.solve_segment(sm, loads, E, nu))
+    out = SubmodelStudy(seg, tuple(box))
+    out.global_dofs = [drivers[1][loads[0]].dofs, drivers[0][loads[0]].dofs]
+    runs = []
+    for scale in (ratio**2, ratio, 1.0):
+        sub = submodel.mesh_submodel(seg, box, size * scale, symmetry=symmetry)
+        runs.append(submodel.solve_submodel(sub, drivers[0], E, nu))
+    other = submodel.solve_submodel(sub, drivers[1], E, nu)
+    out.dofs = [r[loads[0]].dofs for r in runs]
+    for load in loads:
+        key = KEYS[load]
+        vals = [runs[2][load].factor, runs[1][load].factor, runs[0][load].factor]  # fine to coarse
+        dofs = [runs[2][load].dofs, runs[1][load].dofs, runs[0][load].dofs]
+        est = one_study(key, vals, dofs, (ratio, ratio), seg.d)
+        est["global_effect"] = abs(other[load].factor - vals[0]) / abs(vals[0])
+        est["global_values"] = [other[load].factor, vals[0]]  # coarser, finer segment mesh
+        est["total"] = None if est["gci"] is None else est["gci"] + est["global_effect"]
+        out.values[key] = vals[0]
+        out.estimates[key] = est
+        out.peaks[key] = [float(v) for v in runs[2][load].peak_at]
+        out.outside[key] = _factor_outside(drivers[0][load], box, seg, symmetry)
+    out.seconds = time.perf_counter() - t0
+    return out
+
+
+def _factor_outside(res, box, seg, symmetry: int) -> float:
+    """The segment model's nodal-averaged factor (as :func:`fem.solid.solve_segment` reads it) at the
+    lateral nodes outside ``box`` (folded into the model by its mirror planes)."""
+    import numpy as np
+
+    p = res.node_points.copy()
+    if symmetry:
+        p[0] = np.abs(p[0])
+    if symmetry == 2:
+        p[2] = seg.length / 2 + np.abs(p[2] - seg.length / 2)
+    inside = np.all([(p[a] >= box[2 * a]) & (p[a] <= box[2 * a + 1]) for a in range(3)], axis=0)
+    keep = (p[2] > solid.END_ZONE * seg.d * 0.5) & (p[2] < seg.length - solid.END_ZONE * seg.d * 0.5) & ~inside
+    mag = solid.stress_measure(res.node_stress, res.load_case)
+    return float(np.max(np.where(keep, mag, -np.inf)) / res.nominal)
