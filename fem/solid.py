@@ -503,6 +503,11 @@ def mesh_segment(seg: Segment, fineness: float = 1.0, scale: float = 1.0, local:
         # and the plain cylinder gets PER_TURN elements per turn from the global size
         gmsh.option.setNumber("Mesh.MeshSizeFromCurvature", 0 if feats else PER_TURN * fineness * local / scale)
         gmsh.option.setNumber("Mesh.MeshSizeExtendFromBoundary", 1)
+        # sizes from the fields only, set here: the 2-D section and meridian meshers of the same process
+        # set this option to 0, and gmsh keeps options between models, so a 3-D mesh left at gmsh's
+        # default (1) depended on what had been meshed before it in the process (measured: a cross
+        # hole's study meshed 5979/10425/17544 unknowns alone and 4896/7725/13191 after other tests)
+        gmsh.option.setNumber("Mesh.MeshSizeFromPoints", 0)
         gmsh.option.setNumber("Mesh.ElementOrder", 2)
         gmsh.option.setNumber("Mesh.HighOrderOptimize", 2)  # untangle curved elements
         gmsh.option.setNumber("Mesh.SecondOrderLinear", 0)
@@ -817,21 +822,7 @@ def solve_segment(sm: SolidMesh, loads=LOADS, E: float = 2.0e11, nu: float = 0.3
         X[fixed, j] = u_ex[comp, np.arange(len(fixed))]
         if sh is not None:
             F[:, j] = end_traction_load(sm, basis, load_case, amount, E, nu)
-    B = rigid_body_modes(basis.doflocs[:, free[::3]])
-    for cols, zero in _mirror_groups(sm, basis, loads, free):
-        K_, B_ = Kff, B
-        rhs = F[free][:, cols] - Kfc @ X[fixed][:, cols]
-        if len(zero):
-            # the mirror conditions (a component zero on a mirror plane) as identity rows, so the free
-            # unknowns stay in whole 3-blocks for the AMG
-            keep = np.ones(len(free))
-            keep[zero] = 0.0
-            Dk = sp.diags(keep)
-            K_ = (Dk @ Kff @ Dk + sp.diags((1.0 - keep) * Kff.diagonal().mean())).tocsr()
-            rhs[zero] = 0.0
-            B_ = B * keep[:, None]
-        X[np.ix_(free, cols)] = np.reshape(solve_spd(K_, rhs, direct_limit=DIRECT_LIMIT, near_null=B_, blocksize=3,
-                                                     maxiter=MAXITER), (len(free), len(cols)))
+    solve_free(sm, basis, loads, Kff, Kfc, X, F, fixed, free)
     out = {}
     for j, load_case in enumerate(loads):
         x = X[:, j]
@@ -862,6 +853,29 @@ def solve_segment(sm: SolidMesh, loads=LOADS, E: float = 2.0e11, nu: float = 0.3
                                      node_points=npts, node_stress=nsig,
                                      peak_feature=None if owner is None else owner.kind)
     return out
+
+
+def solve_free(sm: SolidMesh, basis, loads, Kff, Kfc, X: np.ndarray, F: np.ndarray | None, fixed: np.ndarray,
+               free: np.ndarray) -> None:
+    """Fill the free rows of ``X`` (n × loads; the fixed rows hold the prescribed values) by solving
+    Kff·x = F − Kfc·x_fixed per :func:`_mirror_groups` group, the mirror conditions of a half or
+    quarter model as identity rows (so the free unknowns stay in whole 3-blocks for the AMG), AMG-CG
+    with the rigid-body modes as near-null space above :data:`DIRECT_LIMIT`."""
+    B = rigid_body_modes(basis.doflocs[:, free[::3]])
+    for cols, zero in _mirror_groups(sm, basis, loads, free):
+        K_, B_ = Kff, B
+        rhs = -(Kfc @ X[fixed][:, cols])
+        if F is not None:
+            rhs = rhs + F[free][:, cols]
+        if len(zero):
+            keep = np.ones(len(free))
+            keep[zero] = 0.0
+            Dk = sp.diags(keep)
+            K_ = (Dk @ Kff @ Dk + sp.diags((1.0 - keep) * Kff.diagonal().mean())).tocsr()
+            rhs[zero] = 0.0
+            B_ = B * keep[:, None]
+        X[np.ix_(free, cols)] = np.reshape(solve_spd(K_, rhs, direct_limit=DIRECT_LIMIT, near_null=B_, blocksize=3,
+                                                     maxiter=MAXITER), (len(free), len(cols)))
 
 
 def _mirror_groups(sm: SolidMesh, basis, loads, free: np.ndarray):

@@ -21,14 +21,12 @@ import math
 from dataclasses import dataclass
 
 import numpy as np
-import scipy.sparse as sp
 from scipy.spatial import cKDTree
 from skfem import Basis, ElementTetP2, ElementVector
 
 from . import solid
 from .errors import InputError, SolveError
 from .gmshload import initialize as initialize_gmsh, load_gmsh
-from .linalg import solve_spd
 from .mesh import boundary_mapping
 
 #: Growth of the element size away from the feature surfaces inside the box (size per unit distance).
@@ -281,19 +279,7 @@ def solve_submodel(sub: Submodel, driver: dict, E: float = 2.0e11, nu: float = 0
         u = field_at(g.basis, g.x, loc)
         for c in range(3):
             X[3 * nodes + c, j] = u[c]
-    B = solid.rigid_body_modes(basis.doflocs[:, free[::3]])
-    for cols, zero in solid._mirror_groups(sm, basis, loads, free):
-        K_, B_ = Kff, B
-        rhs = -(Kfc @ X[fixed][:, cols])
-        if len(zero):
-            keep = np.ones(len(free))
-            keep[zero] = 0.0
-            Dk = sp.diags(keep)
-            K_ = (Dk @ Kff @ Dk + sp.diags((1.0 - keep) * Kff.diagonal().mean())).tocsr()
-            rhs[zero] = 0.0
-            B_ = B * keep[:, None]
-        X[np.ix_(free, cols)] = np.reshape(solve_spd(K_, rhs, direct_limit=solid.DIRECT_LIMIT, near_null=B_, blocksize=3,
-                                                     maxiter=solid.MAXITER), (len(free), len(cols)))
+    solid.solve_free(sm, basis, loads, Kff, Kfc, X, None, fixed, free)
     box = sub.box
     guard = GUARD * sub.size
     L = sm.segment.length

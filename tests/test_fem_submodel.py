@@ -15,25 +15,14 @@ from classic.cavity import spherical_cavity_kt
 from compare.solve.segments import study_submodel
 from fem import solid, submodel
 from fem.errors import InputError
+from tests.helpers import exact_plain_bar_stress
 
 D = 0.03
 E, NU = 2.0e11, 0.3
-G = E / (2 * (1 + NU))
 
 
 def _exact_stress(load, p, amount):
-    x, y = p[0], p[1]
-    s = np.zeros((3, 3, p.shape[1]))
-    if load == "tension":
-        s[2, 2] = E * amount
-    elif load == "bending_x":
-        s[2, 2] = E * amount * y
-    elif load == "bending_y":
-        s[2, 2] = E * amount * x
-    else:
-        s[0, 2] = s[2, 0] = -G * amount * y
-        s[1, 2] = s[2, 1] = G * amount * x
-    return s
+    return exact_plain_bar_stress(load, p, amount, E, NU)
 
 
 @pytest.mark.parametrize("fineness", [1.0, 1.25])
