@@ -17,7 +17,9 @@ from __future__ import annotations
 import time
 from dataclasses import dataclass, field
 
-from fem import solid
+import numpy as np
+
+from fem import solid, submodel
 from fem.errors import LimitError
 
 from .accuracy import one_study
@@ -175,7 +177,6 @@ def study_submodel(seg, box, size: float, fineness: float = 0.3, loads=solid.LOA
     segment mesh (its three-mesh study by :func:`compare.solve.accuracy.one_study`), and the finest
     submodel driven by the coarser segment mesh as well (the segment mesh's effect). Factors use the
     segment model's nominal stress (the load it carries)."""
-    from fem import submodel
 
     t0 = time.perf_counter()
     drivers = []
@@ -209,7 +210,6 @@ def study_submodel(seg, box, size: float, fineness: float = 0.3, loads=solid.LOA
 def _factor_outside(res, box, seg, symmetry: int) -> float:
     """The segment model's nodal-averaged factor (as :func:`fem.solid.solve_segment` reads it) at the
     lateral nodes outside ``box`` (folded into the model by its mirror planes)."""
-    import numpy as np
 
     p = res.node_points.copy()
     if symmetry:
