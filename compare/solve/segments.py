@@ -15,10 +15,12 @@ Numbers and records only.
 from __future__ import annotations
 
 import time
+import warnings
 from dataclasses import dataclass, field
 
 import numpy as np
 
+from classic._validity import OutOfRangeWarning
 from fem import solid, submodel
 from fem.errors import LimitError
 
@@ -75,6 +77,28 @@ def measured_ratios(sizes: list, nominal: float) -> tuple[tuple[float, float], s
                             f"against {nominal:g}; below {MIN_MEASURED_RATIO:g} the change between meshes is no "
                             "error measure): refine (analysis.fineness) or use the whole model")
     return (r21, r32), None
+
+
+def study_with_notes(key, vals, dofs, ratios, size) -> dict:
+    """:func:`compare.solve.accuracy.one_study`, with the range warnings of the classic formulas it
+    calls written into the record instead of lost: the measured ratios (:func:`measured_ratios`) may
+    lie between :data:`MIN_MEASURED_RATIO` and the 1.3 below which Celik et al. (J. Fluids Eng. 130,
+    2008) advise against a study (classic/gci.py warns), and the estimate must say so where it is
+    shown (its ``status``; the messages also under ``warnings``)."""
+    with warnings.catch_warnings(record=True) as caught:
+        warnings.simplefilter("always", OutOfRangeWarning)
+        d = one_study(key, vals, dofs, ratios, size)
+    notes = []
+    for w in caught:
+        if issubclass(w.category, OutOfRangeWarning):
+            if str(w.message) not in notes:
+                notes.append(str(w.message))
+        else:  # not ours to keep: shown as it would have been
+            warnings.warn_explicit(w.message, w.category, w.filename, w.lineno)
+    if notes:
+        d["warnings"] = notes
+        d["status"] = f"{d['status']}; less reliable: {'; '.join(notes)}"
+    return d
 
 
 def mesh_dofs(sm) -> int:
@@ -139,7 +163,7 @@ def study_segment(seg, fineness: float = 1.0, loads=solid.LOADS, E: float = 2.0e
                                       extrapolated=None, gci=None, asymptotic=False, status=f"no estimate: {unrefined}",
                                       relative_to="value")
         else:
-            out.estimates[key] = one_study(key, vals, dofs, ratios, seg.d)
+            out.estimates[key] = study_with_notes(key, vals, dofs, ratios, seg.d)
         out.peaks[key] = {"at": [float(v) for v in fine.peak_at], "on_feature": fine.peak_on_feature,
                           "feature": fine.peak_feature}
         out.far_field[key] = fine.far_field
