@@ -222,6 +222,23 @@ def test_runaway_observed_order_does_not_shrink_the_estimate():
     assert d["gci"] >= true_error, (d["gci"], true_error)
 
 
+@pytest.mark.parametrize("r21, r32", [(1.5, 1.25), (1.4, 1.3), (1.35, 1.2), (1.25, 1.5), (1.4, 1.4)])
+@pytest.mark.parametrize("kept", [0.0, 0.02, -0.02])
+def test_runaway_observed_order_with_unequal_ratios_still_covers_the_true_error(r21, r32, kept):
+    # As above, on meshes whose refinement ratios differ (the 3-D study measures them at the feature:
+    # compare/solve/segments.py): f = f0 + C h² on h1, h2 = r21·h1, h3 = r32·h2, the finest value moved
+    # by a chance crossing so that only a fraction ``kept`` of the true last change is left. The
+    # true error of the finest value is known exactly; the GCI must cover it for every ratio pair
+    # (before the fix, |f3 − f2|/r21² stood in for the expected last change, short of it where r32 < r21).
+    f0, C, h1 = 1.0, 0.5, 0.1
+    h = [h1, r21 * h1, r21 * r32 * h1]
+    exact = [f0 + C * x**2 for x in h]
+    vals = [exact[1] - kept * (exact[1] - exact[0]), exact[1], exact[2]]
+    d = one_study("kt_bending_x", vals, [4000, 2000, 1000], (r21, r32), 1.0)
+    true_error = abs(vals[0] - f0) / abs(vals[0])
+    assert d["gci"] is not None and d["gci"] >= true_error, (d, true_error)
+
+
 def test_fineness_is_bounded_on_both_sides(tmp_path, run_cli):
     for value in ("1e9", "0.01"):
         code, out, err, res = run(tmp_path, run_cli, KEYED, "--fineness", value)

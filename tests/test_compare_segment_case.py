@@ -188,6 +188,11 @@ def test_cross_hole_handbook_values_beside(tmp_path, capsys, extra, chart):
             assert seg[f"{k}_chart"] is None and "chamfered" in seg[f"{k}_chart_why"]
             assert pairs[k]["classic"] is None and pairs[k]["ratio"] is None
         assert "Peterson" not in printed
+        # the reasons are said where no factor has a chart value too (terminal and report)
+        html = (tmp_path / "out" / "report.html").read_text()
+        for k in ("kt_axial", "kt_bending_y", "kts"):
+            assert f"no chart value for {k}:" in printed, printed
+        assert html.count("no chart value for") == 4 and "chamfered" in html
     for k in ("kt_axial", "kt_bending_x"):
         assert pairs[k]["kind"] == "not applicable" and pairs[k]["ratio"] is None
 

@@ -113,3 +113,22 @@ def test_quarter_model_study_keeps_the_limits():
     assert st.limited and "analysis.max_seconds" in st.limited and len(st.dofs) == 1
     assert st.estimates["kt_axial"]["gci"] is None
     assert st.values["kt_axial"] > 1.0  # a keyseat end raises the stress
+
+
+def test_a_measured_ratio_below_celiks_recommendation_is_written_into_the_status():
+    """A measured ratio between MIN_MEASURED_RATIO and 1.3 is accepted, but Celik et al. (J. Fluids
+    Eng. 130, 2008; from memory) advise r > 1.3 and classic/gci.py warns: the estimate's status (shown
+    in the report and results) must carry that warning, not lose it. An exact C·h² sequence on ratios
+    1.25 and 1.22 (self-consistency: order 2 recovered)."""
+    from compare.solve.segments import MIN_MEASURED_RATIO, study_with_notes
+
+    r21, r32 = 1.25, 1.22
+    assert r32 >= MIN_MEASURED_RATIO
+    h = [0.1, 0.1 * r21, 0.1 * r21 * r32]
+    vals = [2.0 + 0.5 * x**2 for x in h]
+    d = study_with_notes("kt_axial", vals, [4000, 2000, 1000], (r21, r32), D)
+    assert d["observed_order"] == pytest.approx(2.0, rel=1e-6)
+    assert "1.3" in d["status"] and "Celik" in d["status"] and d["warnings"]
+    d = study_with_notes("kt_axial", [2.0 + 0.5 * (0.1 * 1.4**k) ** 2 for k in range(3)], [4000, 2000, 1000],
+                         (1.4, 1.4), D)
+    assert "warnings" not in d and "Celik" not in d["status"]

@@ -302,3 +302,21 @@ def test_station_quarter_model_within_the_estimates_of_the_whole(tmp_path):
         z = fl.points[2] - q["length"] / 2
         assert (x > 0.1 * q["diameter"]).any() and (x < -0.1 * q["diameter"]).any()
         assert (z > 0.3 * q["diameter"]).any() and (z < -0.3 * q["diameter"]).any()
+
+
+def test_a_factor_without_an_estimate_names_its_reason_in_the_source():
+    """The source written beside a station's 3-D factor says why it has no estimate: the limit of the
+    case when one stopped the study, else the study's own reason (its status; e.g. meshes hardly
+    refined at the feature), never 'None'."""
+    from types import SimpleNamespace
+
+    from compare.pairs.station_segment import _source
+
+    ss = SimpleNamespace(kind="cross_hole", field="shaft.stations[0].segment")
+    why = "no estimate: the meshes were hardly refined at the feature (measured ratios 1.13, 1.10 against 1.4)"
+    rec = {"kts_gci": None, "limited_by": None, "kts_status": why}
+    assert why in _source(ss, "kts", rec) and "None" not in _source(ss, "kts", rec)
+    rec["limited_by"] = "analysis.max_seconds (5 s) passed after 1 of 3 meshes"
+    assert "analysis.max_seconds" in _source(ss, "kts", rec)
+    rec.update(kts_gci=0.05)
+    assert "three-mesh estimate 5 %" in _source(ss, "kts", rec)

@@ -49,8 +49,8 @@ def segment_report_files(a, res: dict, date: str | None = None) -> dict[str, str
                      numeric=(1, 2, 4))
             + "".join(f"<p class=\"small\">chart: {e(src)}</p>" for src in dict.fromkeys(
                 s[f"{k}_chart_source"] for k in _NAMES if s.get(f"{k}_chart_source")))
-            + ("".join(f"<p class=\"small\">no chart value for {e(_NAMES[k])}: {e(s[f'{k}_chart_why'])}</p>"
-                       for k in _NAMES if s.get(f"{k}_chart_why")) if s.get("chart_source") else "")
+            + "".join(f"<p class=\"small\">no chart value for {e(_NAMES[k])}: {e(s[f'{k}_chart_why'])}</p>"
+                      for k in _NAMES if s.get(f"{k}_chart_why"))
             + "<h2>Stress on the surface near the feature</h2>" + "".join(_img(x) for x in figs)
             + "<p class=\"small\">The surface sample points of the finest mesh, unrolled onto the shaft's surface "
               "(points on the feature's own faces drawn where they project radially onto it).</p>"

@@ -91,10 +91,9 @@ def segment_summary(res: dict, system) -> str:
                      f"{' on the shoulder' if s['peak_location'][k].get('feature') == 'shoulder' else ''}")
     for src in dict.fromkeys(s[f"{k}_chart_source"] for k in _KEYS if s.get(f"{k}_chart_source")):
         lines.append(f"  chart: {src}")
-    if s["chart_source"]:
-        for k in _KEYS:
-            if s.get(f"{k}_chart_why"):
-                lines.append(f"  no chart value for {k}: {s[f'{k}_chart_why']}")
+    for k in _KEYS:  # also where no factor has one (a chamfered or blind hole, beside a shoulder): say why
+        if s.get(f"{k}_chart_why"):
+            lines.append(f"  no chart value for {k}: {s[f'{k}_chart_why']}")
     lines.append("")
     lines.append("Not checked: no loads, no stresses, no factor of safety; the factors alone (per unit load).")
     return "\n".join(lines)

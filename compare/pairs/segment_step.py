@@ -94,8 +94,8 @@ def model_symmetry(seg, chosen: int | None = None) -> int:
     if chosen is not None:
         return int(chosen)
     # a cross hole keeps the whole model unless asked: on the quarter model its meshes were hardly
-    # refined at the hole (measured ratios 1.18-1.21 at fineness 0.25, 1.11 at 0.3, against the nominal
-    # 1.4; compare.solve.segments.measured_ratios), so its study would give no estimate there
+    # refined at the hole (measured ratios 1.10-1.21 at fineness 0.25, 1.10-1.11 at 0.3 in two runs, against
+    # the nominal 1.4; compare.solve.segments.measured_ratios), so its study would give no estimate there
     if any(isinstance(f, solid.CrossHole) for f in seg.features):
         return 0
     return solid.symmetry_of(seg)

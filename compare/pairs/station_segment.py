@@ -71,7 +71,10 @@ def station_segment_record(i: int, st, ss, study, target: float) -> dict:
 
 def _source(ss, key: str, rec: dict) -> str:
     g = rec[f"{key}_gci"]
-    est = f"three-mesh estimate {100 * g:.2g} %" if g is not None else f"no estimate ({rec['limited_by']})"
+    # without an estimate, say why: a limit of the case, else the study's own reason (its status: a mesh
+    # hardly refined at the feature, compare/solve/segments.py)
+    why = rec["limited_by"] if rec["limited_by"] is not None else rec[f"{key}_status"]
+    est = f"three-mesh estimate {100 * g:.2g} %" if g is not None else f"no estimate ({why})"
     return f"{SOURCE} ({ss.kind} at {ss.field}, {key}; {est})"
 
 

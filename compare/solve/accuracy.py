@@ -438,7 +438,7 @@ def one_study(key, vals, dofs, ratios, size) -> dict:
         pf = FORMAL_ORDER.get(key, s.order)
         asymptotic = abs(s.order - pf) <= 0.1 * pf
         p, fs = (pf, FS) if asymptotic else (min(max(s.order, 0.5), pf), FS_OSCILLATORY)
-        r = ratios[0]
+        r, r32 = ratios[0], ratios[1]
         e21 = abs(vals[1] - vals[0])
         d["observed_order"] = s.order
         d["order_used"] = p
@@ -448,9 +448,12 @@ def one_study(key, vals, dofs, ratios, size) -> dict:
             # the observed order ran away above the formal one: the last two meshes agree better
             # than the method's order explains, which is chance (an error crossing zero), not
             # accuracy. The last difference is then not trusted either: it is taken no smaller
-            # than the earlier one reduced at the formal order, |f3 − f2|/r^p. Without this the GCI
-            # fell below the true error (observed orders 12–14, issue 15).
-            e21 = max(e21, abs(vals[2] - vals[1]) / r**pf)
+            # than the earlier one reduced at the formal order. For an error C·h^p on meshes h1,
+            # h2 = r21·h1, h3 = r32·h2: f2 − f1 = C·h1^p·(r21^p − 1) and f3 − f2 = C·h1^p·r21^p·(r32^p − 1),
+            # so |f2 − f1| = |f3 − f2|·(r21^p − 1)/(r21^p·(r32^p − 1)); with equal ratios |f3 − f2|/r^p.
+            # (With unequal, measured ratios, |f3 − f2|/r21^p fell short of it where r32 < r21.)
+            # Without this the GCI fell below the true error (observed orders 12–14, issue 15).
+            e21 = max(e21, abs(vals[2] - vals[1]) * (r**pf - 1.0) / (r**pf * (r32**pf - 1.0)))
             d["order_note"] = (f"observed order {s.order:.3g} above the formal {pf:g}: the formal order is used and "
                                "the last change is taken no smaller than the one before it reduced at that order")
         d["extrapolated"] = vals[0] + (vals[0] - vals[1]) / (r ** p - 1.0)
