@@ -21,7 +21,11 @@ the station's keyed section (``keyway``: which one, default 0) and the key lengt
 (the modelled length; default the feature's span plus two diameters, at least three diameters) and
 ``fineness`` (of the 3-D meshes; default analysis.fineness) and ``model`` ("whole", "half" or
 "quarter"; default the smallest the features allow: compare/case/segment.py). The model is a solid round bar: a hollow
-segment is refused, as is a feature too close to the model's end faces.
+segment is refused, as is a feature too close to the model's end faces. A shoulder of the shaft's
+outline whose fillet begins within :data:`SHOULDER_REACH` diameters of the feature's cut is built into the
+model (the feature on the smaller diameter; a step down along the shaft modelled as a step up and
+mirrored back, ``StationSegment.mirrored``); where it cannot be, ``shoulder_not_in_model`` says why.
+Grooves are not built into the 3-D model.
 
 :func:`parse_station_segment` reads the table (in ``shaft.py``'s station parser);
 :func:`build_station_segments` makes the :class:`fem.solid.Segment` once the station's diameter is

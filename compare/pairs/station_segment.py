@@ -6,8 +6,15 @@ the station check takes from it (numbers and records only):
   shaft the moment turns round the section, and on a standing one the larger is the safe side), Kts in
   torsion, each with the source "3-D FE, this run" and its three-mesh estimate, and the notch radius
   (the keyseat's bottom fillet, the hole's radius) for the notch sensitivity;
-* a station also on a shoulder or groove keeps, factor by factor, the larger of the two (neither model
-  holds both raisers), and its FE path takes the smaller factor of the 3-D and the fillet's local stresses;
+* a shoulder of the outline within reach of the feature (compare/case/shaft_segment.py, SHOULDER_REACH)
+  is in the 3-D model itself (``shoulder_in_model`` in the record): the model's factors are the
+  station's, replacing the shoulder's meridian ones, and the notch radius is the shoulder's fillet where
+  the bending peak sits on it; a step down along the shaft is modelled as a step up and its unit fields
+  mirrored back (``model_mirrored``); a combined model whose first mesh exceeds analysis.max_dofs falls
+  back to the feature alone, with the reason;
+* otherwise a station also on a shoulder or groove keeps, factor by factor, the larger of the two
+  (neither model holds both raisers; grooves are never in the 3-D model), and its FE path takes the
+  smaller factor of the 3-D and the fillet's local stresses;
 * the segment is solved on the smallest model its features allow (compare/pairs/segment_step.py;
   ``model`` in the record: "whole", "half" or "quarter"), its surface stress completed to the whole
   surface by reflection;
