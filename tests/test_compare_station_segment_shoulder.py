@@ -140,3 +140,17 @@ def test_combined_model_runs_and_bounds_the_shoulder_factor():
               f"(estimate {100 * m['gci']:.2f} %), bound {bound:.3f}; unknowns {rec['dofs']}, {rec['seconds']:.0f} s")
         assert rec[key] >= bound, (key, rec[key], bound)
     assert max(rec["kt_bending_x"], rec["kt_bending_y"]) >= m["kt"] * (1 - 0.25 - m["gci"])  # the case's target
+
+
+def test_combined_model_over_max_dofs_falls_back_to_the_feature_alone():
+    """analysis.max_dofs below the combined (whole) model's first mesh: the station studies its keyseat
+    alone (its quarter model), records why the shoulder was left out, and keeps the larger-of-the-two
+    rule; the limit is kept (no mesh above it solved)."""
+    c = layout(UP, 100)
+    c["analysis"]["max_dofs"] = 12000
+    case = parse_case(c)
+    (rec,) = station_segments_step(case)
+    assert rec["shoulder_in_model"] is None and "exceeded a limit" in rec["shoulder_not_in_model"]
+    assert rec["model"] == "quarter" and max(rec["dofs"]) <= 12000
+    ss = case.shaft.stations[0].segment
+    assert len(ss.model.features) == 1 and not ss.mirrored and ss.mid == ss.centre
