@@ -2,14 +2,16 @@
 end, a sled-runner keyseat, a cross hole), studied in 3-D (compare/solve/segments.py) instead of a
 section. Every field is checked here with one-line :class:`~fem.errors.InputError`; lengths in SI.
 
-Keys: ``kind`` ("keyseat_end", "sled_runner", "cross_hole"), ``diameter``, ``length`` (the modelled
+Keys: ``kind`` ("keyseat_end", "sled_runner", "cross_hole", or "shoulder": the shoulder alone), ``diameter``, ``length`` (the modelled
 length, default 3 diameters), ``at`` (the feature's centre along the segment, default mid-length);
 keyseats: ``width``, ``depth``, ``fillet`` (or ``standard = "metric"`` for the metric parallel key's
 keyway of the diameter, classic/keys.py), ``key_length`` (end to end), sled runner ``cutter_diameter``;
 cross hole: ``hole_diameter``, ``chamfer`` (default 0), ``hole_depth`` (blind; default through).
 Optional ``shoulder = { D = ..., fillet = ..., at = ... }``: the segment steps up from ``diameter`` to
 ``D`` at ``at`` (the shoulder face; the larger diameter beyond it) through a quarter-round ``fillet``;
-the feature must lie clear of the fillet, on either diameter.
+the feature must lie clear of the fillet, on either diameter. ``kind = "shoulder"`` takes only
+``diameter``, ``length`` and that ``shoulder`` table (required): a stepped round bar with no other
+feature (its factors beside the shoulder fits of classic/notch_fits.py).
 Optional ``model`` ("whole", "half" or "quarter"; default the smallest the features allow,
 :func:`fem.solid.symmetry_of`): the part of the segment meshed; "whole" forces the whole segment, a
 model the features do not allow is refused (:func:`parse_model`, Case.segment_symmetry).
@@ -23,14 +25,19 @@ from fem.errors import InputError
 from .fields import known
 from .units import to_si
 
-KINDS = ("keyseat_end", "sled_runner", "cross_hole")
+KINDS = ("keyseat_end", "sled_runner", "cross_hole", "shoulder")
 _KEYS = {"kind", "diameter", "length", "at", "width", "depth", "fillet", "key_length", "cutter_diameter",
          "hole_diameter", "chamfer", "hole_depth", "standard", "shoulder", "model"}
 _SHOULDER_KEYS = {"D", "fillet", "at"}
 _ALLOWED = {"keyseat_end": {"width", "depth", "fillet", "key_length", "standard"},
             "sled_runner": {"width", "depth", "fillet", "key_length", "cutter_diameter", "standard"},
-            "cross_hole": {"hole_diameter", "chamfer", "hole_depth"}}
+            "cross_hole": {"hole_diameter", "chamfer", "hole_depth"}, "shoulder": set()}
+_KIND_WORDS = "must be \"keyseat_end\", \"sled_runner\", \"cross_hole\" or \"shoulder\""
 
+
+#: a shoulder segment's default length beyond the shoulder face, in larger diameters (fem.solid's
+#: END_ZONE of 0.75 of plain bar there, and half a diameter more for the fillet's disturbance to fade)
+SHOULDER_BEYOND = 1.25
 
 #: the models of a segment, by the mirror symmetry they use (fem.solid's ``symmetry`` 0, 1, 2)
 MODELS = ("whole", "half", "quarter")
@@ -56,13 +63,14 @@ def parse_model(value, seg: solid.Segment, field: str) -> int | None:
 
 def parse_segment(s, units) -> solid.Segment:
     if not isinstance(s, dict):
-        raise InputError("segment", s, "must be a table: [segment] with kind = \"keyseat_end\", \"sled_runner\" or \"cross_hole\"")
+        raise InputError("segment", s, "must be a table: [segment] with kind = \"keyseat_end\", \"sled_runner\", "
+                         "\"cross_hole\" or \"shoulder\"")
     known(s, _KEYS, "segment")
     kind = s.get("kind")
     if kind not in KINDS:
-        raise InputError("segment.kind", kind, "must be \"keyseat_end\", \"sled_runner\" or \"cross_hole\"")
+        raise InputError("segment.kind", kind, _KIND_WORDS)
     for k in s:
-        if k not in _ALLOWED[kind] | {"kind", "diameter", "length", "at", "shoulder", "model"}:
+        if k not in _ALLOWED[kind] | {"kind", "diameter", "length", "shoulder", "model"} | ({"at"} if kind != "shoulder" else set()):
             raise InputError(f"segment.{k}", s[k], f"is not a field of a {kind} segment")
 
     def length(key, default=None, required=True):
@@ -78,7 +86,12 @@ def parse_segment(s, units) -> solid.Segment:
     d = length("diameter")
     L = length("length", 3 * d)
     at = length("at", L / 2)
-    if kind == "cross_hole":
+    if kind == "shoulder":
+        if "shoulder" not in s:
+            raise InputError("segment.shoulder", None, "is missing (a shoulder segment needs shoulder = { D = ..., "
+                             "fillet = ..., at = ... })")
+        feat = None
+    elif kind == "cross_hole":
         dh = length("hole_diameter")
         chamfer = 0.0
         if "chamfer" in s:
@@ -106,7 +119,7 @@ def parse_segment(s, units) -> solid.Segment:
             feat = solid.ProfileKeyseat(width, depth, z0, z1, fillet)
         else:
             feat = solid.SledKeyseat(width, depth, z0, z1, length("cutter_diameter"), fillet)
-    feats = (feat,)
+    feats = (feat,) if feat is not None else ()
     sh = s.get("shoulder")
     if sh is not None:
         if not isinstance(sh, dict):
@@ -119,12 +132,14 @@ def parse_segment(s, units) -> solid.Segment:
             vals[key] = to_si(sh[key], "length", f"segment.shoulder.{key}", units)
             if not vals[key] > 0:
                 raise InputError(f"segment.shoulder.{key}", sh[key], "must be a positive length")
-        feats = (feat, solid.Shoulder(vals["D"], vals["at"], vals["fillet"]))
+        feats = (*feats, solid.Shoulder(vals["D"], vals["at"], vals["fillet"]))
+        if kind == "shoulder" and "length" not in s:
+            L = vals["at"] + SHOULDER_BEYOND * vals["D"]  # the default: the larger bar beyond the face
     seg = solid.Segment(d, L, feats)
     try:
         seg.check("segment")
     except InputError as exc:  # name the case-file field; echo the value as written where there is one
-        if exc.field.startswith("segment.features[1]."):
+        if exc.field.startswith(f"segment.features[{len(feats) - 1}].") and sh is not None:
             key = {"z": "at"}.get(exc.field.rsplit(".", 1)[1], exc.field.rsplit(".", 1)[1])
             raise InputError(f"segment.shoulder.{key}", sh.get(key), exc.reason) from None
         f = exc.field.replace("segment.features[0].", "segment.")

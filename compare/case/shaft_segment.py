@@ -21,7 +21,11 @@ the station's keyed section (``keyway``: which one, default 0) and the key lengt
 (the modelled length; default the feature's span plus two diameters, at least three diameters) and
 ``fineness`` (of the 3-D meshes; default analysis.fineness) and ``model`` ("whole", "half" or
 "quarter"; default the smallest the features allow: compare/case/segment.py). The model is a solid round bar: a hollow
-segment is refused, as is a feature too close to the model's end faces.
+segment is refused, as is a feature too close to the model's end faces. A shoulder of the shaft's
+outline whose fillet begins within :data:`SHOULDER_REACH` diameters of the feature's cut is built into the
+model (the feature on the smaller diameter; a step down along the shaft modelled as a step up and
+mirrored back, ``StationSegment.mirrored``); where it cannot be, ``shoulder_not_in_model`` says why.
+Grooves are not built into the 3-D model.
 
 :func:`parse_station_segment` reads the table (in ``shaft.py``'s station parser);
 :func:`build_station_segments` makes the :class:`fem.solid.Segment` once the station's diameter is
@@ -48,6 +52,16 @@ _ALLOWED = {"keyseat_end": {"keyway"}, "sled_runner": {"keyway", "cutter_diamete
 #: fem.solid.END_ZONE = 0.75 diameters each side, and a quarter diameter more), at least MIN_LENGTH.
 MARGIN = 2.0
 MIN_LENGTH = 3.0
+#: A shoulder of the shaft's outline whose fillet begins within this many of the station's (smaller)
+#: diameters of the feature's cut goes into the station's 3-D model (one model holds both raisers).
+#: Reason: each raiser disturbs the plain bar's stress over about one diameter from it (Saint-Venant's
+#: principle; the 3-D model keeps fem.solid.END_ZONE = 0.75 diameters of plain bar at its ends for that
+#: reason, common practice), so closer than that the two peaks' surroundings overlap and neither model
+#: alone holds the stress between them; further apart each model alone does.
+SHOULDER_REACH = 1.0
+#: The combined model's plain bar before the feature's cut (in d) and beyond the shoulder face (in D):
+#: fem.solid.END_ZONE (0.75) and a quarter diameter more, as the feature's own default length (MARGIN).
+COMBINED_MARGIN = 1.0
 
 
 @dataclass
@@ -72,6 +86,18 @@ class StationSegment:
     #: the mirror symmetry of the model asked for (``model``: 0 whole, 1 half, 2 quarter), None: the
     #: smallest the features allow; checked once the model is built
     symmetry: int | None = None
+    #: the shaft's z [m] of the model's mid-length (the feature's centre unless a shoulder is in the model)
+    mid: float | None = None
+    #: the model's z runs against the shaft's (a shoulder stepping down along the shaft, mirrored so the
+    #: model steps up): shaft z = mid − (z − length/2)
+    mirrored: bool = False
+    #: the shoulder of the outline built into the model: {D, fillet, at (shaft z), field}, else None
+    shoulder_in_model: dict | None = None
+    #: why a shoulder within reach was not built into the model (then the larger-of-the-two rule holds)
+    shoulder_not_in_model: str | None = None
+    #: the model of the feature alone (without the shoulder), kept for the fallback when the combined
+    #: study cannot run (a limit of the case)
+    model_alone: object | None = None
 
 
 def parse_station_segment(s: dict, w: str, st, units, feature_lengths=None) -> StationSegment:
@@ -183,6 +209,7 @@ def build_station_segments(shaft, section, material) -> None:
             feat = solid.SledKeyseat(sz["width"], sz["depth"], mid - span / 2, mid + span / 2, sz["cutter_diameter"],
                                      sz["fillet"])
         model = solid.Segment(d, L, (feat,))
+        ss.mid = ss.centre
         try:
             model.check(ss.field)
         except InputError as exc:
@@ -197,3 +224,87 @@ def build_station_segments(shaft, section, material) -> None:
             raise InputError(f"{ss.field}.{key}", raw if raw is not None else exc.value, exc.reason) from None
         ss.model, ss.d = model, d
         ss.symmetry = parse_model((ss.raw or {}).get("model"), model, f"{ss.field}.model")
+        _with_shoulder(shaft, ss, feat, span, d)
+
+
+def shoulder_near(shaft, ss, span: float, d: float):
+    """The shoulder of the shaft's outline (a step between consecutive segments) whose fillet begins
+    within :data:`SHOULDER_REACH` station diameters of the station feature's cut, the nearest: (index
+    of the segment the step begins, gap [m]) or None."""
+    a, b = ss.centre - span / 2, ss.centre + span / 2
+    best = None
+    segs = shaft.segments
+    for i in range(1, len(segs)):
+        if segs[i - 1].diameter == segs[i].diameter:
+            continue
+        at, r = segs[i].start, segs[i].fillet or 0.0
+        gap = max(a - at, at - b, 0.0) - r  # from the cut to the nearer edge of the fillet
+        if gap <= SHOULDER_REACH * d and (best is None or gap < best[1]):
+            best = (i, gap)
+    return best
+
+
+def _with_shoulder(shaft, ss, feat, span: float, d: float) -> None:
+    """Build the shoulder within reach of the station's feature into its 3-D model (the feature on the
+    smaller diameter, the shoulder's fillet given, one material, the model asked not a half or quarter),
+    or record why not (``shoulder_not_in_model``; the station then keeps the larger-of-the-two rule)."""
+    near = shoulder_near(shaft, ss, span, d)
+    if near is None:
+        return
+    i, gap = near
+    s0, s1 = shaft.segments[i - 1], shaft.segments[i]
+    up = s1.diameter > s0.diameter
+    small, big = (s0, s1) if up else (s1, s0)
+    fld = f"shaft.segments[{i}].fillet"
+    at, r = s1.start, s1.fillet
+    why = None
+    if abs(small.diameter - d) > 1e-9 * d:
+        why = (f"the feature sits on the larger diameter of the step at {fld}: the 3-D model's nominal stresses "
+               "are the smaller diameter's (not built in)")
+    elif r is None:
+        why = f"the shoulder at {fld} has no fillet (a sharp corner has no bounded peak)"
+    elif r > (big.diameter - small.diameter) / 2 * (1 + 1e-9):
+        why = f"the fillet at {fld} exceeds the step (not a tangent quarter round)"
+    elif s0.section is not None or s1.section is not None or (big.bore or 0.0):
+        why = f"the shoulder at {fld} has a bore or bonded regions: the 3-D model is one solid material"
+    elif ss.symmetry:
+        why = (f"the case asks for the {('whole', 'half', 'quarter')[ss.symmetry]} model ({ss.field}.model); a "
+               "shoulder needs the whole model")
+    if why is not None:
+        ss.shoulder_not_in_model = why
+        return
+    D = big.diameter
+    # the model's frame: z from its end on the small diameter, the shoulder stepping up along +z; a
+    # shoulder stepping down along the shaft is mirrored (z runs against the shaft's)
+    dist = (at - ss.centre) if up else (ss.centre - at)  # from the feature's centre to the face, > 0
+    z_feat = COMBINED_MARGIN * d + span / 2
+    L = z_feat + dist + COMBINED_MARGIN * D
+    fz = z_feat
+    if ss.kind == "cross_hole":
+        f2 = solid.CrossHole(feat.diameter, fz, feat.chamfer, feat.depth)
+    elif ss.kind == "keyseat_end":
+        f2 = solid.ProfileKeyseat(feat.width, feat.depth, fz - span / 2, fz + span / 2, feat.fillet)
+    else:
+        f2 = solid.SledKeyseat(feat.width, feat.depth, fz - span / 2, fz + span / 2, feat.cutter_diameter, feat.fillet)
+    model = solid.Segment(d, L, (f2, solid.Shoulder(D, z_feat + dist, r)))
+    try:
+        model.check(ss.field)
+    except InputError as exc:
+        ss.shoulder_not_in_model = f"the combined model is refused ({exc.reason}); the feature modelled alone"
+        return
+    ss.model_alone = ss.model
+    ss.model = model
+    ss.mirrored = not up
+    ss.mid = ss.centre + (L / 2 - z_feat) * (1 if up else -1)
+    ss.shoulder_in_model = {"D": D, "fillet": r, "at": at, "field": fld, "gap": gap,
+                            "steps": "up" if up else "down"}
+
+
+def use_alone(ss, why: str) -> None:
+    """Fall back from the combined model (feature and shoulder) to the feature's own model, recording
+    why (the larger-of-the-two rule then holds)."""
+    if ss.model_alone is None:
+        return
+    ss.model, ss.model_alone = ss.model_alone, None
+    ss.mirrored, ss.mid, ss.shoulder_in_model = False, ss.centre, None
+    ss.shoulder_not_in_model = why

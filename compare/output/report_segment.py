@@ -42,7 +42,7 @@ def segment_report_files(a, res: dict, date: str | None = None) -> dict[str, str
             f"modelled over {e(f.q(s['length'], 'length'))} ({e(model_phrase(s.get('model')))}); "
             f"meshes {e(str(acc['meshes']))} unknowns; target "
             f"{100 * acc['target']:.3g} %.</p>"
-            + (f"<p>Beside a shoulder up to {e(f.q(s['shoulder']['D'], 'length'))} at "
+            + (f"<p>{'The' if s['kind'] == 'shoulder' else 'Beside a'} shoulder up to {e(f.q(s['shoulder']['D'], 'length'))} at "
                f"{e(f.q(s['shoulder']['at'], 'length'))} (fillet {e(f.q(s['shoulder']['fillet'], 'length'))}); "
                f"nominal stresses on the {e(f.q(s['diameter'], 'length'))} diameter.</p>" if s.get("shoulder") else "")
             + _table(("factor", "FE (finest)", "estimate", "study", "chart", "peak (x, y, z)", "peak on"), rows,

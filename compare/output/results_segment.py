@@ -5,7 +5,7 @@ from .._version import __version__
 from .report import CAUTION, Fmt
 
 #: what the factors of a segment are not, said beside them every time
-SEGMENT_CAUTION = ("a chart read by eye and this 3-D FE both need checking: the factors are per unit load on a short "
+SEGMENT_CAUTION = ("a chart read by eye (or a handbook curve fit) and this 3-D FE both need checking: the factors are per unit load on a short "
                    "segment with plain-bar ends, the peaks on small radii read high on coarse meshes")
 
 _KEYS = ("kt_axial", "kt_bending_x", "kt_bending_y", "kts")
@@ -78,7 +78,7 @@ def segment_summary(res: dict, system) -> str:
                  f"{acc['seconds']:.0f} s")
     if s.get("shoulder"):
         sh = s["shoulder"]
-        lines.append(f"  beside a shoulder up to {f.q(sh['D'], 'length')} at {f.q(sh['at'], 'length')}, fillet "
+        lines.append(f"  {'the' if s['kind'] == 'shoulder' else 'beside a'} shoulder up to {f.q(sh['D'], 'length')} at {f.q(sh['at'], 'length')}, fillet "
                      f"{f.q(sh['fillet'], 'length')}; nominal stresses on the {f.q(s['diameter'], 'length')} diameter")
     lines.append("")
     lines.append(f"  {'factor':<14} {'FE':>7} {'estimate':>9} {'chart':>7}  peak (x, y, z)")

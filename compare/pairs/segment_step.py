@@ -6,6 +6,8 @@ project has one (from memory: context, never a pass mark), and ``pairs`` one
 :class:`~compare.pairs.pairs.Pair` per factor (``kind='factor'`` with the handbook value, else
 ``'not applicable'`` with the reason).
 
+A shoulder alone (``kind = "shoulder"``) gets the Roark Table 17.1 fits of Peterson's stepped-bar
+charts (classic/notch_fits.py; both bending planes the one fit, the shoulder being round).
 A keyseat end gets Shigley's first-iteration estimates (another geometry: key in place, r/d = 0.02).
 A plain through cross hole gets Peterson's fits for a round bar with a transverse hole
 (classic/cross_hole.py, gross-section nominal like the 3-D engine): bending in the plane of the
@@ -26,6 +28,7 @@ import time
 
 from classic import cross_hole as ch
 from classic import fatigue as cf
+from classic import notch_fits
 from classic._validity import OutOfRangeError
 from fem import solid
 
@@ -47,6 +50,9 @@ CROSS_HOLE_SOURCE = ch.SOURCE + "; torsion: half the fit's σmax/τ"
 #: why a factor of a cross hole has no handbook value
 CROSS_HOLE_NONE = {"kt_axial": "no tension fit in the project", "kt_bending_x": "the hole lies on the neutral plane "
                    "of this bending: no chart applies"}
+#: the shoulder fits per factor key (classic/notch_fits.py, gross nominal of the smaller diameter d like
+#: the 3-D engine); a round shoulder is axisymmetric, so both bending planes take the one bending fit
+SHOULDER_LOADS = {"kt_axial": "tension", "kt_bending_x": "bending", "kt_bending_y": "bending", "kts": "torsion"}
 #: the 3-D meshes' own shaft on a plain bar reads E-independent factors; a stand-in modulus [Pa]
 E_STANDIN = 2.0e11
 
@@ -68,7 +74,7 @@ def segment_step(case, fineness: float | None = None) -> Analysis:
     for load, key in KEYS.items():
         est = st.estimates[key]
         # a handbook chart is of the feature alone: none beside a shoulder, whose fillet may hold the peak
-        chart, source, why = (handbook_value(feat, seg.d, key) if sh is None else
+        chart, source, why = (handbook_value(feat, seg.d, key) if sh is None or feat is sh else
                               (None, None, "no handbook value beside a shoulder (the charts are of the feature alone)"))
         rows.append({"key": key, "load": load, "value": st.values[key], "gci": est["gci"], "status": est["status"],
                      "peak_at": st.peaks[key]["at"], "peak_on_feature": st.peaks[key]["on_feature"],
@@ -107,6 +113,12 @@ def handbook_value(feat, d: float, key: str) -> tuple[float | None, str | None, 
     if feat.kind == "keyseat_end":
         v = KEYSEAT_CHART.get(key)
         return (v, KEYSEAT_CHART_SOURCE, None) if v is not None else (None, None, "no chart value for this load")
+    if feat.kind == "shoulder":
+        load = SHOULDER_LOADS[key]
+        try:
+            return notch_fits.kt_fit("shoulder", load, feat.D, d, feat.fillet), notch_fits.SOURCE, None
+        except OutOfRangeError as exc:
+            return None, None, f"h/r = {(feat.D - d) / 2 / feat.fillet:.3g} outside the fit's range ({exc.reason})"
     if feat.kind == "cross_hole":
         fit = CROSS_HOLE_FITS.get(key)
         if fit is None:

@@ -6,8 +6,15 @@ the station check takes from it (numbers and records only):
   shaft the moment turns round the section, and on a standing one the larger is the safe side), Kts in
   torsion, each with the source "3-D FE, this run" and its three-mesh estimate, and the notch radius
   (the keyseat's bottom fillet, the hole's radius) for the notch sensitivity;
-* a station also on a shoulder or groove keeps, factor by factor, the larger of the two (neither model
-  holds both raisers), and its FE path takes the smaller factor of the 3-D and the fillet's local stresses;
+* a shoulder of the outline within reach of the feature (compare/case/shaft_segment.py, SHOULDER_REACH)
+  is in the 3-D model itself (``shoulder_in_model`` in the record): the model's factors are the
+  station's, replacing the shoulder's meridian ones, and the notch radius is the shoulder's fillet where
+  the bending peak sits on it; a step down along the shaft is modelled as a step up and its unit fields
+  mirrored back (``model_mirrored``); a combined model whose first mesh exceeds analysis.max_dofs falls
+  back to the feature alone, with the reason;
+* otherwise a station also on a shoulder or groove keeps, factor by factor, the larger of the two
+  (neither model holds both raisers; grooves are never in the 3-D model), and its FE path takes the
+  smaller factor of the 3-D and the fillet's local stresses;
 * the segment is solved on the smallest model its features allow (compare/pairs/segment_step.py;
   ``model`` in the record: "whole", "half" or "quarter"), its surface stress completed to the whole
   surface by reflection;
@@ -23,6 +30,9 @@ from __future__ import annotations
 import math
 import time
 
+from fem.errors import LimitError
+
+from ..case.shaft_segment import use_alone
 from ..solve.segment_superpose import MODEL_ANGLE, unit_fields
 from ..solve.segments import KEYS, study_segment
 from .segment_step import MODELS, model_symmetry
@@ -39,11 +49,16 @@ def station_segment_record(i: int, st, ss, study, target: float) -> dict:
     feat = ss.model.features[0]
     a, b = feat.span()
     L = ss.model.length
+    sgn = -1.0 if ss.mirrored else 1.0
+    mid = ss.mid if ss.mid is not None else ss.centre
+
+    def on_shaft(z):  # the shaft's z of the model's z
+        return mid + sgn * (z - L / 2)
     gcis = [study.estimates[k]["gci"] for k in KEYS.values()]
     achieved = None if any(g is None for g in gcis) else max(gcis)
     met = achieved is not None and achieved <= target and study.limited is None
     rec = {"station": i, "name": st.name, "at": st.at, "kind": ss.kind, "field": ss.field,
-           "centre": ss.centre, "span": [ss.centre + a - L / 2, ss.centre + b - L / 2], "angle_deg": ss.angle,
+           "centre": ss.centre, "span": sorted([on_shaft(a), on_shaft(b)]), "angle_deg": ss.angle,
            "diameter": ss.d, "length": L, "sizes": dict(ss.sizes), "dofs": study.dofs, "seconds": study.seconds,
            "limited_by": study.limited, "target": target, "achieved": achieved, "met": bool(met)}
     peaks = {}
@@ -56,11 +71,14 @@ def station_segment_record(i: int, st, ss, study, target: float) -> dict:
         rec[f"{key}_status"] = est["status"]
         x, y, z = (float(v) for v in study.peaks[key]["at"])
         peaks[key] = {"at": [x, y, z], "on_feature": study.peaks[key]["on_feature"],
-                      "at_on_shaft": [c * x - s * y, s * x + c * y, ss.centre + z - L / 2]}
+                      "feature": study.peaks[key].get("feature"),
+                      "at_on_shaft": [c * x - s * y, s * x + c * y, on_shaft(z)]}
     rec["peak_location"] = peaks
-    rec["peak_location_frame"] = ("at: the 3-D model's (z from its left end face, the feature centred at length/2, a "
-                                  "keyseat on +y, a hole's axis along x); at_on_shaft: the station's x, y and z along "
-                                  "the shaft")
+    rec["peak_location_frame"] = ("at: the 3-D model's (z from its left end face, the feature centred at length/2 "
+                                  "unless a shoulder is in the model, then its small diameter at z = 0; a keyseat on "
+                                  "+y, a hole's axis along x); at_on_shaft: the station's x, y and z along the shaft")
+    rec["model_mid_on_shaft"] = mid
+    rec["model_mirrored"] = bool(ss.mirrored)
     kb = max(("kt_bending_x", "kt_bending_y"), key=lambda k: study.values[k])
     rec["kt_bending_used"] = {"value": study.values[kb], "from": kb, "gci": rec[f"{kb}_gci"],
                               "why": "the larger of the two bending planes (the moment's direction relative to the "
@@ -92,29 +110,63 @@ def station_segments_step(case) -> list[dict] | None:
         if ss is None:
             continue
         t0 = time.perf_counter()
+        fineness = ss.fineness if ss.fineness is not None else an.fineness
         sym = model_symmetry(ss.model, getattr(ss, "symmetry", None))
-        study = study_segment(ss.model, fineness=ss.fineness if ss.fineness is not None else an.fineness, E=E,
-                              nu=m.poisson, max_dofs=an.max_dofs, max_seconds=an.max_seconds, symmetry=sym)
+        fell_back = None
+        try:
+            study = study_segment(ss.model, fineness=fineness, E=E, nu=m.poisson, max_dofs=an.max_dofs,
+                                  max_seconds=an.max_seconds, symmetry=sym)
+        except LimitError as exc:
+            if ss.shoulder_in_model is None:
+                raise
+            # the combined model is too large for the case's limit: the feature alone, as before
+            fell_back = f"the combined model with the shoulder exceeded a limit ({exc}); the feature modelled alone"
+            use_alone(ss, fell_back)
+            sym = model_symmetry(ss.model, getattr(ss, "symmetry", None))
+            study = study_segment(ss.model, fineness=fineness, E=E, nu=m.poisson, max_dofs=an.max_dofs,
+                                  max_seconds=an.max_seconds, symmetry=sym)
         rec = station_segment_record(i, st, ss, study, an.accuracy)
         rec["model"] = MODELS[sym]
+        rec["shoulder_in_model"] = ss.shoulder_in_model
+        if ss.shoulder_not_in_model is not None:
+            rec["shoulder_not_in_model"] = ss.shoulder_not_in_model
+        rec["grooves_in_model"] = False  # grooves stay with the larger-of-the-two rule (not modelled in 3-D)
         kb = rec["kt_bending_used"]["from"]
         notch = ss.notch if ss.notch is not None else (ss.sizes["hole_diameter"] / 2, f"{ss.field}.hole_diameter")
-        # a station also on a shoulder or groove (the feature step ran first): each factor the larger of the
-        # two, with the notch radius of the one that gave the bending factor (neither model holds both raisers)
-        shoulder = {k: st.kt[k] for k in ("kt_bending", "kts_torsion", "notch_radius") if k in st.kt}
-        for key, value, src in (("kt_bending", rec["kt_bending_used"]["value"], _source(ss, kb, rec)),
-                                ("kts_torsion", rec["kts_used"]["value"], _source(ss, "kts", rec))):
-            if key in shoulder and shoulder[key][0] > value:
-                rec.setdefault("also_on_a_shoulder_or_groove", {})[key] = "the shoulder or groove's factor is larger: used"
-                continue
-            st.kt[key] = (value, src)
-            if key == "kt_bending":
-                st.kt["notch_radius"] = notch
-        if "notch_radius" not in st.kt:
+        sh = ss.shoulder_in_model
+        if sh is not None and study.peaks[kb].get("feature") == "shoulder":
+            notch = (sh["fillet"], sh["field"])  # the bending peak on the shoulder's fillet: its radius
+        if sh is not None:
+            # one model holds both raisers: its factors replace the shoulder's meridian ones
+            for key, value, src in (("kt_bending", rec["kt_bending_used"]["value"], _source(ss, kb, rec)),
+                                    ("kts_torsion", rec["kts_used"]["value"], _source(ss, "kts", rec))):
+                if key in st.kt and st.kt[key][1] != src:
+                    rec.setdefault("replaced_shoulder_or_groove_factor", {})[key] = {
+                        "value": st.kt[key][0], "source": st.kt[key][1],
+                        "why": "the 3-D model holds the shoulder and the station's feature together"}
+                st.kt[key] = (value, src)
             st.kt["notch_radius"] = notch
+            st.kt.pop("fillet_stresses", None)  # the FE path reads the combined 3-D model instead
+        else:
+            # a station also on a shoulder or groove (the feature step ran first): each factor the larger of
+            # the two, with the notch radius of the one that gave the bending factor (neither model holds both
+            # raisers: the shoulder not within reach, or not buildable, or a groove)
+            shoulder = {k: st.kt[k] for k in ("kt_bending", "kts_torsion", "notch_radius") if k in st.kt}
+            for key, value, src in (("kt_bending", rec["kt_bending_used"]["value"], _source(ss, kb, rec)),
+                                    ("kts_torsion", rec["kts_used"]["value"], _source(ss, "kts", rec))):
+                if key in shoulder and shoulder[key][0] > value:
+                    rec.setdefault("also_on_a_shoulder_or_groove", {})[key] = \
+                        "the shoulder or groove's factor is larger: used (neither model holds both raisers)"
+                    continue
+                st.kt[key] = (value, src)
+                if key == "kt_bending":
+                    st.kt["notch_radius"] = notch
+            if "notch_radius" not in st.kt:
+                st.kt["notch_radius"] = notch
         turn = ss.angle - MODEL_ANGLE[ss.kind]
-        fields = unit_fields(study.finest, ss.d, ss.model.length, turn=turn)
-        local = {"fields": fields, "record": rec, "kind": ss.kind, "field": ss.field, "centre": ss.centre,
+        fields = unit_fields(study.finest, ss.d, ss.model.length, turn=turn, mirror=ss.mirrored)
+        local = {"fields": fields, "record": rec, "kind": ss.kind, "field": ss.field,
+                 "centre": ss.mid if ss.mid is not None else ss.centre,
                  "length": ss.model.length, "met": rec["met"], "keep_section_min": st.section is not None,
                  "study": study}
         st.kt["segment_stresses"] = (local, ss.field)

@@ -87,11 +87,19 @@ def surface_stress(r):
     return r.stress if node is None else node
 
 
-def unit_fields(finest: dict, d: float, length: float, turn: float = 0.0, end_zone: float = 0.375) -> UnitFields:
+def unit_fields(finest: dict, d: float, length: float, turn: float = 0.0, end_zone: float = 0.375,
+                mirror: bool = False) -> UnitFields:
     """From the finest mesh's results {load: SolidResult} (or any object with ``load``, ``points``,
     ``stress``), the stress per unit N, Mx, My, T, turned by ``turn`` degrees about the shaft axis
     (model frame to station frame). Points within ``end_zone`` diameters of an end face are marked
-    off in ``keep`` (the solver's own margin: the end faces carry the prescribed displacement)."""
+    off in ``keep`` (the solver's own margin: the end faces carry the prescribed displacement).
+
+    ``mirror``: the station's part is the model reflected in its mid-length plane (z → length − z; a
+    shoulder stepping down along the shaft, modelled stepping up). The reflected field solves the
+    reflected part (linear elasticity is invariant under reflections): its stress is QσQ, Q = diag(1, 1,
+    −1) (the shear components τ_xz, τ_yz change sign); the axial force and the moments ∫yσ_zz dA,
+    ∫xσ_zz dA keep theirs, the torque ∫(xτ_yz − yτ_xz) dA changes sign, so the reflected unit torque's
+    field is −QσQ of the model's."""
     missing = [k for k in LOADS if k not in finest]
     if missing:
         raise ValueError(f"the segment study has no {', '.join(missing)} result")
@@ -101,6 +109,11 @@ def unit_fields(finest: dict, d: float, length: float, turn: float = 0.0, end_zo
                                                                                   atol=1e-12 * d):
             raise ValueError("the unit-load results are not on the same surface points")
     per = {k: np.asarray(surface_stress(finest[k]), float) / float(finest[k].load) for k in LOADS}
+    if mirror:
+        q = np.array([1.0, 1.0, -1.0])
+        per = {k: v * (q[:, None, None] * q[None, :, None]) * (-1.0 if k == "torsion" else 1.0) for k, v in per.items()}
+        pts = pts.copy()
+        pts[2] = length - pts[2]
     R = _rot(turn)
     c, s = math.cos(math.radians(turn)), math.sin(math.radians(turn))
     # a unit moment (Mx, My) of the station is R(−turn)·(Mx, My) in the model; the model's bending_y
