@@ -69,10 +69,13 @@ check the half and quarter models against the whole model on the mirrored mesh (
 Measured on the demo keyseat end (tests/benchmarks/bench_segment_accuracy.py, d 30 mm, 8 × 4 mm,
 fillet 0.6 mm, fineness 0.3; estimates tension / bending x / bending y / torsion): whole segment
 40k/68k/123k unknowns, 149 CPU s, 2.3 GB, 35 / 19 / 1.7 / 2.1 %; quarter model 12k/18k/30k, 41 CPU s,
-1.1 GB, 10 / 9 / 0.8 / 2.1 %; quarter with ``local`` 1.7: 24k/44k/86k, 102 CPU s, 1.6 GB,
-1.3 / 1.8 / 0.6 / 1.6 %; ``local`` 2.0: 31k/60k/121k, 158 CPU s, 2.3 GB, 3.7 / 0.7 / 0.7 / 3.5 %;
+1.1 GB, 10 / 9 / 0.8 / 2.1 %; quarter with ``local`` 1.7: 22k/43k/85k, 108 CPU s, 1.65 GB,
+2.1 / 2.7 / 0.9 / 7.3 % (re-measured on the present sizes; on an earlier tree 24k/44k/86k,
+1.3 / 1.8 / 0.6 / 1.6 %; the other figures here are from earlier trees, not re-measured);
+``local`` 2.0: 31k/60k/121k, 158 CPU s, 2.3 GB, 3.7 / 0.7 / 0.7 / 3.5 %;
 ``local`` 2.5: 48k/95k/201k, 222 CPU s, 3.0 GB, 2.5 / 1.5 / 0.2 / 3.8 %
-(oscillating by 0.5–1 % between meshes: the nodal scatter on the 0.6 mm fillet). Two readings did
+(oscillating by 0.5–1 % between meshes: the scatter on the 0.6 mm fillet; DEVELOPERS.md lists the
+mesh-quality, sizing and surface-projection variants tried against it). Two readings did
 not pay: the stress from the surface's tangential strains with the plane-stress law read 4–6 % low
 on the coarse meshes and converged slower; a least-squares fit over a patch of facet values around
 the peak node read 2.61–2.37 against the nodes' 2.93 on the 0.6 mm fillet (the patch spans the
