@@ -18,7 +18,7 @@ the station's keyed section (``keyway``: which one, default 0) and the key lengt
 ``length`` (where it lies: the station's feature extent); a cross hole ``hole_diameter``, ``chamfer``
 (45°, default 0), ``hole_depth`` (blind; default through) and ``angle`` (the hole's axis, degrees from
 +x toward +y; default 0), on a station without its own section (the plain round). Both: ``length``
-(the modelled length; default the feature's span plus two diameters, at least three diameters) and
+(the modelled length; default the feature's span plus three diameters, at least three diameters) and
 ``fineness`` (of the 3-D meshes; default analysis.fineness) and ``model`` ("whole", "half" or
 "quarter"; default the smallest the features allow: compare/case/segment.py). The model is a solid round bar: a hollow
 segment is refused, as is a feature too close to the model's end faces.
@@ -44,9 +44,12 @@ _KEYS = {"kind", "keyway", "cutter_diameter", "hole_diameter", "chamfer", "hole_
          "model"}
 _ALLOWED = {"keyseat_end": {"keyway"}, "sled_runner": {"keyway", "cutter_diameter"},
             "cross_hole": {"hole_diameter", "chamfer", "hole_depth", "angle"}}
-#: The default modelled length: the feature's span plus this many diameters (plain bar at both ends:
-#: fem.solid.END_ZONE = 0.75 diameters each side, and a quarter diameter more), at least MIN_LENGTH.
-MARGIN = 2.0
+#: The default modelled length: the feature's span plus this many diameters (1.5 diameters of plain bar
+#: at each end), at least MIN_LENGTH. Measured (tests/benchmarks/bench_segment_length.py, fineness 0.4):
+#: with a keyseat 1 diameter from the ends the far-field departure in tension was 9.7 % of nominal, at
+#: the warning's 10 % (compare/checks/segment_far_field.py); 1.5 diameters away 6.3 %, the factors within
+#: 2.5 % of a 3-diameter model's, at the same unknowns (the plain bar's mesh is coarse).
+MARGIN = 3.0
 MIN_LENGTH = 3.0
 
 
