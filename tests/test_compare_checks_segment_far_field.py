@@ -18,6 +18,7 @@ from compare.checks.segment_far_field import FAR_FIELD_TOL, far_field_text, feat
 from compare.cli.main import main
 from compare.output.results_shaft import station_far_field
 from fem import solid
+from tests.test_compare_station_segment import LAYOUT
 
 D = 0.030
 HOLE = 0.006
@@ -96,3 +97,23 @@ def test_segment_case_warns_when_short(tmp_path, capsys):
     assert not any(w["code"] == "segment_far_field" for w in res["warnings"])
     assert "TOO SHORT" not in printed
     assert all(res["segments"][0][f"{k}_far_field"] < FAR_FIELD_TOL for k in ("kt_axial", "kt_bending_x", "kt_bending_y", "kts"))
+
+
+def test_layout_station_warns_when_short(tmp_path, capsys):
+    """A layout station's 3-D cross hole (d/D 0.2 as above, scaled to the 24 mm shaft: the same mesh in
+    the model's scale-free frame) modelled 0.75 d from each end: the warning is in the layout's warnings
+    (results and summary) with the station, and the station's record carries the departures; a
+    warning, so the run's verdict and exit code follow the rest of the checks."""
+    case = tmp_path / "short.toml"
+    case.write_text(LAYOUT.replace('hole_diameter = 4, angle = 30, fineness = 0.3',
+                                   'hole_diameter = 4.8, angle = 30, fineness = 0.4, model = "quarter", length = 40.81'))
+    code = main(["run", str(case), "--out", str(tmp_path / "out")])
+    printed = capsys.readouterr().out
+    res = json.loads((tmp_path / "out" / "results.json").read_text())
+    assert code == res["exit_code"]
+    (seg,) = res["segments"]
+    assert seg["length"] == pytest.approx(0.04081) and seg["far_field"]["kt_axial"] > FAR_FIELD_TOL
+    (w,) = [w for w in res["warnings"] if w["code"] == "segment_far_field"]
+    assert w["data"]["station"] == "lubrication hole" and w["data"]["departures"]["kt_axial"] > FAR_FIELD_TOL
+    assert w["data"]["feature_to_end"] == pytest.approx(0.018, rel=1e-3)
+    assert "station lubrication hole: 3-D MODEL MAY BE TOO SHORT" in printed
