@@ -33,7 +33,7 @@ def test_keyseat_end_takes_the_keyway():
     assert isinstance(f, solid.ProfileKeyseat)
     assert (f.width, f.depth, f.fillet) == pytest.approx((0.008, 0.004, 0.0006))
     assert f.z1 - f.z0 == pytest.approx(0.036) and (f.z0 + f.z1) / 2 == pytest.approx(m.length / 2)
-    assert m.length == pytest.approx(0.036 + 2 * 0.030) and m.d == pytest.approx(0.030)
+    assert m.length == pytest.approx(0.036 + 3 * 0.030) and m.d == pytest.approx(0.030)  # span + 3 d (MARGIN)
     assert ss.notch == (0.0006, "shaft.sections[0].section.keyways[0].fillet")
 
 
