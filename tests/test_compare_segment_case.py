@@ -28,6 +28,8 @@ import numpy as np
 import pytest
 
 from classic.cross_hole import cross_hole_kt_bending, cross_hole_kts_torsion
+from compare.case.segment import parse_segment
+from compare.case.units import SYSTEMS
 from compare.cli.main import main
 from compare.pairs.segment_step import handbook_value
 from fem import solid
@@ -262,3 +264,20 @@ def test_quarter_model_factors_within_the_estimates_of_the_whole(tmp_path):
             continue
         got = {"fem": q.values[key], "exact": w.values[key]}  # "exact": the whole segment's study
         assert abs(got["fem"] - got["exact"]) <= gq * got["fem"] + gw * got["exact"], (key, got, gq, gw)
+
+
+def test_default_length_keeps_the_feature_from_the_ends():
+    """Without ``length`` (and no shoulder) the model is the feature's span plus three diameters, at least
+    three, the feature centred unless ``at`` is given: 1.5 d of plain bar at each end (the far-field
+    check, compare/checks/segment_far_field.py, measured there). Beside a shoulder it stays 3 d."""
+    mm = SYSTEMS["mm-N-MPa"]
+    seg = parse_segment({"kind": "keyseat_end", "diameter": 30, "standard": "metric", "fillet": 0.6, "key_length": 36}, mm)
+    (f,) = seg.features
+    assert seg.length == pytest.approx(0.126) and (f.z0, f.z1) == pytest.approx((0.045, 0.081))
+    seg = parse_segment({"kind": "cross_hole", "diameter": 30, "hole_diameter": 6, "at": 40}, mm)
+    assert seg.length == pytest.approx(0.096) and seg.features[0].z == pytest.approx(0.040)
+    seg = parse_segment({"kind": "cross_hole", "diameter": 30, "hole_diameter": 3}, mm)
+    assert seg.length == pytest.approx(0.093) and seg.features[0].z == pytest.approx(0.0465)
+    seg = parse_segment({"kind": "cross_hole", "diameter": 30, "hole_diameter": 6,
+                         "shoulder": {"D": 45, "fillet": 3, "at": 55}}, mm)
+    assert seg.length == pytest.approx(0.09) and seg.features[0].z == pytest.approx(0.045)
