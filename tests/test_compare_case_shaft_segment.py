@@ -33,7 +33,7 @@ def test_keyseat_end_takes_the_keyway():
     assert isinstance(f, solid.ProfileKeyseat)
     assert (f.width, f.depth, f.fillet) == pytest.approx((0.008, 0.004, 0.0006))
     assert f.z1 - f.z0 == pytest.approx(0.036) and (f.z0 + f.z1) / 2 == pytest.approx(m.length / 2)
-    assert m.length == pytest.approx(0.036 + 2 * 0.030) and m.d == pytest.approx(0.030)
+    assert m.length == pytest.approx(0.036 + 3 * 0.030) and m.d == pytest.approx(0.030)  # span + 3 d (MARGIN)
     assert ss.notch == (0.0006, "shaft.sections[0].section.keyways[0].fillet")
 
 
@@ -48,7 +48,7 @@ def test_sled_runner_and_cross_hole():
     (f,) = ss.model.features
     assert isinstance(f, solid.CrossHole) and f.diameter == pytest.approx(0.005) and f.chamfer == pytest.approx(5e-4)
     assert ss.angle == 30.0 and ss.centre == pytest.approx(0.11)
-    assert ss.model.length == pytest.approx(0.09)  # at least three diameters
+    assert ss.model.length == pytest.approx(0.096)  # the span (6 mm with the chamfers) plus three diameters
     assert ss.symmetry is None and solid.symmetry_of(ss.model) == 2  # the study takes the quarter by default
 
 

@@ -2,8 +2,10 @@
 end, a sled-runner keyseat, a cross hole), studied in 3-D (compare/solve/segments.py) instead of a
 section. Every field is checked here with one-line :class:`~fem.errors.InputError`; lengths in SI.
 
-Keys: ``kind`` ("keyseat_end", "sled_runner", "cross_hole", or "shoulder": the shoulder alone), ``diameter``, ``length`` (the modelled
-length, default 3 diameters), ``at`` (the feature's centre along the segment, default mid-length);
+Keys: ``kind`` ("keyseat_end", "sled_runner", "cross_hole", or "shoulder": the shoulder alone), ``diameter``,
+``length`` (the modelled length, default the feature's span plus :data:`MARGIN` diameters, at least 3;
+beside a shoulder 3 diameters; a shoulder alone: up to the face and :data:`SHOULDER_BEYOND` larger
+diameters beyond), ``at`` (the feature's centre along the segment, default mid-length);
 keyseats: ``width``, ``depth``, ``fillet`` (or ``standard = "metric"`` for the metric parallel key's
 keyway of the diameter, classic/keys.py), ``key_length`` (end to end), sled runner ``cutter_diameter``;
 cross hole: ``hole_diameter``, ``chamfer`` (default 0), ``hole_depth`` (blind; default through).
@@ -18,6 +20,8 @@ model the features do not allow is refused (:func:`parse_model`, Case.segment_sy
 """
 from __future__ import annotations
 
+from dataclasses import replace
+
 from classic.keys import metric_parallel_key
 from fem import solid
 from fem.errors import InputError
@@ -26,6 +30,10 @@ from .fields import known
 from .units import to_si
 
 KINDS = ("keyseat_end", "sled_runner", "cross_hole", "shoulder")
+#: The default modelled length without a shoulder: the feature's span plus this many diameters (1.5 of
+#: plain bar at each end), at least three diameters; the same rule as a layout station's
+#: (compare/case/shaft_segment.py MARGIN, where the measurement behind it is).
+MARGIN = 3.0
 _KEYS = {"kind", "diameter", "length", "at", "width", "depth", "fillet", "key_length", "cutter_diameter",
          "hole_diameter", "chamfer", "hole_depth", "standard", "shoulder", "model"}
 _SHOULDER_KEYS = {"D", "fillet", "at"}
@@ -119,8 +127,14 @@ def parse_segment(s, units) -> solid.Segment:
             feat = solid.ProfileKeyseat(width, depth, z0, z1, fillet)
         else:
             feat = solid.SledKeyseat(width, depth, z0, z1, length("cutter_diameter"), fillet)
-    feats = (feat,) if feat is not None else ()
     sh = s.get("shoulder")
+    if "length" not in s and sh is None:  # the default length from the feature's span (its place, if not given, centred)
+        a, b = feat.span()
+        L = max(3 * d, b - a + MARGIN * d)
+        if "at" not in s:
+            feat = (replace(feat, z=L / 2) if kind == "cross_hole" else
+                    replace(feat, z0=feat.z0 + L / 2 - at, z1=feat.z1 + L / 2 - at))
+    feats = (feat,) if feat is not None else ()
     if sh is not None:
         if not isinstance(sh, dict):
             raise InputError("segment.shoulder", sh, "must be a table: shoulder = { D = ..., fillet = ..., at = ... }")

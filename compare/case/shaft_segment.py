@@ -18,7 +18,7 @@ the station's keyed section (``keyway``: which one, default 0) and the key lengt
 ``length`` (where it lies: the station's feature extent); a cross hole ``hole_diameter``, ``chamfer``
 (45°, default 0), ``hole_depth`` (blind; default through) and ``angle`` (the hole's axis, degrees from
 +x toward +y; default 0), on a station without its own section (the plain round). Both: ``length``
-(the modelled length; default the feature's span plus two diameters, at least three diameters) and
+(the modelled length; default the feature's span plus three diameters, at least three diameters) and
 ``fineness`` (of the 3-D meshes; default analysis.fineness) and ``model`` ("whole", "half" or
 "quarter"; default the smallest the features allow: compare/case/segment.py). The model is a solid round bar: a hollow
 segment is refused, as is a feature too close to the model's end faces. A shoulder of the shaft's
@@ -48,9 +48,12 @@ _KEYS = {"kind", "keyway", "cutter_diameter", "hole_diameter", "chamfer", "hole_
          "model"}
 _ALLOWED = {"keyseat_end": {"keyway"}, "sled_runner": {"keyway", "cutter_diameter"},
             "cross_hole": {"hole_diameter", "chamfer", "hole_depth", "angle"}}
-#: The default modelled length: the feature's span plus this many diameters (plain bar at both ends:
-#: fem.solid.END_ZONE = 0.75 diameters each side, and a quarter diameter more), at least MIN_LENGTH.
-MARGIN = 2.0
+#: The default modelled length: the feature's span plus this many diameters (1.5 diameters of plain bar
+#: at each end), at least MIN_LENGTH. Measured (tests/benchmarks/bench_segment_length.py, fineness 0.4):
+#: with a keyseat 1 diameter from the ends the far-field departure in tension was 9.7 % of nominal, at
+#: the warning's 10 % (compare/checks/segment_far_field.py); 1.5 diameters away 6.3 %, the factors within
+#: 2.5 % of a 3-diameter model's, at the same unknowns (the plain bar's mesh is coarse).
+MARGIN = 3.0
 MIN_LENGTH = 3.0
 #: A shoulder of the shaft's outline whose fillet begins within this many of the station's (smaller)
 #: diameters of the feature's cut goes into the station's 3-D model (one model holds both raisers).
@@ -60,8 +63,10 @@ MIN_LENGTH = 3.0
 #: alone holds the stress between them; further apart each model alone does.
 SHOULDER_REACH = 1.0
 #: The combined model's plain bar before the feature's cut (in d) and beyond the shoulder face (in D):
-#: fem.solid.END_ZONE (0.75) and a quarter diameter more, as the feature's own default length (MARGIN).
-COMBINED_MARGIN = 1.0
+#: 1.5, as the feature's own default length (MARGIN/2 each side): at 1 diameter the far-field
+#: departure of a keyseat end in tension reached 9.7 % of nominal, next to the 10 % of the
+#: segment_far_field warning (DEVELOPERS.md, 3-D segments' length).
+COMBINED_MARGIN = 1.5
 
 
 @dataclass

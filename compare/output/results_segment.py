@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 from .._version import __version__
+from ..checks.segment_far_field import far_field_text, feature_to_end, segment_far_field
 from .report import CAUTION, Fmt
 
 #: what the factors of a segment are not, said beside them every time
@@ -29,6 +30,7 @@ def segment_results(a, warnings_out, schema_version: int) -> dict:
         entry[f"{r['key']}_chart"] = r["chart"]
         entry[f"{r['key']}_chart_source"] = r["chart_source"]
         entry[f"{r['key']}_chart_why"] = r.get("chart_why")
+        entry[f"{r['key']}_far_field"] = st.far_field.get(r["key"])
         peaks[r["key"]] = {"at": r["peak_at"], "on_feature": r["peak_on_feature"], "feature": r.get("peak_feature")}
     entry["peak_location"] = peaks
     entry["shoulder"] = seg.get("shoulder")
@@ -50,6 +52,9 @@ def segment_results(a, warnings_out, schema_version: int) -> dict:
     }
     out["warnings"] = warnings_out(a)
     out["warnings"].insert(0, {"code": "segment_caution", "text": SEGMENT_CAUTION, "data": {}})
+    for w in segment_far_field(st.far_field, st.segment.length, st.segment.d, feature_to_end(st.segment)):
+        out["warnings"].append({"code": w["code"], "text": far_field_text(w, Fmt(case.units).q),
+                                "data": {k: v for k, v in w.items() if k != "code"}})
     if not met:
         out["warnings"].insert(0, {"code": "accuracy_not_met", "text": "ACCURACY TARGET NOT SHOWN: target "
                                    f"{100 * target:.3g} %, estimated error "

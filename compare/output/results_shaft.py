@@ -8,6 +8,7 @@ from __future__ import annotations
 import math
 from dataclasses import replace
 
+from ..checks.segment_far_field import far_field_text, segment_far_field
 from ..checks.shaft_modes import mode_shapes
 from .report import Fmt
 from .results_segment import model_phrase
@@ -90,6 +91,8 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
                                 f"{'unknown' if ach is None else f'{100 * ach:.3g} %'}"
                                 + (f" ({seg['limited_by']})" if seg["limited_by"] else "") + ". Its Kt, Kts and "
                                 "local stresses are estimates, not a verdict."})
+    for st in stations:  # a station's 3-D model that may be too short (compare/checks/segment_far_field.py)
+        out.extend(station_far_field(st))
     for st in stations:  # first: stations at a sharp corner, which can have no verdict at all
         for c in st.get("sharp") or []:
             out.append({"code": "station_sharp_no_verdict", "at": st["at"], "name": st["name"], "corner": c,
@@ -138,6 +141,19 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
     if cs.get("ok") is False:
         out.append({"code": "critical_speed_margin", "text": "operating speed above half the first critical speed"})
     return out
+
+
+def station_far_field(st: dict) -> list[dict]:
+    """The ``segment_far_field`` warning of a station's 3-D study, with its sentence (none when its
+    model is long enough or the station has no 3-D feature)."""
+    seg = st.get("segment")
+    if seg is None or not seg.get("far_field"):
+        return []
+    L, c = seg["length"], seg["centre"]
+    gap = min(seg["span"][0] - (c - L / 2), c + L / 2 - seg["span"][1])
+    recs = segment_far_field(seg["far_field"], L, seg["diameter"], gap,
+                             {"station": st["name"] or st["at"], "at": st["at"], "field": seg["field"]})
+    return [{**w, "text": far_field_text(w)} for w in recs]
 
 
 def shaft_summary(res: dict, system) -> str:

@@ -74,6 +74,7 @@ def station_segment_record(i: int, st, ss, study, target: float) -> dict:
                       "feature": study.peaks[key].get("feature"),
                       "at_on_shaft": [c * x - s * y, s * x + c * y, on_shaft(z)]}
     rec["peak_location"] = peaks
+    rec["far_field"] = {k: study.far_field.get(k) for k in KEYS.values()}  # compare/checks/segment_far_field.py
     rec["peak_location_frame"] = ("at: the 3-D model's (z from its left end face, the feature centred at length/2 "
                                   "unless a shoulder is in the model, then its small diameter at z = 0; a keyseat on "
                                   "+y, a hole's axis along x); at_on_shaft: the station's x, y and z along the shaft")

@@ -1,0 +1,71 @@
+"""Is a 3-D segment long enough? The far-field check of a segment study (compare/solve/segments.py),
+for a ``[segment]`` case and a layout station's 3-D feature (records; output/ words them).
+
+:func:`fem.solid.solve_segment` reads, per load, the largest departure of the surface stress (the
+nodal-averaged one the factor is read from) from the plain bar's elementary stress within half a
+diameter of each end face, relative to the nominal stress (``far_field``). The ends carry the plain
+bar's exact displacement (or traction), so where the feature's own field still reaches that zone, the
+ends hold it and the factor is read on a model too short for it. Where a load's departure exceeds
+:data:`FAR_FIELD_TOL` a ``segment_far_field`` record is returned with the figures. It is a warning,
+as the shoulders' and grooves' far-field check is (compare/checks/feature_findings.py): the factor is
+kept, with the warning beside it.
+"""
+from __future__ import annotations
+
+#: Largest far-field departure (fraction of the nominal stress) accepted without a warning. Measured
+#: (tests/benchmarks/bench_segment_length.py, fineness 0.4, quarter models; the demo keyseat end, d 30
+#: mm, 8 x 4 mm, 36 mm long, fillet 0.6 mm, and a 6 mm through cross hole in a 30 mm shaft): with the
+#: feature 1.5, 2 or 3 diameters from the end faces the departure was 0.5-6.3 % of nominal in every
+#: load (the mesh's own scatter on the coarse plain bar: it falls with refinement, not with length),
+#: 1 diameter away up to 9.7 % (the keyseat in tension), and from 1 diameter on the factors agreed with
+#: the 3-diameter model's within 2.5 % (the scatter between meshes at that fineness); 0.75 diameter
+#: away (fem.solid.END_ZONE, the least the model accepts) the departure was 12-27 % in the loads the
+#: feature disturbs most (the same at fineness 0.8: the feature's own field) and the keyseat's Kt in
+#: tension read 4.6 % low (bending about x 2.2 %). 10 % lies above every model's 1 diameter or more
+#: long and below every short model's departure in tension.
+FAR_FIELD_TOL = 0.10
+#: why the tolerance is what it is (written with the warning)
+FAR_FIELD_WHY = ("above the up to 9.7 % measured with the feature 1-3 diameters from the ends (mostly the coarse "
+                 "plain-bar mesh's scatter), below the 12-27 % read with it 0.75 diameter away, where a keyseat's Kt "
+                 "in tension read 4.6 % low")
+
+_KEYS = ("kt_axial", "kt_bending_x", "kt_bending_y", "kts")
+
+
+def feature_to_end(segment) -> float | None:
+    """The least distance [m] from a (non-shoulder) feature's span to an end face of ``segment``
+    (fem.solid.Segment), None without one."""
+    gaps = [g for f in segment.features if f.kind != "shoulder" for g in (f.span()[0], segment.length - f.span()[1])]
+    return min(gaps) if gaps else None
+
+
+def segment_far_field(far_field: dict, length: float, diameter: float, gap: float | None,
+                      where: dict | None = None) -> list[dict]:
+    """``segment_far_field`` records for the factors whose far-field departure (``far_field[key]``, a
+    fraction of the nominal, as compare.solve.segments.SegmentStudy.far_field holds it) exceeds
+    :data:`FAR_FIELD_TOL`: one record naming every such factor with its departure, the model's
+    ``length``, ``diameter`` and the feature-to-end distance ``gap`` [m]; ``where`` (e.g. the station)
+    is copied into it. None exceeding (or no figures): no record."""
+    over = {k: float(far_field[k]) for k in _KEYS
+            if far_field.get(k) is not None and float(far_field[k]) > FAR_FIELD_TOL}
+    if not over:
+        return []
+    rec = {"code": "segment_far_field", "departures": over, "tolerance": FAR_FIELD_TOL, "why": FAR_FIELD_WHY,
+           "length": length, "diameter": diameter, "feature_to_end": gap}
+    rec.update(where or {})
+    return [rec]
+
+
+def far_field_text(w: dict, q=None) -> str:
+    """The words of a ``segment_far_field`` record; ``q(value, 'length')`` formats lengths (SI metres
+    written as millimetres without it)."""
+    q = q or (lambda v, kind: f"{v * 1e3:.4g} mm")
+    who = f"station {w['station']}: " if w.get("station") is not None else ""
+    deps = ", ".join(f"{k} {100 * v:.3g} %" for k, v in w["departures"].items())
+    gap = w.get("feature_to_end")
+    gap_words = "" if gap is None else f", the feature {gap / w['diameter']:.2f} diameters from an end face"
+    return (f"{who}3-D MODEL MAY BE TOO SHORT: within half a diameter of an end face the surface stress departs from "
+            f"the plain bar's by {deps} of nominal (tolerance {100 * w['tolerance']:.3g} %: {w['why']}); model "
+            f"{q(w['length'], 'length')} long{gap_words}. The feature's field reaches the end faces, which hold the "
+            "plain bar's displacement, so its factors may be off by a few per cent; model a longer segment (the "
+            "feature at least 1 diameter from each end) or refine (a coarse mesh's own scatter can also show here).")
