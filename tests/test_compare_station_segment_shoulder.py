@@ -22,6 +22,7 @@ import numpy as np
 import pytest
 
 from compare.case.case import parse_case
+from compare.case.shaft_segment import COMBINED_MARGIN
 from compare.pairs.station_segment import station_segments_step
 from compare.solve.features import Feature, study_feature
 from compare.solve.segment_superpose import LOADS, unit_fields
@@ -58,8 +59,8 @@ def test_shoulder_within_reach_is_built_into_the_model():
     # the shoulder face and the keyseat's end 4 mm apart in the model as on the shaft
     assert shoulder.z - key.z1 == pytest.approx(0.004)
     assert solid.symmetry_of(ss.model) == 0  # a shoulder keeps the whole model
-    # the model's mid-length on the shaft: its small end 1 d before the keyway's start
-    assert ss.mid - ss.model.length / 2 == pytest.approx(0.100 - 0.030)
+    # the model's mid-length on the shaft: its small end COMBINED_MARGIN diameters before the keyway's start
+    assert ss.mid - ss.model.length / 2 == pytest.approx(0.100 - COMBINED_MARGIN * 0.030)
 
     down = parse_case(layout(DOWN, 94)).shaft.stations[0].segment  # keyway 94-130, the face at 90
     assert down.mirrored and down.shoulder_in_model["steps"] == "down"
