@@ -117,3 +117,12 @@ def test_layout_station_warns_when_short(tmp_path, capsys):
     assert w["data"]["station"] == "lubrication hole" and w["data"]["departures"]["kt_axial"] > FAR_FIELD_TOL
     assert w["data"]["feature_to_end"] == pytest.approx(0.018, rel=1e-3)
     assert "station lubrication hole: 3-D MODEL MAY BE TOO SHORT" in printed
+
+
+def test_station_gap_about_the_models_mid_length_when_a_shoulder_is_in_it():
+    """With a shoulder in the station's model, the model is not centred on the feature: its ends lie
+    about ``model_mid_on_shaft`` (the same span and length as above, the model's mid 20 mm further on)."""
+    seg = {"length": 0.081, "centre": 0.5, "model_mid_on_shaft": 0.52, "span": [0.482, 0.518], "diameter": D,
+           "field": "stations[0].segment", "far_field": {"kt_axial": 0.2}}
+    (w,) = station_far_field({"name": "seat", "at": 0.5, "segment": seg})
+    assert w["feature_to_end"] == pytest.approx(0.482 - (0.52 - 0.0405))

@@ -149,7 +149,9 @@ def station_far_field(st: dict) -> list[dict]:
     seg = st.get("segment")
     if seg is None or not seg.get("far_field"):
         return []
-    L, c = seg["length"], seg["centre"]
+    # the model's ends on the shaft: about its mid-length (not the feature's centre when a shoulder is in it)
+    L = seg["length"]
+    c = seg.get("model_mid_on_shaft") if seg.get("model_mid_on_shaft") is not None else seg["centre"]
     gap = min(seg["span"][0] - (c - L / 2), c + L / 2 - seg["span"][1])
     recs = segment_far_field(seg["far_field"], L, seg["diameter"], gap,
                              {"station": st["name"] or st["at"], "at": st["at"], "field": seg["field"]})
