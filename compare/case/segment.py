@@ -32,7 +32,7 @@ from .units import to_si
 KINDS = ("keyseat_end", "sled_runner", "cross_hole", "shoulder")
 #: The default modelled length without a shoulder: the feature's span plus this many diameters (1.5 of
 #: plain bar at each end), at least three diameters; the same rule as a layout station's
-#: (compare/case/shaft_segment.py MARGIN, where the measurement behind it is).
+#: (compare/case/shaft_segment.py imports it; the measurement behind it is written there).
 MARGIN = 3.0
 _KEYS = {"kind", "diameter", "length", "at", "width", "depth", "fillet", "key_length", "cutter_diameter",
          "hole_diameter", "chamfer", "hole_depth", "standard", "shoulder", "model"}

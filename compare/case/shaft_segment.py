@@ -40,7 +40,7 @@ from fem import solid
 from fem.errors import InputError
 
 from .fields import known
-from .segment import parse_model
+from .segment import MARGIN, parse_model
 from .units import to_si
 
 KINDS = ("keyseat_end", "sled_runner", "cross_hole")
@@ -48,12 +48,11 @@ _KEYS = {"kind", "keyway", "cutter_diameter", "hole_diameter", "chamfer", "hole_
          "model"}
 _ALLOWED = {"keyseat_end": {"keyway"}, "sled_runner": {"keyway", "cutter_diameter"},
             "cross_hole": {"hole_diameter", "chamfer", "hole_depth", "angle"}}
-#: The default modelled length: the feature's span plus this many diameters (1.5 diameters of plain bar
-#: at each end), at least MIN_LENGTH. Measured (tests/benchmarks/bench_segment_length.py, fineness 0.4):
+#: The default modelled length: the feature's span plus MARGIN diameters (compare/case/segment.py, the
+#: one constant of both: 1.5 diameters of plain bar at each end), at least MIN_LENGTH. Measured (tests/benchmarks/bench_segment_length.py, fineness 0.4):
 #: with a keyseat 1 diameter from the ends the far-field departure in tension was 9.7 % of nominal, at
 #: the warning's 10 % (compare/checks/segment_far_field.py); 1.5 diameters away 6.3 %, the factors within
 #: 2.5 % of a 3-diameter model's, at the same unknowns (the plain bar's mesh is coarse).
-MARGIN = 3.0
 MIN_LENGTH = 3.0
 #: A shoulder of the shaft's outline whose fillet begins within this many of the station's (smaller)
 #: diameters of the feature's cut goes into the station's 3-D model (one model holds both raisers).
@@ -66,7 +65,7 @@ SHOULDER_REACH = 1.0
 #: 1.5, as the feature's own default length (MARGIN/2 each side): at 1 diameter the far-field
 #: departure of a keyseat end in tension reached 9.7 % of nominal, next to the 10 % of the
 #: segment_far_field warning (DEVELOPERS.md, 3-D segments' length).
-COMBINED_MARGIN = 1.5
+COMBINED_MARGIN = MARGIN / 2
 
 
 @dataclass

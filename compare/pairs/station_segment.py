@@ -156,6 +156,9 @@ def station_segments_step(case) -> list[dict] | None:
         rec["grooves_in_model"] = False  # grooves stay with the larger-of-the-two rule (not modelled in 3-D)
         kb = rec["kt_bending_used"]["from"]
         notch = ss.notch if ss.notch is not None else (ss.sizes["hole_diameter"] / 2, f"{ss.field}.hole_diameter")
+        # the station's hand-path factors from this study: (Station.kt key, value, source)
+        factors = (("kt_bending", rec["kt_bending_used"]["value"], _source(ss, kb, rec)),
+                   ("kts_torsion", rec["kts_used"]["value"], _source(ss, "kts", rec)))
         sh = ss.shoulder_in_model
         if sh is not None and study.peaks[kb].get("feature") == "shoulder":
             notch = (sh["fillet"], sh["field"])  # the bending peak on the shoulder's fillet: its radius
@@ -163,8 +166,7 @@ def station_segments_step(case) -> list[dict] | None:
             # one model holds both raisers: its factors replace the shoulder's meridian ones, except where
             # the meridian factor is larger (the 3-D model reads the fillet on far coarser meshes: the
             # winch demo's fillet 6 % below the meridian's, inside a 22 % estimate), which is then kept
-            for key, value, src in (("kt_bending", rec["kt_bending_used"]["value"], _source(ss, kb, rec)),
-                                    ("kts_torsion", rec["kts_used"]["value"], _source(ss, "kts", rec))):
+            for key, value, src in factors:
                 if take_combined(st.kt, key, value, src, rec) and key == "kt_bending":
                     st.kt["notch_radius"] = notch
             if "notch_radius" not in st.kt:
@@ -175,8 +177,7 @@ def station_segments_step(case) -> list[dict] | None:
             # the two, with the notch radius of the one that gave the bending factor (neither model holds both
             # raisers: the shoulder not within reach, or not buildable, or a groove)
             shoulder = {k: st.kt[k] for k in ("kt_bending", "kts_torsion", "notch_radius") if k in st.kt}
-            for key, value, src in (("kt_bending", rec["kt_bending_used"]["value"], _source(ss, kb, rec)),
-                                    ("kts_torsion", rec["kts_used"]["value"], _source(ss, "kts", rec))):
+            for key, value, src in factors:
                 if key in shoulder and shoulder[key][0] > value:
                     rec.setdefault("also_on_a_shoulder_or_groove", {})[key] = \
                         "the shoulder or groove's factor is larger: used (neither model holds both raisers)"
