@@ -23,7 +23,7 @@ import pytest
 
 from compare.case.case import parse_case
 from compare.case.shaft_segment import COMBINED_MARGIN
-from compare.pairs.station_segment import station_segments_step, take_combined
+from compare.pairs.station_segment import fillet_in_fe_path, station_segments_step, take_combined
 from compare.solve.features import Feature, study_feature
 from compare.solve.segment_superpose import LOADS, unit_fields
 from fem import solid
@@ -172,3 +172,21 @@ def test_a_larger_meridian_shoulder_factor_is_kept_beside_the_combined_model():
     assert rec["replaced_shoulder_or_groove_factor"]["kts_torsion"]["value"] == 1.3
     fresh = {}
     assert take_combined(fresh, "kt_bending", 1.9, "3-D FE", {}) is True and fresh["kt_bending"] == (1.9, "3-D FE")
+
+
+def test_the_fillet_stresses_stay_in_the_fe_path_where_a_meridian_factor_was_kept():
+    """Where the meridian factor was kept as the larger (the combined 3-D model reads the fillet low on its
+    coarse meshes), the FE path must not read the combined model's local stresses alone: the fillet's
+    meridian stresses stay, and the station's FE path takes the worse of the two (safe side; common
+    practice, as for a station also on a shoulder). Where the combined model's factors were taken, they go."""
+    kt = {"kt_bending": (2.0, "meridian FE"), "fillet_stresses": ({"local": 1}, "shaft.segments[1].fillet")}
+    rec = {}
+    take_combined(kt, "kt_bending", 1.9, "3-D FE", rec)
+    assert fillet_in_fe_path(kt, rec) is True
+    assert "fillet_stresses" in kt and "worse" in rec["fe_path_with_fillet"]
+    kt2 = {"kt_bending": (1.8, "meridian FE"), "fillet_stresses": ({"local": 1}, "shaft.segments[1].fillet")}
+    rec2 = {}
+    take_combined(kt2, "kt_bending", 1.9, "3-D FE", rec2)
+    assert fillet_in_fe_path(kt2, rec2) is False
+    assert "fillet_stresses" not in kt2 and "fe_path_with_fillet" not in rec2
+    assert fillet_in_fe_path({}, {"kept_shoulder_factor": {"kt_bending": {}}}) is False  # nothing to keep

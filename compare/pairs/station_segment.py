@@ -9,7 +9,8 @@ the station check takes from it (numbers and records only):
 * a shoulder of the outline within reach of the feature (compare/case/shaft_segment.py, SHOULDER_REACH)
   is in the 3-D model itself (``shoulder_in_model`` in the record): the model's factors are the
   station's, replacing the shoulder's meridian ones unless those are larger (``kept_shoulder_factor``:
-  the 3-D meshes are far coarser at the fillet), and the notch radius is the shoulder's fillet where
+  the 3-D meshes are far coarser at the fillet; the FE path then also reads the fillet's meridian
+  local stresses, :func:`fillet_in_fe_path`), and the notch radius is the shoulder's fillet where
   the bending peak sits on it; a step down along the shaft is modelled as a step up and its unit fields
   mirrored back (``model_mirrored``); a combined model whose first mesh exceeds analysis.max_dofs falls
   back to the feature alone, with the reason;
@@ -110,6 +111,22 @@ def take_combined(kt: dict, key: str, value: float, src: str, rec: dict) -> bool
     return True
 
 
+def fillet_in_fe_path(kt: dict, rec: dict) -> bool:
+    """Whether the FE path of a station whose 3-D model holds a shoulder also reads the shoulder's
+    meridian local stresses (``kt['fillet_stresses']``, when the station has them). It does where a
+    meridian factor was kept as larger than the combined model's (:func:`take_combined`): the combined
+    model's coarse meshes read the fillet low, and its local stresses alone would carry that into the
+    FE path; the station's FE path then takes, criterion by criterion, the smaller safety factor of the
+    two (compare/checks/shaft_stations.py), the safe side. Otherwise the combined model holds both
+    raisers and the meridian stresses are dropped. ``rec['fe_path_with_fillet']`` says why they stay."""
+    if rec.get("kept_shoulder_factor") and "fillet_stresses" in kt:
+        rec["fe_path_with_fillet"] = ("a meridian shoulder factor larger than the combined 3-D model's was kept: "
+                                      "the FE path takes the worse of the 3-D model's and the fillet's local stresses")
+        return True
+    kt.pop("fillet_stresses", None)
+    return False
+
+
 def _source(ss, key: str, rec: dict) -> str:
     g = rec[f"{key}_gci"]
     # without an estimate, say why: a limit of the case, else the study's own reason (its status: a mesh
@@ -171,7 +188,7 @@ def station_segments_step(case) -> list[dict] | None:
                     st.kt["notch_radius"] = notch
             if "notch_radius" not in st.kt:
                 st.kt["notch_radius"] = notch
-            st.kt.pop("fillet_stresses", None)  # the FE path reads the combined 3-D model instead
+            fillet_in_fe_path(st.kt, rec)
         else:
             # a station also on a shoulder or groove (the feature step ran first): each factor the larger of
             # the two, with the notch radius of the one that gave the bending factor (neither model holds both
