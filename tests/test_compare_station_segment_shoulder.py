@@ -172,3 +172,21 @@ def test_a_larger_meridian_shoulder_factor_is_kept_beside_the_combined_model():
     assert rec["replaced_shoulder_or_groove_factor"]["kts_torsion"]["value"] == 1.3
     fresh = {}
     assert take_combined(fresh, "kt_bending", 1.9, "3-D FE", {}) is True and fresh["kt_bending"] == (1.9, "3-D FE")
+
+
+def test_unit_fields_end_zones_in_each_ends_own_diameter():
+    """The FE path's points are read away from the model's end faces, each end in its own diameter
+    (fem.solid.PEAK_END_ZONE of d at z = 0, of D at z = length beyond a shoulder in the model;
+    Saint-Venant's principle, Timoshenko & Goodier, Theory of Elasticity, 3rd ed., Sec. 19); a mirrored
+    model's D end lies at the station's z = 0 after the reflection."""
+    from fem.solid import PEAK_END_ZONE
+    d, D, L = 0.03, 0.045, 0.15
+    z = np.linspace(0, L, 3001)
+    pts = np.vstack([d / 2 * np.ones_like(z), np.zeros_like(z), z])
+    finest = {k: _plain_bar(k, pts, d) for k in LOADS}
+    up = unit_fields(finest, d, L, far_d=D)
+    assert np.array_equal(up.keep, (z > PEAK_END_ZONE * d) & (z < L - PEAK_END_ZONE * D))
+    down = unit_fields(finest, d, L, far_d=D, mirror=True)
+    zm = L - z
+    assert np.array_equal(down.keep, (zm > PEAK_END_ZONE * D) & (zm < L - PEAK_END_ZONE * d))
+    assert np.array_equal(unit_fields(finest, d, L).keep, (z > PEAK_END_ZONE * d) & (z < L - PEAK_END_ZONE * d))
