@@ -129,6 +129,9 @@ RECOVERED = True
 GROW = 1.0
 #: A feature must stay this many diameters away from each end face (plain bar at the ends).
 END_ZONE = 0.75
+#: No peak is read within this many diameters of an end face (the end faces carry the prescribed
+#: displacement or traction), each end in its own diameter (:func:`away_from_ends`).
+PEAK_END_ZONE = 0.5 * END_ZONE
 #: Direct factorisation up to this many unknowns (3-D fill-in is far larger than 2-D: measured
 #: with tests/benchmarks/bench_solid.py), AMG + CG above it.
 DIRECT_LIMIT = 40_000
@@ -800,6 +803,14 @@ def stiffness(basis, E: float, nu: float):
     return sp.csr_matrix((np.concatenate(vals), (np.concatenate(rows), np.concatenate(cols))), shape=(n, n))
 
 
+def away_from_ends(seg: Segment, z) -> np.ndarray:
+    """Which axial positions ``z`` [m] lie outside the end zones, where peaks are read: more than
+    :data:`PEAK_END_ZONE` diameters from each end face, each end in its own diameter (d at z = 0, the
+    segment's :attr:`Segment.far_diameter` at z = length: D beyond a shoulder)."""
+    z = np.asarray(z, float)
+    return (z > PEAK_END_ZONE * seg.d) & (z < seg.length - PEAK_END_ZONE * seg.far_diameter)
+
+
 def solve_segment(sm: SolidMesh, loads=LOADS, E: float = 2.0e11, nu: float = 0.3) -> dict:
     """Solve the load cases ``loads`` on the meshed segment (one matrix, one AMG set-up, one CG per
     load); returns {load: :class:`SolidResult`}."""
@@ -841,13 +852,13 @@ def solve_segment(sm: SolidMesh, loads=LOADS, E: float = 2.0e11, nu: float = 0.3
         nominal = nominal_stress(load_case, d, load)
         pts, sig = surface_stresses(sm, basis, x, E, nu)
         mag = stress_measure(sig, load_case)
-        keep = (pts[2] > END_ZONE * d * 0.5) & (pts[2] < L - END_ZONE * d * 0.5)
+        keep = away_from_ends(seg, pts[2])
         i_raw = int(np.argmax(np.where(keep, mag, -np.inf)))
         npts, nsig = recovered_surface_stresses(sm, pts, sig)
         if sm.symmetry:
             npts, nsig = mirrored_surface_stresses(sm, npts, nsig, load_case)
         nmag = stress_measure(nsig, load_case)
-        nkeep = (npts[2] > END_ZONE * d * 0.5) & (npts[2] < L - END_ZONE * d * 0.5)
+        nkeep = away_from_ends(seg, npts[2])
         if RECOVERED:
             i = int(np.argmax(np.where(nkeep, nmag, -np.inf)))
             at, peak = npts[:, i], nmag[i]

@@ -49,6 +49,7 @@ def test_keyseat_end_demo_through_the_cli(tmp_path, capsys):
     # the demo's 126 mm puts the keyseat 1.5 d from each end face: no far-field warning (measured departures
     # 6.3 / 4.4 / 2.9 / 4.6 % of nominal against the 10 % of compare/checks/segment_far_field.py)
     assert not any(w["code"] == "segment_far_field" for w in res["warnings"]) and "TOO SHORT" not in printed
+    assert res["accuracy"]["model_long_enough"] is True  # so its exit code follows the target alone (below)
     keys = ("kt_axial", "kt_bending_x", "kt_bending_y", "kts")
     for k in keys:
         assert seg[k] > 0.9, k

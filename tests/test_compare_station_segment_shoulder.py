@@ -190,3 +190,21 @@ def test_the_fillet_stresses_stay_in_the_fe_path_where_a_meridian_factor_was_kep
     assert fillet_in_fe_path(kt2, rec2) is False
     assert "fillet_stresses" not in kt2 and "fe_path_with_fillet" not in rec2
     assert fillet_in_fe_path({}, {"kept_shoulder_factor": {"kt_bending": {}}}) is False  # nothing to keep
+
+
+def test_unit_fields_end_zones_in_each_ends_own_diameter():
+    """The FE path's points are read away from the model's end faces, each end in its own diameter
+    (fem.solid.PEAK_END_ZONE of d at z = 0, of D at z = length beyond a shoulder in the model;
+    Saint-Venant's principle, Timoshenko & Goodier, Theory of Elasticity, 3rd ed., Sec. 19); a mirrored
+    model's D end lies at the station's z = 0 after the reflection."""
+    from fem.solid import PEAK_END_ZONE
+    d, D, L = 0.03, 0.045, 0.15
+    z = np.linspace(0, L, 3001)
+    pts = np.vstack([d / 2 * np.ones_like(z), np.zeros_like(z), z])
+    finest = {k: _plain_bar(k, pts, d) for k in LOADS}
+    up = unit_fields(finest, d, L, far_d=D)
+    assert np.array_equal(up.keep, (z > PEAK_END_ZONE * d) & (z < L - PEAK_END_ZONE * D))
+    down = unit_fields(finest, d, L, far_d=D, mirror=True)
+    zm = L - z
+    assert np.array_equal(down.keep, (zm > PEAK_END_ZONE * D) & (zm < L - PEAK_END_ZONE * d))
+    assert np.array_equal(unit_fields(finest, d, L).keep, (z > PEAK_END_ZONE * d) & (z < L - PEAK_END_ZONE * d))

@@ -9,6 +9,7 @@ not used as the pass mark.
 import math
 import time
 
+import numpy as np
 import pytest
 
 from classic.notch_fits import kt_fit
@@ -161,3 +162,25 @@ def test_a_cutter_reaching_the_shoulder_is_refused():
         _segment(at=1.25 * d, others=(solid.CrossHole(0.2 * d, 0.95 * d, chamfer=0.05 * d),)).check()
     assert e.value.field == "segment.features[1].z" and "fillet" in e.value.reason
     _segment(at=1.25 * d, others=(solid.CrossHole(0.2 * d, 0.95 * d),)).check()
+
+
+def test_peak_search_skips_each_end_zone_in_its_own_diameter():
+    """The peak is read more than PEAK_END_ZONE diameters from each end face, each end in its own
+    diameter: at the D end of a shoulder segment that is D, not d (the end face's prescribed traction
+    disturbs the surface over a length of the order of that end's own diameter: Saint-Venant's
+    principle, Timoshenko & Goodier, Theory of Elasticity, 3rd ed., Sec. 19). Checked on the mesh's
+    own lateral surface nodes (no solve): the band between the d-based and the D-based zone at z =
+    length holds nodes, and every one of them is skipped; at z = 0 the zone stays d's."""
+    seg = _segment()  # D = 1.5 d
+    D, L, z0 = seg.far_diameter, seg.length, solid.PEAK_END_ZONE
+    assert D == pytest.approx(1.5 * d)
+    sm = solid.mesh_segment(seg, fineness=0.3)
+    z = sm.mesh.p[2, np.unique(sm.mesh.facets[:, sm.lateral])]
+    keep = solid.away_from_ends(seg, z)
+    band = (z > L - z0 * D) & (z < L - z0 * d)  # within D's zone, outside d's
+    assert np.count_nonzero(band) > 0 and not np.any(keep[band])
+    assert np.all(keep == ((z > z0 * d) & (z < L - z0 * D)))
+    # without a shoulder both ends keep the d zone
+    plain = solid.Segment(d, L)
+    zz = np.linspace(0, L, 2001)
+    assert np.array_equal(solid.away_from_ends(plain, zz), (zz > z0 * d) & (zz < L - z0 * d))

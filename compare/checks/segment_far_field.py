@@ -6,9 +6,12 @@ nodal-averaged one the factor is read from) from the plain bar's elementary stre
 diameter of each end face, relative to the nominal stress (``far_field``). The ends carry the plain
 bar's exact displacement (or traction), so where the feature's own field still reaches that zone, the
 ends hold it and the factor is read on a model too short for it. Where a load's departure exceeds
-:data:`FAR_FIELD_TOL` a ``segment_far_field`` record is returned with the figures. It is a warning,
-as the shoulders' and grooves' far-field check is (compare/checks/feature_findings.py): the factor is
-kept, with the warning beside it.
+:data:`FAR_FIELD_TOL` a ``segment_far_field`` record is returned with the figures. The factors are
+kept and shown, flagged, but no verdict rests on them (a short model read a keyseat's Kt in tension
+4.6 % low, the unsafe side): a ``[segment]`` case's verdict is withheld and the run ends with exit 3
+(compare/output/results_segment.py), as when its accuracy target is not shown; a layout station's
+verdict is withdrawn the way a 3-D study short of its target withdraws it
+(compare/checks/segment_local.py, :func:`station_too_short`), and so is the shaft's.
 """
 from __future__ import annotations
 
@@ -39,6 +42,28 @@ def feature_to_end(segment) -> float | None:
     return min(gaps) if gaps else None
 
 
+#: the reason a verdict is withheld (a station's ``governing.reason``)
+TOO_SHORT_REASON = ("the 3-D model of the station's feature is too short: the feature's field reaches its end faces, "
+                    "so its factors may read low")
+
+
+def station_gap(seg: dict) -> float:
+    """The least distance [m] from a layout station's feature span to its 3-D model's end faces, from
+    the station's segment record (compare/pairs/station_segment.py): the model's ends lie about its
+    mid-length on the shaft (``model_mid_on_shaft``; not the feature's centre when a shoulder is in it)."""
+    L = seg["length"]
+    c = seg.get("model_mid_on_shaft") if seg.get("model_mid_on_shaft") is not None else seg["centre"]
+    return min(seg["span"][0] - (c - L / 2), c + L / 2 - seg["span"][1])
+
+
+def station_too_short(seg: dict | None, where: dict | None = None) -> list[dict]:
+    """The ``segment_far_field`` record of a layout station's 3-D study (its segment record), none when
+    its model is long enough or there is no study."""
+    if seg is None or not seg.get("far_field"):
+        return []
+    return segment_far_field(seg["far_field"], seg["length"], seg["diameter"], station_gap(seg), where)
+
+
 def segment_far_field(far_field: dict, length: float, diameter: float, gap: float | None,
                       where: dict | None = None) -> list[dict]:
     """``segment_far_field`` records for the factors whose far-field departure (``far_field[key]``, a
@@ -60,12 +85,14 @@ def far_field_text(w: dict, q=None) -> str:
     """The words of a ``segment_far_field`` record; ``q(value, 'length')`` formats lengths (SI metres
     written as millimetres without it)."""
     q = q or (lambda v, kind: f"{v * 1e3:.4g} mm")
-    who = f"station {w['station']}: " if w.get("station") is not None else ""
+    who = f" at station {w['station']}" if w.get("station") is not None else ""
     deps = ", ".join(f"{k} {100 * v:.3g} %" for k, v in w["departures"].items())
     gap = w.get("feature_to_end")
     gap_words = "" if gap is None else f", the feature {gap / w['diameter']:.2f} diameters from an end face"
-    return (f"{who}3-D MODEL MAY BE TOO SHORT: within half a diameter of an end face the surface stress departs from "
-            f"the plain bar's by {deps} of nominal (tolerance {100 * w['tolerance']:.3g} %: {w['why']}); model "
-            f"{q(w['length'], 'length')} long{gap_words}. The feature's field reaches the end faces, which hold the "
-            "plain bar's displacement, so its factors may be off by a few per cent; model a longer segment (the "
-            "feature at least 1 diameter from each end) or refine (a coarse mesh's own scatter can also show here).")
+    return (f"NO VERDICT{who}: THE 3-D MODEL IS TOO SHORT: within half a "
+            f"diameter of an end face the surface stress departs from the plain bar's by {deps} of nominal (tolerance "
+            f"{100 * w['tolerance']:.3g} %: {w['why']}); model {q(w['length'], 'length')} long{gap_words}. The "
+            "feature's field reaches the end faces, which hold the plain bar's displacement, so its factors may read "
+            "low (the unsafe side) by a few per cent: they are shown, flagged, but are not a verdict. Model a longer "
+            "segment (the feature at least 1 diameter from each end) or refine (a coarse mesh's own scatter can also "
+            "show here).")

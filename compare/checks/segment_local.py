@@ -14,7 +14,9 @@ station's FE-path value; with the station's own 2-D section (a keyed station) ea
 smaller of the two paths (the 2-D section carries the transverse shear, the 3-D model the keyseat's end).
 
 Not in the 3-D model: transverse shear forces (recorded as a note). When the 3-D study did not show its
-accuracy target the station has no verdict (:func:`no_verdict_unshown`). Numbers and records only.
+accuracy target, or when its model is too short for the feature (the far-field check,
+compare/checks/segment_far_field.py), the station has no verdict (:func:`no_verdict_unshown`).
+Numbers and records only.
 """
 from __future__ import annotations
 
@@ -29,11 +31,14 @@ from classic import stress as cs
 from ..solve.segment_superpose import summary, superpose
 from .checks import SHIGLEY, _fe_factors, governing, required_endurance, set_required_strength
 from .feature_local import _factor_below_one
+from .segment_far_field import TOO_SHORT_REASON, station_too_short
 
 SOURCE = "3-D FE of the station's segment (unit loads superposed)"
 #: Code of the warning when the 3-D study did not show its accuracy target; exit code then.
 NOT_SHOWN = "segment_station_accuracy_not_met"
 EXIT_NOT_SHOWN = 3
+#: Code of the station's own warning when its 3-D model is too short (no verdict, exit code 3 too)
+TOO_SHORT = "segment_station_too_short"
 
 
 def _where(local: dict, p: np.ndarray) -> dict:
@@ -146,17 +151,22 @@ def segment_fe_path(a, local: dict) -> dict:
         "this station has a 3-D feature: the combined stress points above are the 2-D section's; its static and "
         "fatigue FE-path factors come from the " + SOURCE)
     a.extra["segment_local"] = rec
-    if not local["met"]:
-        no_verdict_unshown(a, local["record"])
+    short = station_too_short(local["record"])
+    if not local["met"] or short:
+        no_verdict_unshown(a, local["record"], short)
     return rec
 
 
-def no_verdict_unshown(a, rec: dict) -> None:
-    """The station's 3-D study did not show its accuracy target: its verdicts are withdrawn (the values
-    kept beside, marked), the warning first, exit code :data:`EXIT_NOT_SHOWN` (at least)."""
+def no_verdict_unshown(a, rec: dict, short: list | None = None) -> None:
+    """The station's 3-D study did not show its accuracy target, or its model is too short for the
+    feature (``short``: the far-field record of compare/checks/segment_far_field.py): its verdicts are
+    withdrawn (the values kept beside, marked), the warning first, exit code :data:`EXIT_NOT_SHOWN`
+    (at least)."""
+    reasons = ([] if rec["met"] else ["the 3-D segment study of the station's feature did not show its accuracy target"]) \
+        + ([TOO_SHORT_REASON] if short else [])
+    reason = "; ".join(reasons)
     gov = a.extra.get("governing")
     if gov and not gov.get("no_verdict"):
-        reason = "the 3-D segment study of the station's feature did not show its accuracy target"
         a.extra["governing"] = {"factor": None, "no_verdict": True, "reason": reason, "criterion": None, "path": None,
                                 "at": None, "where": None, "design_factor": a.case.analysis.design_factor,
                                 "meets_design_factor": None, "away_from_corners": gov,
@@ -167,8 +177,10 @@ def no_verdict_unshown(a, rec: dict) -> None:
     for e in a.extra.get("materials") or []:
         e["meets"] = None
         e["meets_what_was_checked"] = None
-        e["no_verdict"] = "the 3-D study of the station's feature did not show its accuracy target"
-    w = {"code": NOT_SHOWN, "field": rec["field"], "kind": rec["kind"], "target": rec["target"],
-         "achieved": rec["achieved"], "limited_by": rec["limited_by"]}
-    a.extra["warnings"] = [w] + [x for x in a.extra.get("warnings") or [] if x.get("code") != NOT_SHOWN]
+        e["no_verdict"] = reason
+    ws = ([{"code": NOT_SHOWN, "field": rec["field"], "kind": rec["kind"], "target": rec["target"],
+            "achieved": rec["achieved"], "limited_by": rec["limited_by"]}] if not rec["met"] else []) \
+        + ([{"code": TOO_SHORT, "field": rec["field"], "kind": rec["kind"], **{k: v for k, v in short[0].items()
+                                                                              if k != "code"}}] if short else [])
+    a.extra["warnings"] = ws + [x for x in a.extra.get("warnings") or [] if x.get("code") not in (NOT_SHOWN, TOO_SHORT)]
     a.extra["exit_code"] = max(EXIT_NOT_SHOWN, a.extra.get("exit_code") or 0)

@@ -1,7 +1,8 @@
 """The command line: ``shaftcheck <command> ...``. One entry point, one small module per command.
 
 Exit codes: 0 success, 2 bad input (one line on stderr naming the field and value), 3 the requested
-accuracy was not reached within the limits, a self-check failed, a linear solve did not converge or a
+accuracy was not reached within the limits, a 3-D segment model is too short for its feature
+(compare/checks/segment_far_field.py), a self-check failed, a linear solve did not converge or a
 limit stopped the run (the last two: one line on stderr, nothing written), 1 a verification check failed,
 130 / 143 interrupted by SIGINT / SIGTERM (one line on stderr; see compare/cli/interrupt.py), 4 no verdict
 (a sharp re-entrant corner leaves the stress unbounded; compare/checks/findings.py).

@@ -7,7 +7,7 @@ import csv
 import io
 
 from ..case.units import from_si
-from .report import ROUND_OFF, Fmt
+from .report import ROUND_OFF, Fmt, no_verdict_label
 from .report_checklist import checklist_rows
 from .report_combined import LABELS
 
@@ -47,7 +47,7 @@ def headline_rows(res: dict, system) -> list[dict]:
         ck = _ERROR_OF.get(key)
         err = (conv.get(ck) or {}).get("gci") if ck else None
         if nv and group in ("combined", "static", "fatigue", "polymer") or nv and key.endswith("tau_max"):
-            quantity += (" [NO VERDICT: 3-D accuracy not shown]" if (res.get("governing") or {}).get("reason_text")
+            quantity += (f" [NO VERDICT: {no_verdict_label(res['governing'])}]" if (res.get("governing") or {}).get("reason_text")
                          else " [not at the sharp corners: NO VERDICT]")
         unit = "" if dim == "dimensionless" else f.s.label(dim)
         hv = None if hand is None else from_si(hand, dim, f.s)

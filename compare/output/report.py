@@ -4,6 +4,7 @@ from __future__ import annotations
 import numpy as np
 
 from ..case.units import SYSTEMS, UnitSystem, from_si
+from ..checks.segment_far_field import TOO_SHORT_REASON, far_field_text
 from .report_combined import CRITERION_LABEL, combined_lines
 from .report_features import factors_only_summary, feature_lines, feature_warning_text
 from .report_geometry import geometry_lines
@@ -80,6 +81,15 @@ _CRIT = {"von_mises": "static yield, von Mises", "tresca": "static yield, Tresca
          "first_cycle_yield": "first-cycle yield, von Mises at the peak"}
 
 
+def no_verdict_label(gov: dict) -> str:
+    """Why a station's 3-D feature left it without a verdict, in a few words (its governing record's
+    ``reason``, compare/checks/segment_local.py)."""
+    reason = gov.get("reason") or ""
+    words = [w for w, hit in (("3-D accuracy not shown", "accuracy target" in reason),
+                              ("3-D model too short", TOO_SHORT_REASON in reason)) if hit]
+    return " and ".join(words) or "3-D accuracy not shown"
+
+
 def warning_text(w: dict, f: Fmt) -> str:
     """One warning record of :mod:`compare.findings` in words, in the case's units."""
     code = w["code"]
@@ -97,6 +107,8 @@ def warning_text(w: dict, f: Fmt) -> str:
         return (f"NO VERDICT: ACCURACY TARGET NOT SHOWN by the 3-D study of the station's {w['kind'].replace('_', ' ')} "
                 f"({w['field']}): target {100 * w['target']:.3g} %, estimated error {ach}{why}. Its Kt, Kts and local "
                 "stresses are estimates with that uncertainty, not a verdict; the factors shown are kept beside, marked.")
+    if code == "segment_station_too_short":  # a station's 3-D model too short (compare/checks/segment_local.py)
+        return far_field_text(w, f.q)
     if code == "sharp_corner_no_verdict":
         where = []
         for c in w["corners"]:

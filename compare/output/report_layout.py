@@ -10,7 +10,7 @@ import math
 
 from ..case.units import from_si
 from .figures_layout import eng_exponent, eng_unit
-from .report import CAUTION, Fmt, num
+from .report import CAUTION, Fmt, no_verdict_label, num
 from .report_combined import LABELS
 from .report_checklist import checklist_html
 from .report_polymer import layout_lines, polymer_html
@@ -319,7 +319,7 @@ def _station_table(res: dict, f: Fmt, short: bool = False) -> str:
         if st.get("fe_path") == "segment":
             fe_path = "3-D segment FE at the feature"
         if gov.get("no_verdict") and gov.get("reason_text"):
-            verdict = "NO VERDICT (3-D accuracy not shown)"
+            verdict = f"NO VERDICT ({no_verdict_label(gov)})"
         elif gov.get("no_verdict"):
             verdict = "NO VERDICT (unbounded stress)"
         elif gov.get("region") is not None:  # a composite station: per region, static only

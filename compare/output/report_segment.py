@@ -10,7 +10,7 @@ import io
 from ..case.case import read_input_file
 from .report import CAUTION, Fmt
 from .report_html import CSS, _img, _table, e
-from .results_segment import SEGMENT_CAUTION, model_phrase
+from .results_segment import SEGMENT_CAUTION, model_phrase, verdict_words
 
 _NAMES = {"kt_axial": "Kt, tension", "kt_bending_x": "Kt, bending about x", "kt_bending_y": "Kt, bending about y",
           "kts": "Kts, torsion"}
@@ -33,9 +33,9 @@ def segment_report_files(a, res: dict, date: str | None = None) -> dict[str, str
         at = ", ".join(f.q0(v, "length", s["diameter"]) for v in s["peak_location"][key]["at"])
         on = s["peak_location"][key].get("feature")
         rows.append((name, f"{s[key]:.4g}", "—" if g is None else f"{100 * g:.3g} %", s[f"{key}_status"],
-                     "—" if c is None else f"{c:.3g}", f"({at})", "plain bar" if on is None else on.replace("_", " ")))
-    verdict = ("The three-mesh estimates meet the target: the factors above carry the stated uncertainty."
-               if acc["met"] else "ACCURACY TARGET NOT SHOWN: these factors are estimates, not a verdict.")
+                     "—" if c is None else f"{c:.3g}", f"({at})", "plain bar" if on is None else on.replace("_", " "),
+                     "MODEL TOO SHORT: not a verdict" if s.get(f"{key}_model_too_short") else ""))
+    verdict = res.get("verdict") or verdict_words(acc["met"], not acc.get("model_long_enough", True))
     body = (f"<h1>{e(res['case']['title'])}</h1><p class=\"small\">shaftcheck {e(res['tool']['version'])} 3-D segment "
             f"study, {e(date)}</p>" + warn + f'<p class="verdict">{e(verdict)}</p>'
             + f"<h2>Factors</h2><p>{e(s['kind'].replace('_', ' '))} on a {e(f.q(s['diameter'], 'length'))} shaft, "
@@ -45,7 +45,7 @@ def segment_report_files(a, res: dict, date: str | None = None) -> dict[str, str
             + (f"<p>{'The' if s['kind'] == 'shoulder' else 'Beside a'} shoulder up to {e(f.q(s['shoulder']['D'], 'length'))} at "
                f"{e(f.q(s['shoulder']['at'], 'length'))} (fillet {e(f.q(s['shoulder']['fillet'], 'length'))}); "
                f"nominal stresses on the {e(f.q(s['diameter'], 'length'))} diameter.</p>" if s.get("shoulder") else "")
-            + _table(("factor", "FE (finest)", "estimate", "study", "chart", "peak (x, y, z)", "peak on"), rows,
+            + _table(("factor", "FE (finest)", "estimate", "study", "chart", "peak (x, y, z)", "peak on", "flag"), rows,
                      numeric=(1, 2, 4))
             + "".join(f"<p class=\"small\">chart: {e(src)}</p>" for src in dict.fromkeys(
                 s[f"{k}_chart_source"] for k in _NAMES if s.get(f"{k}_chart_source")))

@@ -20,6 +20,9 @@ def segment_results(a, warnings_out, schema_version: int) -> dict:
     gcis = [r["gci"] for r in a.extra["segment_rows"]]
     achieved = None if any(g is None for g in gcis) else max(gcis)
     met = achieved is not None and achieved <= target and st.limited is None
+    # a model too short for its feature (compare/checks/segment_far_field.py): the factors are shown,
+    # flagged, but carry no verdict (exit 3, as a target not shown)
+    short = segment_far_field(st.far_field, st.segment.length, st.segment.d, feature_to_end(st.segment))
     entry = {"kind": seg["kind"], "at": seg["at"], "span": seg["span"], "diameter": st.segment.d,
              "length": st.segment.length, "model": seg.get("model", "whole")}
     peaks = {}
@@ -31,6 +34,7 @@ def segment_results(a, warnings_out, schema_version: int) -> dict:
         entry[f"{r['key']}_chart_source"] = r["chart_source"]
         entry[f"{r['key']}_chart_why"] = r.get("chart_why")
         entry[f"{r['key']}_far_field"] = st.far_field.get(r["key"])
+        entry[f"{r['key']}_model_too_short"] = bool(short) and r["key"] in short[0]["departures"]
         peaks[r["key"]] = {"at": r["peak_at"], "on_feature": r["peak_on_feature"], "feature": r.get("peak_feature")}
     entry["peak_location"] = peaks
     entry["shoulder"] = seg.get("shoulder")
@@ -52,17 +56,30 @@ def segment_results(a, warnings_out, schema_version: int) -> dict:
     }
     out["warnings"] = warnings_out(a)
     out["warnings"].insert(0, {"code": "segment_caution", "text": SEGMENT_CAUTION, "data": {}})
-    for w in segment_far_field(st.far_field, st.segment.length, st.segment.d, feature_to_end(st.segment)):
-        out["warnings"].append({"code": w["code"], "text": far_field_text(w, Fmt(case.units).q),
-                                "data": {k: v for k, v in w.items() if k != "code"}})
     if not met:
         out["warnings"].insert(0, {"code": "accuracy_not_met", "text": "ACCURACY TARGET NOT SHOWN: target "
                                    f"{100 * target:.3g} %, estimated error "
                                    f"{'unknown' if achieved is None else f'{100 * achieved:.3g} %'}"
                                    f"{f' ({st.limited})' if st.limited else ''}: the factors are not a verdict.",
                                    "data": {"target": target, "achieved": achieved, "limited_by": st.limited}})
-    out["exit_code"] = 0 if met else 3
+    for w in short:  # the first warning: the verdict it withholds comes before everything else
+        out["warnings"].insert(0, {"code": w["code"], "text": far_field_text(w, Fmt(case.units).q),
+                                   "data": {k: v for k, v in w.items() if k != "code"}})
+    out["accuracy"]["model_long_enough"] = not short
+    out["verdict"] = verdict_words(met, bool(short))
+    out["exit_code"] = 0 if met and not short else 3
     return out
+
+
+def verdict_words(met: bool, short: bool) -> str:
+    """The sentence a [segment] case's factors stand under: none where the model is too short or the
+    target not shown."""
+    if short:
+        return ("NO VERDICT: the 3-D model is too short for its feature (the far-field check): the factors are shown, "
+                "flagged, but may read low; model a longer segment.")
+    if not met:
+        return "ACCURACY TARGET NOT SHOWN: these factors are estimates, not a verdict."
+    return "The three-mesh estimates meet the target: the factors above carry the stated uncertainty."
 
 
 def model_phrase(model: str | None) -> str:
@@ -93,6 +110,7 @@ def segment_summary(res: dict, system) -> str:
         lines.append(f"  {k:<14} {s[k]:>7.3f} {'—' if g is None else f'{100 * g:.2g} %':>9} "
                      f"{'—' if c is None else f'{c:.2f}':>7}  ({at})"
                      f"{'' if s['peak_location'][k]['on_feature'] else ' away from the feature'}"
+                     f"{'  MODEL TOO SHORT: not a verdict' if s.get(f'{k}_model_too_short') else ''}"
                      f"{' on the shoulder' if s['peak_location'][k].get('feature') == 'shoulder' else ''}")
     for src in dict.fromkeys(s[f"{k}_chart_source"] for k in _KEYS if s.get(f"{k}_chart_source")):
         lines.append(f"  chart: {src}")
@@ -100,5 +118,7 @@ def segment_summary(res: dict, system) -> str:
         if s.get(f"{k}_chart_why"):
             lines.append(f"  no chart value for {k}: {s[f'{k}_chart_why']}")
     lines.append("")
+    if res.get("verdict"):
+        lines.append(res["verdict"])
     lines.append("Not checked: no loads, no stresses, no factor of safety; the factors alone (per unit load).")
     return "\n".join(lines)

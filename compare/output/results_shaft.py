@@ -8,7 +8,7 @@ from __future__ import annotations
 import math
 from dataclasses import replace
 
-from ..checks.segment_far_field import far_field_text, segment_far_field
+from ..checks.segment_far_field import far_field_text, station_too_short
 from ..checks.shaft_modes import mode_shapes
 from .report import Fmt
 from .results_segment import model_phrase
@@ -91,7 +91,7 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
                                 f"{'unknown' if ach is None else f'{100 * ach:.3g} %'}"
                                 + (f" ({seg['limited_by']})" if seg["limited_by"] else "") + ". Its Kt, Kts and "
                                 "local stresses are estimates, not a verdict."})
-    for st in stations:  # a station's 3-D model that may be too short (compare/checks/segment_far_field.py)
+    for st in stations:  # stations whose 3-D model is too short (compare/checks/segment_far_field.py): no verdict
         out.extend(station_far_field(st))
     for st in stations:  # first: stations at a sharp corner, which can have no verdict at all
         for c in st.get("sharp") or []:
@@ -145,17 +145,11 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
 
 def station_far_field(st: dict) -> list[dict]:
     """The ``segment_far_field`` warning of a station's 3-D study, with its sentence (none when its
-    model is long enough or the station has no 3-D feature)."""
+    model is long enough or the station has no 3-D feature); the station then has no verdict
+    (compare/checks/segment_local.py)."""
     seg = st.get("segment")
-    if seg is None or not seg.get("far_field"):
-        return []
-    # the model's ends on the shaft: about its mid-length (not the feature's centre when a shoulder is in it)
-    L = seg["length"]
-    c = seg.get("model_mid_on_shaft") if seg.get("model_mid_on_shaft") is not None else seg["centre"]
-    gap = min(seg["span"][0] - (c - L / 2), c + L / 2 - seg["span"][1])
-    recs = segment_far_field(seg["far_field"], L, seg["diameter"], gap,
-                             {"station": st["name"] or st["at"], "at": st["at"], "field": seg["field"]})
-    return [{**w, "text": far_field_text(w)} for w in recs]
+    where = {"station": st["name"] or st["at"], "at": st["at"], "field": seg["field"]} if seg is not None else None
+    return [{**w, "text": far_field_text(w)} for w in station_too_short(seg, where)]
 
 
 def shaft_summary(res: dict, system) -> str:
@@ -235,7 +229,8 @@ def segment_line(seg: dict) -> str:
     return (f"3-D {seg['kind'].replace('_', ' ')} ({seg['dofs'][-1]} unknowns on the finest of three meshes, "
             f"{model_phrase(seg.get('model'))}): "
             f"{one(kb, 'Kt bending')}, {one('kts', 'Kts')}, {one('kt_axial', 'Kt axial')}; "
-            + ("estimates within the target" if seg["met"] else "ACCURACY TARGET NOT SHOWN: no verdict at this station"))
+            + ("estimates within the target" if seg["met"] else "ACCURACY TARGET NOT SHOWN: no verdict at this station")
+            + ("; MODEL TOO SHORT (far-field check): no verdict at this station" if station_too_short(seg) else ""))
 
 
 def _feature_word(field: str) -> str:

@@ -205,7 +205,8 @@ def station_segments_step(case) -> list[dict] | None:
             if "notch_radius" not in st.kt:
                 st.kt["notch_radius"] = notch
         turn = ss.angle - MODEL_ANGLE[ss.kind]
-        fields = unit_fields(study.finest, ss.d, ss.model.length, turn=turn, mirror=ss.mirrored)
+        fields = unit_fields(study.finest, ss.d, ss.model.length, turn=turn, mirror=ss.mirrored,
+                             far_d=ss.model.far_diameter)
         local = {"fields": fields, "record": rec, "kind": ss.kind, "field": ss.field,
                  "centre": ss.mid if ss.mid is not None else ss.centre,
                  "length": ss.model.length, "met": rec["met"], "keep_section_min": st.section is not None,

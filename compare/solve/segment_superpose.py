@@ -43,6 +43,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from fem.solid import PEAK_END_ZONE
+
 #: Sampled shaft angles per turn for the static peak on a rotating shaft.
 N_ANGLES = 720
 #: Points per block when angles are sampled (memory: block × N_ANGLES floats).
@@ -87,12 +89,14 @@ def surface_stress(r):
     return r.stress if node is None else node
 
 
-def unit_fields(finest: dict, d: float, length: float, turn: float = 0.0, end_zone: float = 0.375,
-                mirror: bool = False) -> UnitFields:
+def unit_fields(finest: dict, d: float, length: float, turn: float = 0.0, end_zone: float = PEAK_END_ZONE,
+                mirror: bool = False, far_d: float | None = None) -> UnitFields:
     """From the finest mesh's results {load: SolidResult} (or any object with ``load``, ``points``,
     ``stress``), the stress per unit N, Mx, My, T, turned by ``turn`` degrees about the shaft axis
     (model frame to station frame). Points within ``end_zone`` diameters of an end face are marked
-    off in ``keep`` (the solver's own margin: the end faces carry the prescribed displacement).
+    off in ``keep`` (the solver's own margin, fem.solid.PEAK_END_ZONE: the end faces carry the prescribed
+    displacement or traction), each end in its own diameter: ``d`` at the model's z = 0, ``far_d`` at
+    its z = length (D beyond a shoulder in the model; d when not given).
 
     ``mirror``: the station's part is the model reflected in its mid-length plane (z → length − z; a
     shoulder stepping down along the shaft, modelled stepping up). The reflected field solves the
@@ -125,7 +129,8 @@ def unit_fields(finest: dict, d: float, length: float, turn: float = 0.0, end_zo
     model = [per["tension"], moment(1.0, 0.0), moment(0.0, 1.0), per["torsion"]]
     S = np.stack([np.einsum("ia,abn,jb->ijn", R, m, R) for m in model])
     z = pts[2]
-    keep = (z > end_zone * d) & (z < length - end_zone * d)
+    d0, d1 = (d, d if far_d is None else far_d)[:: -1 if mirror else 1]  # the model's ends, reflected with it
+    keep = (z > end_zone * d0) & (z < length - end_zone * d1)
     nom = np.array([4 / (math.pi * d**2), 32 / (math.pi * d**3), 32 / (math.pi * d**3), 16 / (math.pi * d**3)])
     return UnitFields(R @ pts, S, keep, nom, d, turn)
 

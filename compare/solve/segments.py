@@ -242,6 +242,6 @@ def _factor_outside(res, box, seg, symmetry: int) -> float:
     if symmetry == 2:
         p[2] = seg.length / 2 + np.abs(p[2] - seg.length / 2)
     inside = np.all([(p[a] >= box[2 * a]) & (p[a] <= box[2 * a + 1]) for a in range(3)], axis=0)
-    keep = (p[2] > solid.END_ZONE * seg.d * 0.5) & (p[2] < seg.length - solid.END_ZONE * seg.d * 0.5) & ~inside
+    keep = solid.away_from_ends(seg, p[2]) & ~inside
     mag = solid.stress_measure(res.node_stress, res.load_case)
     return float(np.max(np.where(keep, mag, -np.inf)) / res.nominal)
