@@ -123,6 +123,10 @@ SAMPLING = 40
 #: Read the factor from the nodal-averaged surface stress (True) or the raw element values (False).
 #: Measured on the demo keyseat (fineness 0.3, 25k-67k unknowns): averaged 2.75, 2.70, 2.82 in
 #: tension and 2.07, 2.14, 2.18 in torsion against raw 2.91, 3.03, 2.84 and 2.84, 3.10, 2.32.
+#: Read at the largest node, not between nodes: the largest value of the quadratic interpolant of the
+#: nodal tensors lies 0.3-1.3 % higher, but the interpolant at one fixed point of the peak scatters
+#: 1.4 % between the finest meshes of three studies (tests/benchmarks/bench_segment_reading.py,
+#: DEVELOPERS.md), and it overshoots on the coarse plain bar (bending about y 1.08-1.13 against 1.02).
 RECOVERED = True
 #: The refined size holds this many smallest radii away from the feature surfaces, then grows at
 #: :data:`GRADE`.

@@ -30,7 +30,7 @@ def main():
 
     fineness = float(sys.argv[1]) if len(sys.argv) > 1 else 0.3
     fillet = (float(sys.argv[2]) if len(sys.argv) > 2 else 0.6) * 1e-3
-    d, L, kl = 0.030, 0.090, 0.036
+    d, L, kl = 0.030, 0.126, 0.036
     local = float(sys.argv[3]) if len(sys.argv) > 3 else 1.0
     seg = solid.Segment(d, L, (solid.ProfileKeyseat(0.008, 0.004, L / 2 - kl / 2, L / 2 + kl / 2, fillet),))
     symmetry = int(sys.argv[4]) if len(sys.argv) > 4 else solid.symmetry_of(seg)
