@@ -120,6 +120,18 @@ WALL = 2.5
 GRADE = 0.5
 #: Points per direction at which gmsh samples a surface for its distance field.
 SAMPLING = 40
+#: Finer balls at a profile keyseat's predicted peak places (:func:`peak_points`): None, or (divisor
+#: of the peak size inside the ball, ball radius in fillet radii). Inside the ball the size is the
+#: peak size / divisor (times ``scale``: similar meshes), growing outside it to the global size over
+#: a transition whose length is fixed (the same on every mesh of a study, so the ball's whole size
+#: field is scaled with the mesh). Measured: DEVELOPERS.md, "3-D keyseat end at 1 %".
+PEAK_BALL = None
+#: Make a study's meshes similar in their graded zones as well (False: today's sizing): the growth
+#: away from the feature GRADE × scale and the distance fields sampled at SIMILAR_SAMPLING / scale
+#: points per direction, so every size of the field is ×scale at the same place. Measured:
+#: DEVELOPERS.md, "3-D keyseat end at 1 %".
+SIMILAR = False
+SIMILAR_SAMPLING = 150
 #: Read the factor from the nodal-averaged surface stress (True) or the raw element values (False).
 #: Measured on the demo keyseat (fineness 0.3, 25k-67k unknowns): averaged 2.75, 2.70, 2.82 in
 #: tension and 2.07, 2.14, 2.18 in torsion against raw 2.91, 3.03, 2.84 and 2.84, 3.10, 2.32.
@@ -618,6 +630,25 @@ def peak_zones(f, R: float = 0.5):
     return [f.span()]
 
 
+def peak_points(f, R: float = 0.5) -> list:
+    """Where a profile keyseat's peaks are expected (frame or metres, as ``f`` and ``R``, the shaft's
+    radius there): on its bottom fillet 22.5° from the bottom face, round each rounded end at the
+    mirror plane x = 0 (tension and bending about x) and across the straight part at its mid-length
+    on both sides (torsion: in the prismatic part the peak is the same along the length, and the
+    mid-length is the quarter model's mirror plane). Measured on the demo's coarsest mesh at fineness
+    0.3: tension and bending x at (0, 11.05, 80.63) mm, torsion at (3.63, 11.05, 63.30) mm, where
+    these points fall. Other features: none."""
+    if not isinstance(f, ProfileKeyseat):
+        return []
+    r, a = f.fillet, math.radians(22.5)
+    yc = R - f.depth + r  # the fillet's centre line above the bottom face
+    y = yc - r * math.cos(a)
+    xs = f.width / 2 - r + r * math.sin(a)
+    zm = (f.z0 + f.z1) / 2
+    return [(0.0, y, f.z0 + r - r * math.sin(a)), (0.0, y, f.z1 - r + r * math.sin(a)),
+            (xs, y, zm), (-xs, y, zm)]
+
+
 def _size_fields(gmsh, feats, radii, L, h, scale, fineness, local, skip=()) -> float:
     """Background sizes (frame), per feature (each with its own smallest radius ``small``): on its
     surfaces inside a :func:`peak_zones` range and on those curved to a radius within twice its
@@ -625,8 +656,10 @@ def _size_fields(gmsh, feats, radii, L, h, scale, fineness, local, skip=()) -> f
     carry the peak) small/(PER_RADIUS·fineness·local), on its other surfaces :data:`WALL` times that,
     growing away from them at :data:`GRADE`; every size times ``scale`` (similar meshes). A surface
     belongs to the feature whose z range holds it; the plain cylinders (``radii``) and end faces get
-    the global size, the surfaces in ``skip`` (mirror planes) none. Returns the smallest size at the
-    peak zones."""
+    the global size, the surfaces in ``skip`` (mirror planes) none. With :data:`PEAK_BALL` a finer
+    ball at each of :func:`peak_points`, with :data:`SIMILAR` the growth and the sampling scaled too
+    (both off by default: measured, not kept). Returns the smallest size at the peak zones (the
+    surfaces' size, not the balls')."""
     tol = 1e-6
     groups = {}  # (size at the surface, distance kept at it) -> surfaces
     for _, s in gmsh.model.getEntities(2):
@@ -644,14 +677,31 @@ def _size_fields(gmsh, feats, radii, L, h, scale, fineness, local, skip=()) -> f
     for (size, d0), surfs in sorted(groups.items()):
         dist = fm.add("Distance")
         fm.setNumbers(dist, "SurfacesList", surfs)
-        fm.setNumber(dist, "Sampling", SAMPLING)
+        fm.setNumber(dist, "Sampling", round(SIMILAR_SAMPLING / scale) if SIMILAR else SAMPLING)
         th = fm.add("Threshold")
         fm.setNumber(th, "InField", dist)
         fm.setNumber(th, "SizeMin", size)
         fm.setNumber(th, "SizeMax", h)
         fm.setNumber(th, "DistMin", d0)
-        fm.setNumber(th, "DistMax", d0 + (h - size) / GRADE + 1e-9)
+        fm.setNumber(th, "DistMax", d0 + (h - size) / (GRADE * (scale if SIMILAR else 1.0)) + 1e-9)
         made.append(th)
+    if PEAK_BALL is not None:
+        div, radius = PEAK_BALL
+        for f in feats:
+            hp = min(h, scale * f.small / (PER_RADIUS * fineness * local))
+            vin = hp / div
+            # the transition's length fixed (the size at scale 1 growing at GRADE), so the field scales
+            thick = (h - vin) / scale / GRADE
+            for c in peak_points(f, radii[0]):
+                b = fm.add("Ball")
+                fm.setNumber(b, "Radius", radius * f.small)
+                fm.setNumber(b, "Thickness", thick)
+                fm.setNumber(b, "VIn", vin)
+                fm.setNumber(b, "VOut", h)
+                fm.setNumber(b, "XCenter", c[0])
+                fm.setNumber(b, "YCenter", c[1])
+                fm.setNumber(b, "ZCenter", c[2])
+                made.append(b)
     if len(made) > 1:
         mn = fm.add("Min")
         fm.setNumbers(mn, "FieldsList", made)

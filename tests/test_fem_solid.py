@@ -239,3 +239,39 @@ def test_a_segment_mesh_does_not_depend_on_what_was_meshed_before():
         sm = solid.mesh_segment(seg, fineness=0.25)
         counts.append((sm.mesh.nvertices, sm.mesh.nelements))
     assert counts[0] == counts[1], counts
+
+
+def _edges_near(sm, centre, radius):
+    """Lengths of the mesh's tetrahedron edges whose midpoints lie within ``radius`` of ``centre`` [m]."""
+    m = sm.mesh
+    t = m.t[:4]
+    pairs = [(0, 1), (0, 2), (0, 3), (1, 2), (1, 3), (2, 3)]
+    a = np.concatenate([t[i] for i, _ in pairs])
+    b = np.concatenate([t[j] for _, j in pairs])
+    mid = (m.p[:, a] + m.p[:, b]) / 2
+    near = np.linalg.norm(mid - np.asarray(centre)[:, None], axis=0) < radius
+    return np.linalg.norm(m.p[:, a] - m.p[:, b], axis=0)[near]
+
+
+@pytest.mark.parametrize("fineness", [0.4, 0.45])
+def test_peak_balls_scale_with_the_mesh(monkeypatch, fineness):
+    """With PEAK_BALL the element size at a profile keyseat's predicted peak place is the peak size
+    over the divisor and follows a study's scales (1.96, 1.4, 1: similar meshes), and the predicted
+    place lies on the cut surface (the bottom fillet). Bounds on the median edge length near the
+    place: within 35 % of the asked size (an unstructured mesher's edges scatter about the asked
+    size: common practice) and ratios between meshes within 1.4 ± 0.2 on two perturbed finenesses."""
+    monkeypatch.setattr(solid, "PEAK_BALL", (3.0, 2.0))
+    f = solid.ProfileKeyseat(0.008, 0.004, 0.9 * D, 1.6 * D, 0.05 * D)
+    seg = solid.Segment(D, 2.5 * D, (f,))
+    centre = solid.peak_points(f, D / 2)[1]
+    # on the fillet: the distance from the end fillet's centre line (x = 0 plane) is the fillet radius
+    yc, zc = D / 2 - f.depth + f.fillet, f.z1 - f.fillet
+    assert math.hypot(centre[1] - yc, centre[2] - zc) == pytest.approx(f.fillet, rel=1e-12)
+    medians = []
+    for scale in (1.96, 1.4, 1.0):
+        sm = solid.mesh_segment(seg, fineness=fineness, scale=scale, symmetry=2)
+        asked = scale * f.fillet / (solid.PER_RADIUS * fineness) / 3.0
+        e = _edges_near(sm, centre, 0.5 * f.fillet)
+        medians.append(float(np.median(e)))
+        assert 0.65 * asked < medians[-1] < 1.35 * asked, (scale, medians[-1], asked)
+    assert all(1.2 < a / b < 1.6 for a, b in zip(medians, medians[1:])), medians

@@ -12,7 +12,11 @@ with its three meshes' values, its estimate (GCI) and where its peak sits, then 
 is below the 1 % of issue 21. Asserts nothing (not part of pytest). Measured figures (fineness
 0.27-0.46, and the sizing changes tried): DEVELOPERS.md, "3-D keyseat end at 1 %".
 
-    python tests/benchmarks/bench_segment_accuracy.py [fineness] [fillet in mm] [local] [symmetry 0|1|2]
+    python tests/benchmarks/bench_segment_accuracy.py [fineness] [fillet in mm] [local] [symmetry 0|1|2] [ball=D,R] [similar=0|1]
+
+``ball=D,R`` sets ``fem.solid.PEAK_BALL`` = (D, R) for the run: balls of radius R fillet radii at the
+keyseat's predicted peak places (``fem.solid.peak_points``) holding the peak size / D on each mesh
+(``ball=none``: no balls); ``similar=1`` sets ``fem.solid.SIMILAR`` (graded zones similar too).
 """
 from __future__ import annotations
 
@@ -31,6 +35,14 @@ def main():
     from compare.solve.segments import study_segment
     from fem import solid
 
+    argv = [a for a in sys.argv if "=" not in a]
+    for a in sys.argv[1:]:
+        if a.startswith("ball="):
+            v = a.split("=", 1)[1]
+            solid.PEAK_BALL = None if v == "none" else tuple(float(x) for x in v.split(","))
+        if a.startswith("similar="):
+            solid.SIMILAR = a.split("=", 1)[1] == "1"
+    sys.argv = argv
     fineness = float(sys.argv[1]) if len(sys.argv) > 1 else 0.3
     fillet = (float(sys.argv[2]) if len(sys.argv) > 2 else 0.6) * 1e-3
     d, kl = 0.030, 0.036
@@ -43,7 +55,9 @@ def main():
     mem = max(resource.getrusage(resource.RUSAGE_SELF).ru_maxrss,
               resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss) / 1024**2
     model = ("whole segment", "half model (x >= 0)", "quarter model (x >= 0, z >= length/2)")[symmetry]
-    print(f"keyseat end: d 30 mm, 8 x 4 mm, fillet {fillet * 1e3:g} mm, fineness {fineness:g}, local {local:g}, {model}")
+    print(f"keyseat end: d 30 mm, 8 x 4 mm, fillet {fillet * 1e3:g} mm, fineness {fineness:g}, local {local:g}, {model}, "
+          f"peak balls {solid.PEAK_BALL}, similar {solid.SIMILAR}")
+    print(f"feature edge lengths {', '.join('-' if x is None else f'{x * 1e3:.3f}' for x in st.feature_sizes)} mm, measured ratios {st.ratios}")
     print(f"unknowns {st.dofs} (of the model solved); whole process CPU {cpu:.0f} s, wall {wall:.0f} s, peak memory {mem:.2f} GB")
     ok = True
     for key, v in st.values.items():
