@@ -37,6 +37,8 @@ SOURCE = "3-D FE of the station's segment (unit loads superposed)"
 #: Code of the warning when the 3-D study did not show its accuracy target; exit code then.
 NOT_SHOWN = "segment_station_accuracy_not_met"
 EXIT_NOT_SHOWN = 3
+#: the reason a verdict is withheld when the 3-D study did not show its target (a station's ``governing.reason``)
+NOT_SHOWN_REASON = "the 3-D segment study of the station's feature did not show its accuracy target"
 #: Code of the station's own warning when its 3-D model is too short (no verdict, exit code 3 too)
 TOO_SHORT = "segment_station_too_short"
 
@@ -162,7 +164,7 @@ def no_verdict_unshown(a, rec: dict, short: list | None = None) -> None:
     feature (``short``: the far-field record of compare/checks/segment_far_field.py): its verdicts are
     withdrawn (the values kept beside, marked), the warning first, exit code :data:`EXIT_NOT_SHOWN`
     (at least)."""
-    reasons = ([] if rec["met"] else ["the 3-D segment study of the station's feature did not show its accuracy target"]) \
+    reasons = ([] if rec["met"] else [NOT_SHOWN_REASON]) \
         + ([TOO_SHORT_REASON] if short else [])
     reason = "; ".join(reasons)
     gov = a.extra.get("governing")

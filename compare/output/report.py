@@ -5,6 +5,7 @@ import numpy as np
 
 from ..case.units import SYSTEMS, UnitSystem, from_si
 from ..checks.segment_far_field import TOO_SHORT_REASON, far_field_text
+from ..checks.segment_local import NOT_SHOWN_REASON
 from .report_combined import CRITERION_LABEL, combined_lines
 from .report_features import factors_only_summary, feature_lines, feature_warning_text
 from .report_geometry import geometry_lines
@@ -85,7 +86,7 @@ def no_verdict_label(gov: dict) -> str:
     """Why a station's 3-D feature left it without a verdict, in a few words (its governing record's
     ``reason``, compare/checks/segment_local.py)."""
     reason = gov.get("reason") or ""
-    words = [w for w, hit in (("3-D accuracy not shown", "accuracy target" in reason),
+    words = [w for w, hit in (("3-D accuracy not shown", NOT_SHOWN_REASON in reason),
                               ("3-D model too short", TOO_SHORT_REASON in reason)) if hit]
     return " and ".join(words) or "3-D accuracy not shown"
 
