@@ -13,6 +13,7 @@ from .checks.feature_findings import factors_only, feature_findings
 from .checks.findings import findings_step
 from .checks.shaft_checklist import checklist_step
 from .checks.polymer import long_term_layout
+from .checks.segment_far_field import segment_case_step
 from .checks.shaft_stations import layout_step
 from .checks.step import combined_step
 from .pairs.analysis import Analysis, solve_case
@@ -50,6 +51,7 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
     t0 = time.perf_counter()
     if case.segment is not None:  # a short shaft length with a 3-D feature: its factors on three meshes
         a = segment_step(case, fineness)
+        segment_case_step(a)  # is the model long enough for its feature (no verdict where not)
         a.seconds["total"] = time.perf_counter() - t0
         return a
     if case.section.kind == "composite":  # bonded regions of several materials: their own solve and checks

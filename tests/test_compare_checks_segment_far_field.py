@@ -16,7 +16,8 @@ import json
 import pytest
 
 from compare.checks.segment_far_field import (FAR_FIELD_TOL, TOO_SHORT_REASON, far_field_text, feature_to_end,
-                                              segment_far_field, station_too_short)
+                                              segment_far_field, station_records,
+                                              station_too_short)
 from compare.cli.main import EXIT_ACCURACY, main
 from compare.output.results_shaft import station_far_field
 from fem import solid
@@ -48,12 +49,15 @@ def test_station_record_gap_from_its_span():
     the nearer end face's distance from the span."""
     seg = {"length": 0.081, "centre": 0.5, "span": [0.482, 0.518], "diameter": D, "field": "stations[0].segment",
            "far_field": {"kt_axial": 0.2, "kt_bending_x": 0.05, "kt_bending_y": 0.03, "kts": 0.04}}
-    (w,) = station_far_field({"name": "seat", "at": 0.5, "segment": seg})
+    st = {"name": "seat", "at": 0.5, "segment": seg}
+    st["segment_far_field"] = station_records(st)  # as the layout's checks leave it (checks/shaft_stations.py)
+    (w,) = station_far_field(st)  # the output words the record
     assert w["feature_to_end"] == pytest.approx(0.0225) and w["departures"] == {"kt_axial": 0.2}
+    assert w["station"] == "seat" and w["field"] == "stations[0].segment"
     assert w["text"].startswith("NO VERDICT at station seat: THE 3-D MODEL IS TOO SHORT")
     seg["far_field"]["kt_axial"] = 0.05
-    assert station_far_field({"name": "seat", "at": 0.5, "segment": seg}) == []
-    assert station_far_field({"name": "plain", "at": 0.2}) == []
+    assert station_records(st) == []
+    assert station_records({"name": "plain", "at": 0.2}) == [] and station_far_field({"name": "plain", "at": 0.2}) == []
 
 
 @pytest.mark.parametrize("fineness", [0.35, 0.4, 0.45])
@@ -152,7 +156,7 @@ def test_station_gap_about_the_models_mid_length_when_a_shoulder_is_in_it():
     about ``model_mid_on_shaft`` (the same span and length as above, the model's mid 20 mm further on)."""
     seg = {"length": 0.081, "centre": 0.5, "model_mid_on_shaft": 0.52, "span": [0.482, 0.518], "diameter": D,
            "field": "stations[0].segment", "far_field": {"kt_axial": 0.2}}
-    (w,) = station_far_field({"name": "seat", "at": 0.5, "segment": seg})
+    (w,) = station_records({"name": "seat", "at": 0.5, "segment": seg})
     assert w["feature_to_end"] == pytest.approx(0.482 - (0.52 - 0.0405))
 
 

@@ -64,6 +64,26 @@ def station_too_short(seg: dict | None, where: dict | None = None) -> list[dict]
     return segment_far_field(seg["far_field"], seg["length"], seg["diameter"], station_gap(seg), where)
 
 
+def segment_case_step(a) -> list[dict]:
+    """The far-field check of a ``[segment]`` case (compare/pairs/segment_step.py's study): its
+    ``segment_far_field`` records, kept in ``a.extra['segment_far_field']`` for the output to word
+    (compare/output/results_segment.py) and returned."""
+    st = a.extra["segment"]["study"]
+    recs = segment_far_field(st.far_field, st.segment.length, st.segment.d, feature_to_end(st.segment))
+    a.extra["segment_far_field"] = recs
+    return recs
+
+
+def station_records(st: dict) -> list[dict]:
+    """The ``segment_far_field`` records of a layout station (its record in the layout's checks, with
+    ``name``, ``at`` and, for a 3-D feature, ``segment``), naming the station and its field: what
+    compare/output/results_shaft.py words. None when its model is long enough or it has no 3-D study."""
+    seg = st.get("segment")
+    if seg is None:
+        return []
+    return station_too_short(seg, {"station": st["name"] or st["at"], "at": st["at"], "field": seg["field"]})
+
+
 def segment_far_field(far_field: dict, length: float, diameter: float, gap: float | None,
                       where: dict | None = None) -> list[dict]:
     """``segment_far_field`` records for the factors whose far-field departure (``far_field[key]``, a

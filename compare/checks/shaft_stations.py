@@ -28,6 +28,7 @@ from ..case.case import Case, Fatigue, parse_feature_lengths
 from ..case.shaft import Segment, Shaft, Station
 from ..case.units import from_si
 from .feature_local import fillet_fe_path
+from .segment_far_field import station_records
 from .segment_local import segment_fe_path
 from .findings import EXIT_NO_VERDICT, withdraw_verdicts
 from .shaft_beam import SIDE, loads_at, solve_layout
@@ -239,6 +240,8 @@ def layout_step(case: Case, analyse, fineness: float | None = None):
         if solid3d:  # a 3-D feature (keyseat end, cross hole): its local stresses at every candidate point
             rec["fe_path"] = "segment"
             rec["segment"] = st.kt["segment_stresses"][0]["record"]
+            # a model too short for its feature: the record the output words (no verdict there)
+            rec["segment_far_field"] = station_records(rec)
             if fillet:  # also on a shoulder or groove: each criterion the smaller of the 3-D and the fillet's
                 hook = lambda b, st=st: (segment_fe_path(b, st.kt["segment_stresses"][0]),  # noqa: E731
                                          fillet_fe_path(b, st.kt["fillet_stresses"][0], keep_section_min=True))

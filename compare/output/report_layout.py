@@ -367,7 +367,7 @@ def _station_part(st: dict, sres: dict, sfigs: list, f: Fmt) -> str:
     if seg:  # a 3-D feature: its factors with their estimates, before the figures
         rows3 = [(k, f"{seg[k]:.4g}", "—" if seg[f"{k}_gci"] is None else f"{100 * seg[f'{k}_gci']:.3g} %",
                   seg[f"{k}_status"]) for k in ("kt_bending_x", "kt_bending_y", "kts", "kt_axial")]
-        out += ["<h3>3-D feature</h3>", f"<p>{e(segment_line(seg))}.</p>",
+        out += ["<h3>3-D feature</h3>", f"<p>{e(segment_line(seg, bool(st.get('segment_far_field'))))}.</p>",
                 _table(("factor", "3-D FE (finest mesh)", "three-mesh estimate", "study"), rows3, numeric=(1, 2)),
                 f"<p class=\"small\">Hand path: Kt = {e(seg['kt_bending_used']['from'])} ({e(seg['kt_bending_used']['why'])}), "
                 "Kts = kts. FE path: the 3-D unit-load results superposed with the station's loads at every candidate "

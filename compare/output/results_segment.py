@@ -2,7 +2,7 @@
 from __future__ import annotations
 
 from .._version import __version__
-from ..checks.segment_far_field import far_field_text, feature_to_end, segment_far_field
+from ..checks.segment_far_field import far_field_text
 from .report import CAUTION, Fmt
 
 #: what the factors of a segment are not, said beside them every time
@@ -20,9 +20,9 @@ def segment_results(a, warnings_out, schema_version: int) -> dict:
     gcis = [r["gci"] for r in a.extra["segment_rows"]]
     achieved = None if any(g is None for g in gcis) else max(gcis)
     met = achieved is not None and achieved <= target and st.limited is None
-    # a model too short for its feature (compare/checks/segment_far_field.py): the factors are shown,
-    # flagged, but carry no verdict (exit 3, as a target not shown)
-    short = segment_far_field(st.far_field, st.segment.length, st.segment.d, feature_to_end(st.segment))
+    # a model too short for its feature (the check's records, compare/checks/segment_far_field.py): the
+    # factors are shown, flagged, but carry no verdict (exit 3, as a target not shown)
+    short = a.extra["segment_far_field"]
     entry = {"kind": seg["kind"], "at": seg["at"], "span": seg["span"], "diameter": st.segment.d,
              "length": st.segment.length, "model": seg.get("model", "whole")}
     peaks = {}

@@ -8,7 +8,7 @@ from __future__ import annotations
 import math
 from dataclasses import replace
 
-from ..checks.segment_far_field import far_field_text, station_too_short
+from ..checks.segment_far_field import far_field_text
 from ..checks.shaft_modes import mode_shapes
 from .report import Fmt
 from .results_segment import model_phrase
@@ -144,12 +144,11 @@ def shaft_warnings(lay: dict, stations: list) -> list[dict]:
 
 
 def station_far_field(st: dict) -> list[dict]:
-    """The ``segment_far_field`` warning of a station's 3-D study, with its sentence (none when its
-    model is long enough or the station has no 3-D feature); the station then has no verdict
-    (compare/checks/segment_local.py)."""
-    seg = st.get("segment")
-    where = {"station": st["name"] or st["at"], "at": st["at"], "field": seg["field"]} if seg is not None else None
-    return [{**w, "text": far_field_text(w)} for w in station_too_short(seg, where)]
+    """The ``segment_far_field`` warnings of a station's 3-D study with their sentences: the records
+    the layout's checks left on the station (compare/checks/shaft_stations.py, from
+    compare/checks/segment_far_field.py; none when its model is long enough or it has no 3-D
+    feature). The station then has no verdict (compare/checks/segment_local.py)."""
+    return [{**w, "text": far_field_text(w)} for w in st.get("segment_far_field") or []]
 
 
 def shaft_summary(res: dict, system) -> str:
@@ -206,7 +205,7 @@ def shaft_summary(res: dict, system) -> str:
                      f"{f.q(st['T'], 'moment', 4)}, N {f.q(st['N'], 'force', 4)}{side} — {verdict}")
         lines.extend(f"      {x}" for x in station_place_lines(st, f))
         if st.get("segment"):  # a 3-D feature: its factors, each with its three-mesh estimate
-            lines.append(f"      {segment_line(st['segment'])}")
+            lines.append(f"      {segment_line(st['segment'], bool(st.get('segment_far_field')))}")
     for c in sh.get("composite_segments") or []:
         hand = {p["quantity"].split(": ", 1)[1]: p["ratio"] for p in c["compare"]}
         ratios = ", ".join(f"{k.split(' (')[0]} FE/hand {v:.6f}" for k, v in hand.items() if v is not None)
@@ -220,8 +219,9 @@ def shaft_summary(res: dict, system) -> str:
     return "\n".join(lines)
 
 
-def segment_line(seg: dict) -> str:
-    """The 3-D factors of a station's feature in one line, each with its estimate."""
+def segment_line(seg: dict, short: bool = False) -> str:
+    """The 3-D factors of a station's feature in one line, each with its estimate; ``short``: the
+    layout's checks found its model too short (the station's ``segment_far_field`` records)."""
     def one(key, label):
         g = seg[f"{key}_gci"]
         return f"{label} {seg[key]:.3g} ({'no estimate' if g is None else f'±{100 * g:.2g} %'})"
@@ -230,7 +230,7 @@ def segment_line(seg: dict) -> str:
             f"{model_phrase(seg.get('model'))}): "
             f"{one(kb, 'Kt bending')}, {one('kts', 'Kts')}, {one('kt_axial', 'Kt axial')}; "
             + ("estimates within the target" if seg["met"] else "ACCURACY TARGET NOT SHOWN: no verdict at this station")
-            + ("; MODEL TOO SHORT (far-field check): no verdict at this station" if station_too_short(seg) else ""))
+            + ("; MODEL TOO SHORT (far-field check): no verdict at this station" if short else ""))
 
 
 def _feature_word(field: str) -> str:
