@@ -1151,7 +1151,8 @@ def _facet_mapping(sm: SolidMesh):
 def _far_field(pts, mag, r, seg: Segment, nominal, load_case) -> float:
     """Largest relative departure of the surface stress from the elementary one on the plain
     cylinder within half a diameter of the ends (zero when the model is long enough), each end
-    against its own diameter's elementary stress for the same load (the D end of a shoulder: the
+    in its own diameter (half of D at a shoulder's D end, as :func:`away_from_ends`) and against
+    its own diameter's elementary stress for the same load (the D end of a shoulder: the
     nominal times (d/D)² in tension, (d/D)³ in bending and torsion); relative to the d nominal.
     ``pts``, ``mag``: the nodal-averaged surface stress (the one the factor is read from). The raw
     element values scatter too much on the coarse plain-bar mesh to show the length: measured
@@ -1160,7 +1161,7 @@ def _far_field(pts, mag, r, seg: Segment, nominal, load_case) -> float:
     L = seg.length
     worst = float("nan")
     for end, dia in ((0.0, seg.d), (L, seg.far_diameter)):
-        near = (np.abs(pts[2] - end) < 0.5 * seg.d) & (np.abs(r - dia / 2) < 1e-6 * seg.d)
+        near = (np.abs(pts[2] - end) < 0.5 * dia) & (np.abs(r - dia / 2) < 1e-6 * seg.d)
         if not np.any(near):
             continue
         nom = nominal * (seg.d / dia) ** (2 if load_case == "tension" else 3)

@@ -184,3 +184,26 @@ def test_peak_search_skips_each_end_zone_in_its_own_diameter():
     plain = solid.Segment(d, L)
     zz = np.linspace(0, L, 2001)
     assert np.array_equal(solid.away_from_ends(plain, zz), (zz > z0 * d) & (zz < L - z0 * d))
+
+
+def test_far_field_window_in_each_ends_own_diameter():
+    """The far-field departure (:func:`fem.solid._far_field`) is read within half a diameter of each
+    end face in that end's own diameter, as the peak search's end zones (Saint-Venant's principle,
+    Timoshenko & Goodier, Theory of Elasticity, 3rd ed., Sec. 19): at a shoulder segment's D end the
+    window is 0.5 D. Synthetic surface points (no solve), tension: the elementary stress everywhere
+    on the D cylinder (nominal × (d/D)², the same load on the larger area) except one point between
+    0.5 d and 0.5 D from the end face, which departs by 20 % of nominal; at z = 0 the window stays
+    0.5 d (a departure 0.6 d from that end is outside it)."""
+    seg = _segment()  # D = 1.5 d
+    D, L = seg.far_diameter, seg.length
+    nominal = 100e6
+    z = np.array([L - 0.1 * d, L - 0.3 * D, L - 0.45 * D, 0.1 * d, 0.6 * d])
+    r = np.array([D / 2, D / 2, D / 2, d / 2, d / 2])
+    pts = np.vstack([r, np.zeros_like(r), z])
+    mag = np.array([nominal * (d / D) ** 2] * 3 + [nominal] * 2)
+    assert solid._far_field(pts, mag, r, seg, nominal, "tension") == pytest.approx(0.0, abs=1e-12)
+    mag[2] += 0.2 * nominal  # 0.45 D from the D end: beyond 0.5 d (0.3 D), inside 0.5 D
+    assert solid._far_field(pts, mag, r, seg, nominal, "tension") == pytest.approx(0.2)
+    mag[2] -= 0.2 * nominal
+    mag[4] += 0.3 * nominal  # 0.6 d from the d end: outside its window
+    assert solid._far_field(pts, mag, r, seg, nominal, "tension") == pytest.approx(0.0, abs=1e-12)
