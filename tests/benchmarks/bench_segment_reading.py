@@ -2,7 +2,7 @@
 (cases/keyseat_end_3d.toml: d = 30 mm, 8 x 4 mm end-milled keyseat 36 mm long in a 126 mm length,
 bottom fillet 0.6 mm by default, quarter model): each study (three similar meshes at one fineness, as
 :func:`compare.solve.segments.study_segment` makes them) is meshed and solved once and its surface
-stress read three ways:
+stress read several ways:
 
 - ``node``: the largest nodal-averaged surface stress at a boundary node (the factor as
   :func:`fem.solid.solve_segment` reads it);
@@ -17,15 +17,27 @@ stress read three ways:
   smoothed value, far below the peak, whose spread between meshes shows how much of a point value's
   scatter is element-level noise that averaging removes (nan where no facet point lies in the disk).
 
+- ``p2f``: ``p2`` where the peak is on the feature, ``node`` where it is on the plain bar (the
+  interpolant overshoots on the coarse plain cylinder);
+- ``free``: the largest nodal-averaged stress of the traction-free surface law: the element's strain
+  projected on the surface's tangent plane (P ε P, P = I - n n with the curved facet's normal n) and
+  the plane-stress law σ = E/(1 - ν²)((1 - ν) ε_t + ν tr(ε_t) P), so σ·n = 0 exactly; the normal
+  strain, which the element reads worst at the boundary, is not used.
+
 Prints per study the unknowns, the measured ratios and per load the three meshes' values and the
-estimate (GCI, :func:`compare.solve.segments.study_with_notes`) of the ``node`` and ``p2`` readings,
+estimate (GCI, :func:`compare.solve.segments.study_with_notes`) of each reading,
 then per load the finest meshes' spread across the studies for each reading and the whole process's
 CPU seconds. Asserts nothing (not part of pytest).
 
 With ``meshes`` 1 each study is its finest mesh alone (no estimate): the scatter between single
 meshes of nearby finenesses at a third of the cost.
 
-    python tests/benchmarks/bench_segment_reading.py [fineness,fineness,...] [fillet in mm] [local] [meshes 3|1]
+    python tests/benchmarks/bench_segment_reading.py [fineness,fineness,...] [fillet in mm] [local] [meshes 3|1] [ball=D,R] [per_turn=N]
+
+``ball=D,R`` sets ``fem.solid.PEAK_BALL`` (as in bench_segment_accuracy.py), ``per_turn=N``
+``fem.solid.PER_TURN`` (the plain cylinder's elements per turn at fineness 1). Each estimate is
+printed with the measured ratios and, in brackets, with the nominal ratio (the balls' fields are
+similar by construction, while the measured median edge mixes ball and surface sizes).
 """
 from __future__ import annotations
 
@@ -34,6 +46,8 @@ import sys
 
 import numpy as np
 
+#: The readings compared (index into _read's answer, name)
+READINGS = ((0, "node"), (1, "p2"), (4, "p2f"), (5, "free"))
 #: Facets nearest the node maximum searched for the interpolant's maximum (about two rings).
 NEAREST = 30
 #: Subdivisions per facet edge of the sampling grid of the interpolant.
@@ -82,6 +96,32 @@ def _fold(p, seg, symmetry):
     return q
 
 
+def free_surface_stresses(sm, basis, x, E, nu):
+    """Points (3, n) [m] and tensors (3, 3, n) [Pa] of the traction-free surface law (module
+    docstring, ``free``) at the facet points of :func:`fem.solid.surface_stresses`."""
+    from fem import solid
+
+    fb = solid._lateral_basis(sm, basis)
+    g = fb.interpolate(x).grad
+    n = fb.normals.value
+    P = np.eye(3)[:, :, None, None] - n[:, None] * n[None, :]
+    eps = np.einsum("ik...,kl...,lj...->ij...", P, 0.5 * (g + np.swapaxes(g, 0, 1)), P)
+    tr = np.einsum("ii...->...", eps)
+    sig = E / (1 - nu**2) * ((1 - nu) * eps + nu * tr[None, None] * P)
+    return fb.global_coordinates().value.reshape(3, -1), sig.reshape(3, 3, -1)
+
+
+def _free(sm, res, load, seg):
+    """The ``free`` reading over the nominal."""
+    from fem import solid
+
+    r = res[load]
+    p, s = free_surface_stresses(sm, r.basis, r.x, 2.05e11, 0.29)
+    npts, nsig = solid.mirrored_surface_stresses(sm, *solid.recovered_surface_stresses(sm, p, s), load)
+    mag = solid.stress_measure(nsig, load)
+    return float(np.max(np.where(solid.away_from_ends(seg, npts[2]), mag, -np.inf)) / r.nominal)
+
+
 def _read(sm, res, load, seg):
     """node, p2 readings (over the nominal) and the data to evaluate the interpolant elsewhere."""
     from fem import solid
@@ -101,7 +141,8 @@ def _read(sm, res, load, seg):
     j = int(np.argmax(mag))
     keep = dict(npts=npts, msig=msig, conn=conn, sign=sign, raw=(r.points, r.stress), L=seg.length,
                 symmetry=sm.symmetry, parity=solid.PARITY[load])
-    return r.factor, float(mag[j] / r.nominal), X[:, j], keep
+    p2 = float(mag[j] / r.nominal)
+    return r.factor, p2, X[:, j], keep, p2 if r.peak_on_feature else r.factor, _free(sm, res, load, seg)
 
 
 def _at(keep, point, load, nominal):
@@ -146,6 +187,13 @@ def main():
     from compare.solve.segments import KEYS, RATIO, measured_ratios, mesh_dofs, study_with_notes
     from fem import solid
 
+    for a in sys.argv[1:]:
+        if a.startswith("ball="):
+            v = a.split("=", 1)[1]
+            solid.PEAK_BALL = None if v == "none" else tuple(float(x) for x in v.split(","))
+        if a.startswith("per_turn="):
+            solid.PER_TURN = float(a.split("=", 1)[1])
+    sys.argv = [a for a in sys.argv if "=" not in a]
     finenesses = [float(v) for v in sys.argv[1].split(",")] if len(sys.argv) > 1 else [0.27, 0.3, 0.33]
     fillet = (float(sys.argv[2]) if len(sys.argv) > 2 else 0.6) * 1e-3
     local = float(sys.argv[3]) if len(sys.argv) > 3 else 1.7
@@ -154,7 +202,7 @@ def main():
     seg = solid.Segment(d, L, (solid.ProfileKeyseat(0.008, 0.004, L / 2 - kl / 2, L / 2 + kl / 2, fillet),))
     symmetry = solid.symmetry_of(seg)
     print(f"keyseat end: d 30 mm, 8 x 4 mm, length 126 mm, fillet {fillet * 1e3:g} mm, local {local:g}, "
-          f"symmetry {symmetry}")
+          f"symmetry {symmetry}, peak balls {solid.PEAK_BALL}, PER_TURN {solid.PER_TURN:g}")
     studies = []
     for fineness in finenesses:
         runs = []
@@ -174,14 +222,15 @@ def main():
         print(f"fineness {fineness:g}: unknowns {dofs}, measured ratios {ratios[1]:.3f}, {ratios[0]:.3f}"
               f"{'' if why is None else ' (' + why + ')'}")
         for load in solid.LOADS:
-            for k, name in ((0, "node"), (1, "p2")):
+            for k, name in READINGS:
                 vals = [r["reads"][load][k] for r in runs]
                 e = study_with_notes(KEYS[load], vals[::-1], dofs[::-1], ratios, d)
-                g = "-" if e["gci"] is None else f"{100 * e['gci']:.1f} %"
-                print(f"  {KEYS[load]:13s} {name:4s} {', '.join(f'{v:.4f}' for v in vals)}  GCI {g}")
+                e2 = study_with_notes(KEYS[load], vals[::-1], dofs[::-1], (RATIO, RATIO), d)
+                g, g2 = ("-" if x["gci"] is None else f"{100 * x['gci']:.2f} %" for x in (e, e2))
+                print(f"  {KEYS[load]:13s} {name:4s} {', '.join(f'{v:.4f}' for v in vals)}  GCI {g} ({g2})")
     print("finest meshes across the studies (spread = (max - min) / mean):")
     for load in solid.LOADS:
-        for k, name in ((0, "node"), (1, "p2")):
+        for k, name in READINGS:
             v = np.array([runs[-1]["reads"][load][k] for _, runs in studies])
             print(f"  {KEYS[load]:13s} {name:4s} {', '.join(f'{x:.4f}' for x in v)}  "
                   f"spread {100 * (v.max() - v.min()) / v.mean():.2f} %")
