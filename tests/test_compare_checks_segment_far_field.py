@@ -138,6 +138,10 @@ def test_layout_station_has_no_verdict_when_short(tmp_path, capsys):
     assert w["data"]["station"] == "lubrication hole" and w["data"]["departures"]["kt_axial"] > FAR_FIELD_TOL
     assert w["data"]["feature_to_end"] == pytest.approx(0.018, rel=1e-3)
     assert "NO VERDICT at station lubrication hole: THE 3-D MODEL IS TOO SHORT" in printed
+    # the checks' record reaches the station's entry, and the station's summary line says it
+    (rec,) = res["section_loads"][0]["segment_far_field"]
+    assert rec["departures"] == w["data"]["departures"]
+    assert "MODEL TOO SHORT (far-field check): no verdict at this station" in printed
     assert code == EXIT_ACCURACY
     gov = res["section_loads"][0]["results"]["governing"]
     assert gov["no_verdict"] and gov["factor"] is None and TOO_SHORT_REASON in gov["reason"]

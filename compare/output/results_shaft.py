@@ -65,7 +65,9 @@ def add_shaft_results(out: dict, a, build_results) -> None:
                  # where along the station's feature its loads were taken, where the station record says
                  **{k: rec_st[k] for k in ("loads_where", "governing_at") if k in rec_st},
                  # a 3-D feature: its study (also in results 'segments') and which FE path the station took
-                 **({"segment": rec_st["segment"], "fe_path": rec_st.get("fe_path")} if "segment" in rec_st else {}),
+                 # and the far-field check's records for it (compare/checks/shaft_stations.py; empty: long enough)
+                 **({"segment": rec_st["segment"], "fe_path": rec_st.get("fe_path"),
+                     "segment_far_field": rec_st.get("segment_far_field") or []} if "segment" in rec_st else {}),
                  "results": {k: r[k] for k in _STATION_KEYS if k in r}}
         loads.append(entry)
     out["section_loads"] = loads
