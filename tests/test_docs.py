@@ -128,3 +128,15 @@ def test_method_page_names_every_test_module():
     text = (DOCS / "method.md").read_text(encoding="utf-8")
     missing = [p.name for p in sorted((ROOT / "tests").glob("test_*.py")) if f"`tests/{p.name}`" not in text]
     assert not missing, f"docs/method.md does not list {missing}"
+
+
+def test_no_merge_conflict_left_in_the_text():
+    """No line of the project's text (pages, code, cases) is a merge-conflict marker: one was found left
+    in a results table of docs/layout.md (common practice: such a line is never meant to stay)."""
+    marker = re.compile(r"^(<{7} |={7}$|>{7} )", re.M)
+    files = [p for ext in ("*.md", "*.py", "*.toml", "*.json") for p in ROOT.rglob(ext)
+             if not any(part.startswith(".") or part in ("out", "build") for part in p.relative_to(ROOT).parts)
+             and "egg-info" not in str(p)]
+    assert len(files) > 100  # the walk found the project
+    hits = [str(p.relative_to(ROOT)) for p in files if marker.search(p.read_text(encoding="utf-8", errors="replace"))]
+    assert hits == []
