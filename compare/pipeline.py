@@ -9,6 +9,7 @@ import time
 
 from .case.case import Case
 from .checks.composite_checks import composite_checks
+from .checks.feature_bound import no_verdict_first
 from .checks.feature_findings import factors_only, feature_findings
 from .checks.findings import findings_step
 from .checks.shaft_checklist import checklist_step
@@ -46,7 +47,7 @@ def analyse(case: Case, fineness: float | None = None, study: bool = True) -> An
         lt = long_term_layout(a)  # a polymer shaft: deflections and slopes after the service life
         if lt is not None:
             a.extra["polymer_layout"] = lt
-        a.extra["warnings"] = feature_findings(a) + list(a.extra.get("warnings") or [])
+        a.extra["warnings"] = no_verdict_first(feature_findings(a) + list(a.extra.get("warnings") or []))
         return a
     t0 = time.perf_counter()
     if case.segment is not None:  # a short shaft length with a 3-D feature: its factors on three meshes

@@ -27,6 +27,8 @@ from fem.geometry import round_section
 from ..case.case import Case, Fatigue, parse_feature_lengths
 from ..case.shaft import Segment, Shaft, Station
 from ..case.units import from_si
+from .feature_bound import bound_verdict, used_feature_bounds
+from .feature_findings import DEFAULT_TARGET
 from .feature_local import fillet_fe_path
 from .segment_far_field import station_records
 from .segment_local import segment_fe_path
@@ -260,6 +262,9 @@ def layout_step(case: Case, analyse, fineness: float | None = None):
         no_verdict_at_sharp(rec, a)
         if "composite" in a.extra:
             composite_station(rec, a, shaft.rotating)
+        # a verdict resting on a shoulder or groove factor whose study did not show the target: it must
+        # hold with the stresses raised by that factor's bound, else it is withdrawn
+        bound_verdict(a, rec, used_feature_bounds(st), case.analysis.accuracy or DEFAULT_TARGET)
         gov = a.extra.get("governing") or {}
         rec["governing"] = gov or None
         rec["exit_code"] = a.extra.get("exit_code")

@@ -4,6 +4,7 @@ from __future__ import annotations
 import numpy as np
 
 from ..case.units import SYSTEMS, UnitSystem, from_si
+from ..checks.feature_bound import BOUND_REASON
 from ..checks.segment_far_field import TOO_SHORT_REASON, far_field_text
 from ..checks.segment_local import NOT_SHOWN_REASON
 from .report_combined import CRITERION_LABEL, combined_lines
@@ -83,11 +84,13 @@ _CRIT = {"von_mises": "static yield, von Mises", "tresca": "static yield, Tresca
 
 
 def no_verdict_label(gov: dict) -> str:
-    """Why a station's 3-D feature left it without a verdict, in a few words (its governing record's
-    ``reason``, compare/checks/segment_local.py)."""
+    """Why a station's 3-D feature, or a shoulder or groove factor's error bound, left it without a
+    verdict, in a few words (its governing record's ``reason``, compare/checks/segment_local.py and
+    compare/checks/feature_bound.py)."""
     reason = gov.get("reason") or ""
     words = [w for w, hit in (("3-D accuracy not shown", NOT_SHOWN_REASON in reason),
-                              ("3-D model too short", TOO_SHORT_REASON in reason)) if hit]
+                              ("3-D model too short", TOO_SHORT_REASON in reason),
+                              ("margin within a feature factor's error bound", BOUND_REASON in reason)) if hit]
     return " and ".join(words) or "3-D accuracy not shown"
 
 

@@ -88,6 +88,15 @@ def feature_warning_text(w: dict, f) -> str | None:
                 f"gave {', '.join(f'{v:.5f}' for v in w['values'])}, which converge monotonically, but their error bound "
                 f"({_pct(w['bound'])}) exceeds the target ({_pct(w['target'])}); the study does not refine further, so "
                 "read the factor with that bound.")
+    if code == "feature_bound_no_verdict":  # compare/checks/feature_bound.py
+        bound = "unknown (a factor without an estimate)" if w["bound"] is None else _pct(w["bound"])
+        low = "" if w["factor_lowered"] is None else f" to {w['factor_lowered']:.3g}"
+        return (f"NO VERDICT: the factor of safety {w['factor']:.3g} meets the design factor {w['design_factor']:.3g} only "
+                f"by less than the error bound of the shoulder or groove factor it rests on ({', '.join(w['fields'])}: "
+                f"bound {bound}, above the accuracy target {_pct(w['target'])}). Raised by that bound, the stresses "
+                f"lower it{low}, below the design factor, so the numbers do not support 'meets'; the values are kept "
+                "beside, marked. Ask for a looser target only knowingly; else give the feature more unknowns "
+                "(analysis.max_dofs) or a finer fineness.")
     if code == "feature_neighbours":
         return (f"FEATURES INTERACT: {w['field']} has {', '.join(w['neighbours'])} within {f.q(w['length'], 'length', 3)}; "
                 "each is modelled alone on a plain shaft, so their factors ignore each other.")

@@ -190,6 +190,10 @@ def shaft_summary(res: dict, system) -> str:
         gov = (st["results"].get("governing") or {})
         n = gov.get("factor")
         verdict = "no verdict" if gov.get("no_verdict") or n is None else f"n = {n:.3g} ({gov.get('criterion')})"
+        hb = gov.get("holds_within_feature_bound")  # compare/checks/feature_bound.py
+        if hb:
+            verdict += (f"; meets the design factor also with the stresses raised by its shoulder or groove factor's "
+                        f"{100 * hb['bound']:.2g} % bound (n {hb['factor_lowered']:.3g})")
         if gov.get("region") is not None:  # a station on a composite segment
             why = gov.get("not_a_verdict") or ", ".join(str(w).replace("_", " ") for w in gov.get("not_supported_because", []))
             verdict += f" in {gov['region']}" + (f"; NOT A VERDICT: {why or 'see its warnings'}"

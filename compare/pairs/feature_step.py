@@ -122,11 +122,15 @@ def station_factors(shaft, records: list[dict], studies: list[dict] | None = Non
                 continue
             reach = rec["radius"] if rec["kind"] == "shoulder" else rec["width"] / 2
             if abs(st.at - rec["at"]) <= reach * (1 + 1e-9):
+                bounds = {}  # each factor's error bound, with the source that marks it as this study's
                 for load, key in KEYS.items():
                     gci = rec[f"{key}_gci"]
                     bound = {"gci": "GCI", "spread": "error bound (spread)"}.get(rec[f"{key}_gci_kind"], "")
                     src = f"{FE_SOURCE}, {rec['field']}" + (f", {bound} {gci:.2%}" if gci is not None else "")
                     st.kt[STATION_KEYS[load]] = (rec[key], src)
+                    bounds[STATION_KEYS[load]] = {"bound": gci, "source": src}
+                # for the station's verdict where a bound exceeds the target (compare/checks/feature_bound.py)
+                st.kt["feature_bounds"] = (bounds, rec["field"])
                 st.kt["notch_radius"] = (rec["radius"], rec["field"])
                 if studies is not None and studies[k]:
                     local = {load: studies[k][load]["components"] for load in KEYS}
