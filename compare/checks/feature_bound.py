@@ -24,6 +24,7 @@ Kf = 1 + q(Kt − 1) moves by no more than Kt does.
 """
 from __future__ import annotations
 
+from .findings import withdraw_verdicts
 from .segment_local import NOT_SHOWN, TOO_SHORT
 
 #: Exit code of a station (and so the shaft) whose verdict the bound withdraws: the accuracy one
@@ -86,17 +87,7 @@ def bound_verdict(a, rec: dict, used: dict | None, target: float) -> dict | None
 
 
 def _withdraw(a, gov: dict, out: dict) -> None:
-    a.extra["governing"] = {"factor": None, "no_verdict": True, "reason": BOUND_REASON, "criterion": None,
-                            "path": None, "at": None, "where": None, "design_factor": gov.get("design_factor"),
-                            "meets_design_factor": None, "away_from_corners": gov,
-                            "reason_text": "no verdict: " + BOUND_REASON}
-    st = a.extra.get("static")
-    if st and "meets_design_factor" in st:
-        st["meets_design_factor"] = {c: None for c in st["meets_design_factor"]}
-    for e in a.extra.get("materials") or []:
-        e["meets"] = None
-        e["meets_what_was_checked"] = None
-        e["no_verdict"] = BOUND_REASON
+    withdraw_verdicts(a, BOUND_REASON, note=BOUND_REASON, design_factor=gov.get("design_factor"))
     w = {"code": NO_VERDICT, **{k: out[k] for k in ("bound", "target", "factor", "design_factor", "factor_lowered")},
          "fields": sorted({v["field"] for v in out["factors"].values()})}
     a.extra["warnings"] = [w] + [x for x in a.extra.get("warnings") or [] if x.get("code") != NO_VERDICT]

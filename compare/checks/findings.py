@@ -72,19 +72,25 @@ def findings_step(a) -> None:
         a.extra["exit_code"] = EXIT_NO_VERDICT
 
 
-def withdraw_verdicts(a, reason: str = "sharp re-entrant corner") -> None:
+def withdraw_verdicts(a, reason: str = "sharp re-entrant corner", note: str | None = None,
+                      design_factor: float | None = None) -> None:
     """With an unbounded peak, no factor of safety is the section's: the governing result becomes
     'no verdict' (the value away from the corners is kept beside it, marked), static 'meets' flags
-    and every material's 'meets' become None. ``reason`` names the corner (a keyway's, a shoulder's)."""
+    and every material's 'meets' become None. ``reason`` names the corner (a keyway's, a shoulder's).
+    Another reason (compare/checks/feature_bound.py) gives the materials' ``note`` (else "the stress
+    is unbounded") and the governing record's ``design_factor`` (else the case's) and
+    ``reason_text``."""
     gov = a.extra.get("governing")
     a.extra["governing"] = {"factor": None, "no_verdict": True, "reason": reason,
                             "criterion": None, "path": None, "at": None, "where": None,
-                            "design_factor": a.case.analysis.design_factor, "meets_design_factor": None,
-                            "away_from_corners": gov}
+                            "design_factor": a.case.analysis.design_factor if design_factor is None else design_factor,
+                            "meets_design_factor": None, "away_from_corners": gov}
+    if note is not None:
+        a.extra["governing"]["reason_text"] = "no verdict: " + reason
     st = a.extra.get("static")
     if st and "meets_design_factor" in st:
         st["meets_design_factor"] = {c: None for c in st["meets_design_factor"]}
     for e in a.extra.get("materials") or []:
         e["meets"] = None
         e["meets_what_was_checked"] = None
-        e["no_verdict"] = f"{reason}: the stress is unbounded"
+        e["no_verdict"] = f"{reason}: the stress is unbounded" if note is None else note
