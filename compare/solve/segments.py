@@ -15,7 +15,6 @@ Numbers and records only.
 from __future__ import annotations
 
 import math
-
 import time
 import warnings
 from dataclasses import dataclass, field
